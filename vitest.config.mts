@@ -1,0 +1,20 @@
+import { defineConfig } from "vitest/config";
+import path from "node:path";
+
+export default defineConfig({
+  resolve: {
+    alias: {
+      "@": path.resolve(__dirname),
+      // server-only throws outside Next's server build; tests import lib/ directly.
+      "server-only": path.resolve(__dirname, "tests/support/empty.ts"),
+    },
+  },
+  test: {
+    include: ["tests/unit/**/*.test.ts", "tests/integration/**/*.test.ts"],
+    environment: "node",
+    testTimeout: 60_000,
+    hookTimeout: 120_000,
+    pool: "forks",
+    globalSetup: ["tests/support/global-setup.ts"],
+  },
+});
