@@ -4,9 +4,9 @@ import path from "node:path";
 export default defineConfig({
   resolve: {
     alias: {
-      "@": path.resolve(__dirname),
+      "@": path.resolve(import.meta.dirname),
       // server-only throws outside Next's server build; tests import lib/ directly.
-      "server-only": path.resolve(__dirname, "tests/support/empty.ts"),
+      "server-only": path.resolve(import.meta.dirname, "tests/support/empty.ts"),
     },
   },
   test: {
@@ -16,5 +16,6 @@ export default defineConfig({
     hookTimeout: 120_000,
     pool: "forks",
     globalSetup: ["tests/support/global-setup.ts"],
+    setupFiles: ["tests/support/setup-env.ts"],
   },
 });

@@ -1,0 +1,46 @@
+import { EntitySchema } from "@mikro-orm/core";
+import type { BlockVersion } from "./block-version.entity";
+
+export type RunStatus = "queued" | "running" | "done" | "error";
+export type RunTrigger = "new-version" | "reverify" | "manual";
+
+export interface CheckRun {
+  id: string;
+  version: BlockVersion;
+  status: RunStatus;
+  report: Record<string, unknown> | null;
+  waveforms: unknown[] | null;
+  engineVersion: string | null;
+  ngspiceVersion: string | null;
+  modelLibraryHash: string | null;
+  durationMs: number | null;
+  attempts: number;
+  trigger: RunTrigger;
+  error: string | null;
+  createdAt: Date;
+  startedAt: Date | null;
+  finishedAt: Date | null;
+}
+
+export const CheckRunSchema = new EntitySchema<CheckRun>({
+  name: "CheckRun",
+  tableName: "check_runs",
+  indexes: [{ properties: ["version", "createdAt"] }, { properties: ["status"] }],
+  properties: {
+    id: { type: "uuid", primary: true, onCreate: () => crypto.randomUUID() },
+    version: { kind: "m:1", entity: "BlockVersion", deleteRule: "cascade" },
+    status: { type: "string", length: 16, default: "queued" },
+    report: { type: "json", nullable: true },
+    waveforms: { type: "json", nullable: true, lazy: true },
+    engineVersion: { type: "string", length: 32, nullable: true },
+    ngspiceVersion: { type: "string", length: 64, nullable: true },
+    modelLibraryHash: { type: "string", length: 64, nullable: true },
+    durationMs: { type: "integer", nullable: true },
+    attempts: { type: "integer", default: 0 },
+    trigger: { type: "string", length: 16, default: "new-version" },
+    error: { type: "text", nullable: true },
+    createdAt: { type: "Date", onCreate: () => new Date() },
+    startedAt: { type: "Date", nullable: true },
+    finishedAt: { type: "Date", nullable: true },
+  },
+});

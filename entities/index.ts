@@ -1,0 +1,44 @@
+import { ApiTokenSchema } from "./api-token.entity";
+import { AttachmentSchema } from "./attachment.entity";
+import { BlockVersionSchema } from "./block-version.entity";
+import { BlockSchema } from "./block.entity";
+import { CheckRunSchema } from "./check-run.entity";
+import { InvitationSchema } from "./invitation.entity";
+import { MembershipSchema } from "./membership.entity";
+import { OutboxEventSchema } from "./outbox-event.entity";
+import { ReviewSchema } from "./review.entity";
+import { SignInLinkSchema } from "./sign-in-link.entity";
+import { TeamSchema } from "./team.entity";
+import { UserSchema } from "./user.entity";
+import { WatchSchema } from "./watch.entity";
+
+export * from "./api-token.entity";
+export * from "./attachment.entity";
+export * from "./block-version.entity";
+export * from "./block.entity";
+export * from "./check-run.entity";
+export * from "./invitation.entity";
+export * from "./membership.entity";
+export * from "./outbox-event.entity";
+export * from "./review.entity";
+export * from "./sign-in-link.entity";
+export * from "./team.entity";
+export * from "./user.entity";
+export * from "./watch.entity";
+
+// Listed by name: bundlers cannot scan folders.
+export const allEntities = [
+  UserSchema,
+  TeamSchema,
+  MembershipSchema,
+  InvitationSchema,
+  SignInLinkSchema,
+  BlockSchema,
+  BlockVersionSchema,
+  CheckRunSchema,
+  ReviewSchema,
+  AttachmentSchema,
+  WatchSchema,
+  ApiTokenSchema,
+  OutboxEventSchema,
+];

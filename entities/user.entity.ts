@@ -1,0 +1,21 @@
+import { EntitySchema } from "@mikro-orm/core";
+
+export interface User {
+  id: number;
+  email: string;
+  name: string;
+  passwordHash: string | null;
+  createdAt: Date;
+}
+
+export const UserSchema = new EntitySchema<User>({
+  name: "User",
+  tableName: "users",
+  properties: {
+    id: { type: "integer", primary: true, autoincrement: true },
+    email: { type: "string", length: 320, unique: true },
+    name: { type: "string", length: 200 },
+    passwordHash: { type: "string", nullable: true },
+    createdAt: { type: "Date", onCreate: () => new Date() },
+  },
+});

@@ -1,0 +1,2 @@
+// Imported by the health route: each part registers its probe with lib/health/health.ts here.
+export {};
