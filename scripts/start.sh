@@ -58,6 +58,7 @@ if [ -z "${SMTP_URL:-}" ]; then
 fi
 
 node --import tsx scripts/worker.ts & CHILDREN+=($!)
+node --import tsx scripts/consumers.ts & CHILDREN+=($!)
 
 if [ ! -f .next/BUILD_ID ] || [ -n "$(find app components lib entities checks migrations next.config.ts package-lock.json -newer .next/BUILD_ID -type f 2>/dev/null | head -1)" ]; then
   say "building the web app"

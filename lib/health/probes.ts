@@ -1,2 +1,6 @@
-// Imported by the health route: each part registers its probe with lib/health/health.ts here.
-export {};
+import { searchBacklog, searchHealth } from "@/lib/search/health";
+import { registerBacklogProbe, registerHealthProbe } from "./health";
+
+// Imported by the health route: each part registers its probe here.
+registerHealthProbe("search", searchHealth);
+registerBacklogProbe(searchBacklog);
