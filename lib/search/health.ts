@@ -1,6 +1,6 @@
 import { getEm } from "@/lib/db/orm";
 import { searchClient } from "./client";
-import { indexBacklog } from "./indexer";
+import { indexBacklog } from "./backlog";
 
 export async function searchHealth(): Promise<string> {
   const h = await searchClient().health();

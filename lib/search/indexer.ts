@@ -31,10 +31,6 @@ export async function processIndexBacklog(em: EntityManager, limit = 200): Promi
   return events.length;
 }
 
-export async function indexBacklog(em: EntityManager): Promise<number> {
-  return em.count(OutboxEventSchema, { indexedAt: null });
-}
-
 /** Rebuild the whole index from PostgreSQL (npm run reindex). */
 export async function reindexAll(em: EntityManager): Promise<number> {
   await ensureBlocksIndex();
