@@ -17,6 +17,9 @@ export interface CheckRun {
   attempts: number;
   trigger: RunTrigger;
   error: string | null;
+  /** The worker holding the run and until when; an expired lease means its worker died (lib/runs/lease.ts). */
+  leasedBy?: string | null;
+  leaseUntil?: Date | null;
   createdAt: Date;
   startedAt: Date | null;
   finishedAt: Date | null;
@@ -39,6 +42,8 @@ export const CheckRunSchema = new EntitySchema<CheckRun>({
     attempts: { type: "integer", default: 0 },
     trigger: { type: "string", length: 16, default: "new-version" },
     error: { type: "text", nullable: true },
+    leasedBy: { type: "string", length: 64, nullable: true },
+    leaseUntil: { type: "Date", nullable: true },
     createdAt: { type: "Date", onCreate: () => new Date() },
     startedAt: { type: "Date", nullable: true },
     finishedAt: { type: "Date", nullable: true },

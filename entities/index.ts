@@ -11,6 +11,7 @@ import { SignInLinkSchema } from "./sign-in-link.entity";
 import { TeamSchema } from "./team.entity";
 import { UserSchema } from "./user.entity";
 import { WatchSchema } from "./watch.entity";
+import { WorkerHeartbeatSchema } from "./worker-heartbeat.entity";
 
 export * from "./api-token.entity";
 export * from "./attachment.entity";
@@ -25,6 +26,7 @@ export * from "./sign-in-link.entity";
 export * from "./team.entity";
 export * from "./user.entity";
 export * from "./watch.entity";
+export * from "./worker-heartbeat.entity";
 
 // Listed by name: bundlers cannot scan folders.
 export const allEntities = [
@@ -41,4 +43,5 @@ export const allEntities = [
   WatchSchema,
   ApiTokenSchema,
   OutboxEventSchema,
+  WorkerHeartbeatSchema,
 ];
