@@ -1,0 +1,87 @@
+import type { Condition, FilterNode } from "./filter-parser";
+import type { FlatDoc, PathValues } from "./doc-values";
+import { normalize } from "./tokenize";
+
+export type DocPredicate = (flat: FlatDoc) => boolean;
+
+const NUMBER = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
+const asNumber = (s: string) => (NUMBER.test(s) ? Number(s) : null);
+
+// String values compare case-insensitively; a value that reads as a number also
+// matches numeric values; an array attribute matches when any element does.
+function equals(v: PathValues | undefined, value: string, num: number | null): boolean {
+  if (!v) return false;
+  if (v.strings.has(normalize(value))) return true;
+  return num !== null && v.numbers.includes(num);
+}
+
+function compare(v: PathValues | undefined, op: string, value: string): boolean {
+  if (!v) return false;
+  const num = asNumber(value);
+  const test = (cmp: number) => (op === ">" ? cmp > 0 : op === ">=" ? cmp >= 0 : op === "<" ? cmp < 0 : cmp <= 0);
+  if (num !== null) return v.numbers.some((n) => test(n - num));
+  const target = normalize(value);
+  for (const s of v.strings) if (test(s < target ? -1 : s > target ? 1 : 0)) return true;
+  return false;
+}
+
+function condition(c: Condition): DocPredicate {
+  switch (c.op) {
+    case "=": {
+      const num = asNumber(c.value);
+      return (f) => equals(f.get(c.attr), c.value, num);
+    }
+    case "!=": {
+      const num = asNumber(c.value);
+      return (f) => !equals(f.get(c.attr), c.value, num);
+    }
+    case ">": case ">=": case "<": case "<=":
+      return (f) => compare(f.get(c.attr), c.op, c.value);
+    case "TO":
+      return (f) => inOneValue(f.get(c.attr), c.from, c.to);
+    case "IN": {
+      const values = c.values.map((v) => [v, asNumber(v)] as const);
+      return (f) => {
+        const pv = f.get(c.attr);
+        return values.some(([v, n]) => equals(pv, v, n));
+      };
+    }
+    case "EXISTS":
+      return (f) => f.has(c.attr);
+    case "NULL":
+      return (f) => f.get(c.attr)?.hasNull ?? false;
+    case "EMPTY":
+      return (f) => f.get(c.attr)?.hasEmpty ?? false;
+  }
+}
+
+// `a 1 TO 5` needs one value inside the range, not one above 1 and another below 5.
+function inOneValue(v: PathValues | undefined, from: string, to: string): boolean {
+  if (!v) return false;
+  const lo = asNumber(from);
+  const hi = asNumber(to);
+  if (lo !== null && hi !== null) return v.numbers.some((n) => n >= lo && n <= hi);
+  const a = normalize(from);
+  const b = normalize(to);
+  for (const s of v.strings) if (s >= a && s <= b) return true;
+  return false;
+}
+
+export function compileFilter(node: FilterNode): DocPredicate {
+  switch (node.kind) {
+    case "cond":
+      return condition(node.cond);
+    case "not": {
+      const inner = compileFilter(node.node);
+      return (f) => !inner(f);
+    }
+    case "and": {
+      const parts = node.nodes.map(compileFilter);
+      return (f) => parts.every((p) => p(f));
+    }
+    case "or": {
+      const parts = node.nodes.map(compileFilter);
+      return (f) => parts.some((p) => p(f));
+    }
+  }
+}

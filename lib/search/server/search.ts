@@ -1,0 +1,196 @@
+import type { FlatDoc } from "./doc-values";
+import { errors } from "./errors";
+import { computeFacets } from "./facets";
+import { compileFilter } from "./filter-eval";
+import { filterAttributes, parseFilter } from "./filter-parser";
+import { formatValue } from "./highlight";
+import type { Doc, IndexState } from "./index-state";
+import type { SearchParams } from "./search-params";
+import { covers } from "./settings";
+import { queryWords } from "./tokenize";
+import type { WordHit } from "./term-index";
+
+interface Candidate {
+  key: string;
+  seq: number;
+  words: number;
+  typos: number;
+  rank: number;
+  exact: number;
+  freq: number;
+}
+
+function listAttrs(list: string[]) {
+  return list.map((a) => `\`${a}\``).join(", ");
+}
+
+export function checkFilterable(index: IndexState, attrs: string[], src: string) {
+  const filterable = index.settings.filterableAttributes;
+  for (const attr of attrs) {
+    if (covers(filterable, attr)) continue;
+    const available = filterable.length
+      ? `Available filterable attribute patterns are: ${listAttrs(filterable)}.`
+      : "This index does not have configured filterable attributes.";
+    throw errors.invalidFilter(`Index \`${index.uid}\`: Attribute \`${attr}\` is not filterable. ${available}\n${src}`);
+  }
+}
+
+export function filterPredicate(index: IndexState, filter: unknown) {
+  const node = parseFilter(filter);
+  if (!node) return null;
+  checkFilterable(index, filterAttributes(node), typeof filter === "string" ? filter : JSON.stringify(filter));
+  return compileFilter(node);
+}
+
+function parseSort(index: IndexState, sort: string[]) {
+  return sort.map((s) => {
+    const m = /^(.+):(asc|desc)$/.exec(s);
+    if (!m) throw errors.badRequest(`Invalid syntax for the sort parameter: expected expression ending by \`:asc\` or \`:desc\`, found \`${s}\`.`, "invalid_search_sort");
+    if (!covers(index.settings.sortableAttributes, m[1])) {
+      const available = index.settings.sortableAttributes.length ? `Available sortable attributes are: ${listAttrs(index.settings.sortableAttributes)}.` : "This index does not have configured sortable attributes.";
+      throw errors.badRequest(`Attribute \`${m[1]}\` is not sortable. ${available}`, "invalid_search_sort");
+    }
+    return { attr: m[1], desc: m[2] === "desc" };
+  });
+}
+
+type SortKey = [number, number | string];
+
+// Numbers sort before strings, documents without the attribute come last; keys
+// are worked out once per document and request.
+function sortKeyOf(f: FlatDoc, attr: string, desc: boolean): SortKey {
+  const v = f.get(attr);
+  if (v && v.numbers.length) return [0, desc ? Math.max(...v.numbers) : Math.min(...v.numbers)];
+  if (v && v.strings.size) {
+    const s = [...v.strings].sort();
+    return [1, desc ? s[s.length - 1] : s[0]];
+  }
+  return [2, 0];
+}
+
+function sortComparer(index: IndexState) {
+  const memo = new Map<string, Map<string, SortKey>>();
+  return (a: string, b: string, attr: string, desc: boolean): number => {
+    const id = `${attr}:${desc}`;
+    let m = memo.get(id);
+    if (!m) memo.set(id, (m = new Map()));
+    let ka = m.get(a);
+    if (!ka) m.set(a, (ka = sortKeyOf(index.flats.get(a)!, attr, desc)));
+    let kb = m.get(b);
+    if (!kb) m.set(b, (kb = sortKeyOf(index.flats.get(b)!, attr, desc)));
+    if (ka[0] !== kb[0]) return ka[0] - kb[0];
+    if (ka[0] === 2 || ka[1] === kb[1]) return 0;
+    return (ka[1] < kb[1] ? -1 : 1) * (desc ? -1 : 1);
+  };
+}
+
+// Hits matching the query words under the matching strategy: "all" keeps
+// documents holding every word; "last" (the default) keeps documents holding
+// the first word and ranks them by how many leading words they hold, which is
+// what dropping words from the end yields; "frequency" keeps any word.
+function matchWords(index: IndexState, q: string, strategy: string): Candidate[] | null {
+  const words = queryWords(q);
+  if (words.length === 0) return null;
+  const typo = index.typoSettings();
+  const perWord: Map<string, WordHit>[] = words.map((w) => index.terms.match(w.word, w.prefix, typo));
+  const seqOf = new Map<string, number>();
+  const out: Candidate[] = [];
+  let seq = 0;
+  for (const key of index.docs.keys()) seqOf.set(key, seq++);
+  const keys = strategy === "frequency" ? new Set(perWord.flatMap((m) => [...m.keys()])) : perWord[0].keys();
+  for (const key of keys) {
+    let matched = 0, typos = 0, rank = Infinity, exact = 0, freq = 0, leading = true;
+    for (const m of perWord) {
+      const hit = m.get(key);
+      if (!hit) { leading = false; continue; }
+      if (strategy !== "frequency" && !leading) continue;
+      matched++;
+      typos += hit.typos;
+      rank = Math.min(rank, hit.rank);
+      if (hit.exact) exact++;
+      freq += hit.freq;
+    }
+    if (strategy === "all" && matched < words.length) continue;
+    const s = seqOf.get(key);
+    if (s === undefined) continue;
+    out.push({ key, seq: s, words: matched, typos, rank, exact, freq });
+  }
+  return out;
+}
+
+export function executeSearch(index: IndexState, p: SearchParams) {
+  const started = performance.now();
+  const predicate = filterPredicate(index, p.filter);
+  const filterable = index.settings.filterableAttributes;
+  const facets = p.facets?.includes("*") ? filterable.filter((f) => f !== "*") : p.facets ?? [];
+  for (const f of facets)
+    if (!covers(filterable, f))
+      throw errors.badRequest(`Invalid facet distribution: Attribute \`${f}\` is not filterable. The available filterable attributes are ${filterable.length ? listAttrs(filterable) : "none"}.`, "invalid_search_facets");
+  const sort = parseSort(index, p.sort ?? []);
+  const q = p.q ?? "";
+
+  let candidates = matchWords(index, q, p.matchingStrategy ?? "last");
+  if (candidates === null) {
+    candidates = [];
+    let seq = 0;
+    for (const key of index.docs.keys()) candidates.push({ key, seq: seq++, words: 0, typos: 0, rank: 0, exact: 0, freq: 0 });
+  }
+  if (predicate) candidates = candidates.filter((c) => predicate(index.flats.get(c.key)!));
+
+  const rules = index.settings.rankingRules;
+  const sortCompare = sortComparer(index);
+  const cmp = (a: Candidate, b: Candidate): number => {
+    for (const rule of rules) {
+      let d = 0;
+      if (rule === "words") d = b.words - a.words;
+      else if (rule === "typo") d = a.typos - b.typos;
+      else if (rule === "attribute") d = a.rank - b.rank;
+      else if (rule === "exactness") d = b.exact - a.exact;
+      else if (rule === "sort") {
+        for (const s of sort) if ((d = sortCompare(a.key, b.key, s.attr, s.desc))) break;
+      } else {
+        const custom = /^(.+):(asc|desc)$/.exec(rule);
+        if (custom) d = sortCompare(a.key, b.key, custom[1], custom[2] === "desc");
+      }
+      if (d) return d;
+    }
+    return b.freq - a.freq || a.seq - b.seq;
+  };
+  candidates.sort(cmp);
+
+  const maxTotal = index.settings.pagination.maxTotalHits;
+  const total = Math.min(candidates.length, maxTotal);
+  const paged = p.page !== undefined || p.hitsPerPage !== undefined;
+  const hitsPerPage = p.hitsPerPage ?? 20;
+  const page = p.page ?? 1;
+  const offset = paged ? (page - 1) * hitsPerPage : p.offset ?? 0;
+  const limit = paged ? hitsPerPage : p.limit ?? 20;
+  const window = candidates.slice(Math.min(offset, total), Math.min(offset + limit, total));
+
+  const facetResult = facets.length ? computeFacets(facets, candidates.map((c) => index.flats.get(c.key)!), index.settings) : null;
+  const hits = window.map((c) => formatHit(index, index.docs.get(c.key)!, p, q));
+  const processingTimeMs = Math.round(performance.now() - started);
+  const pageInfo = paged
+    ? { hitsPerPage, page, totalPages: hitsPerPage ? Math.ceil(total / hitsPerPage) : 0, totalHits: total }
+    : { limit, offset, estimatedTotalHits: total };
+  return { hits, query: q, processingTimeMs, ...pageInfo, ...(facetResult ?? {}) };
+}
+
+export function projectDocument(index: IndexState, doc: Doc, fields: string[] | undefined): Doc {
+  const displayed = index.settings.displayedAttributes;
+  const wanted = fields && fields.length ? fields : ["*"];
+  const out: Doc = {};
+  for (const [k, v] of Object.entries(doc)) if (covers(displayed, k) && covers(wanted, k)) out[k] = v;
+  return out;
+}
+
+function formatHit(index: IndexState, doc: Doc, p: SearchParams, q: string): Doc {
+  const hit = projectDocument(index, doc, p.attributesToRetrieve);
+  const toHighlight = p.attributesToHighlight ?? [];
+  if (toHighlight.length === 0 && (p.attributesToCrop ?? []).length === 0) return hit;
+  const typo = index.typoSettings();
+  const options = { words: queryWords(q), limits: typo, pre: p.highlightPreTag ?? "<em>", post: p.highlightPostTag ?? "</em>" };
+  const formatted: Doc = {};
+  for (const [k, v] of Object.entries(hit)) formatted[k] = formatValue(v, covers(toHighlight, k), options);
+  return { ...hit, _formatted: formatted };
+}
