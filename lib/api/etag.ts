@@ -1,0 +1,29 @@
+import { createHash } from "node:crypto";
+
+/** A strong validator over the exact bytes sent: it covers badge, approval and report, which change after a version is written. */
+export function strongEtag(body: string | Uint8Array): string {
+  return `"${createHash("sha256").update(body).digest("base64url").slice(0, 32)}"`;
+}
+
+/** RFC 9110 §13.1.2: If-None-Match uses the weak comparison, so W/"x" matches "x"; `*` matches any current representation. */
+export function matchesIfNoneMatch(req: Request, etag: string): boolean {
+  const header = req.headers.get("if-none-match");
+  if (!header) return false;
+  if (header.trim() === "*") return true;
+  const opaque = (t: string) => t.trim().replace(/^W\//, "");
+  return header.split(",").some((t) => opaque(t) === opaque(etag));
+}
+
+/**
+ * Answers with the body, or 304 when the client already holds it. The 304 repeats ETag, Cache-Control and Vary
+ * (RFC 9110 §15.4.5) so caches can refresh their stored copy.
+ */
+export function conditional(req: Request, body: string, headers: Record<string, string>): Response {
+  const etag = strongEtag(body);
+  const h = { ...headers, ETag: etag };
+  if (matchesIfNoneMatch(req, etag)) {
+    const { "Content-Type": _ct, "Content-Disposition": _cd, ...rest } = h;
+    return new Response(null, { status: 304, headers: rest });
+  }
+  return new Response(body, { status: 200, headers: h });
+}

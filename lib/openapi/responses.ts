@@ -1,0 +1,147 @@
+import { z } from "zod";
+import { badgeSchema, categorySchema } from "@/lib/validation/blocks";
+
+// The JSON the API answers with, as zod schemas: the OpenAPI document is generated from them,
+// and the integration tests parse live responses with them so the document cannot drift from the code.
+
+const blockError = z.object({ message: z.string(), line: z.number().int().optional() });
+
+const quantity = z.object({
+  value: z.number().meta({ description: "Plain number in the named unit, no prefix" }),
+  unit: z.string().meta({ example: "Hz" }),
+  text: z.string().meta({ example: "2.192 kHz" }),
+});
+
+const checkResult = z.object({
+  label: z.string(),
+  status: z.enum(["pass", "fail", "error", "skipped"]),
+  detail: z.string(),
+  line: z.number().int().optional(),
+  simulated: z.boolean().optional(),
+  worst: z.object({ corner: z.record(z.string(), z.string()), detail: z.string() }).optional(),
+  corners: z
+    .object({ quantity: z.string(), unit: z.string(), values: z.array(z.number()), nominal: z.number(), limits: z.array(z.number()) })
+    .optional(),
+});
+
+export const reportSchema = z
+  .object({
+    slug: z.string(),
+    status: z.enum(["verified", "failing", "error", "unchecked"]),
+    quantities: z.record(z.string(), quantity),
+    checks: z.array(checkResult),
+    simulations: z.array(
+      z.object({ analysis: z.enum(["tran", "ac", "op"]), points: z.number().int(), ms: z.number(), cached: z.boolean().optional() }),
+    ),
+    errors: z.array(blockError),
+  })
+  .meta({ description: "Result of checking one block file" });
+
+export const paramSchema = z.object({
+  name: z.string(),
+  value: z.string().meta({ example: "3.3 kohm" }),
+  unit: z.string().meta({ description: "SI unit name, empty for plain numbers", example: "ohm" }),
+  tol: z.string().nullable().meta({ description: "Percentage or absolute tolerance", example: "1%" }),
+  note: z.string().nullable(),
+});
+
+const versionRef = z.object({ slug: z.string(), version: z.number().int() });
+export const runRefSchema = z.object({
+  id: z.uuid(),
+  status: z.enum(["queued", "running", "done", "error"]),
+});
+
+export const lineageSchema = z.object({
+  forkedFrom: versionRef.extend({ title: z.string() }).nullable(),
+  parentNewerVersions: z.number().int().meta({ description: "Versions the parent gained since the fork" }),
+  forks: z.array(z.object({ slug: z.string(), title: z.string() })),
+});
+
+export const checkCountsSchema = z.object({
+  pass: z.number().int(),
+  fail: z.number().int(),
+  error: z.number().int(),
+  skipped: z.number().int(),
+});
+
+export const blockSchema = z.object({
+  slug: z.string(),
+  title: z.string(),
+  category: categorySchema,
+  tags: z.array(z.string()),
+  summary: z.string(),
+  hazard: z.array(z.string()).meta({ description: "mains, high-voltage, high-current, heat: the page shows cautions" }),
+  team: z.string(),
+  visibility: z.enum(["team", "public"]),
+  version: z.number().int(),
+  headVersion: z.number().int(),
+  badge: badgeSchema,
+  approved: z.boolean(),
+  params: z.array(paramSchema),
+  markdown: z.string().meta({ description: "The markdown body after the frontmatter, fences included" }),
+  note: z.string().meta({ description: "The design note without the spice and check fences" }),
+  netlist: z.string(),
+  script: z.string(),
+  contentHash: z.string(),
+  report: reportSchema.nullable().meta({ description: "Report of the latest finished run of this version" }),
+  checkCounts: checkCountsSchema.nullable(),
+  run: runRefSchema.nullable().meta({ description: "Latest check run of this version" }),
+  forkedFrom: versionRef.nullable(),
+  lineage: lineageSchema,
+  createdAt: z.iso.datetime(),
+  author: z.string().meta({ description: "Name of the version's author" }),
+});
+
+const highlightRun = z.object({ text: z.string(), match: z.boolean() });
+export const blockSummarySchema = z.object({
+  slug: z.string(),
+  title: z.string(),
+  summary: z.string(),
+  category: z.string(),
+  tags: z.array(z.string()),
+  team: z.string(),
+  visibility: z.enum(["team", "public"]),
+  version: z.number().int(),
+  badge: z.string(),
+  approved: z.boolean(),
+  updatedAt: z.string(),
+  highlight: z.object({ title: z.array(highlightRun), summary: z.array(highlightRun) }).optional(),
+});
+
+export const searchResultSchema = z.object({
+  items: z.array(blockSummarySchema),
+  nextCursor: z.string().nullable(),
+  estimatedTotal: z.number().int(),
+});
+
+export const createdSchema = z.object({ slug: z.string(), version: z.number().int(), run: runRefSchema });
+
+export const runSchema = z.object({
+  id: z.uuid(),
+  status: runRefSchema.shape.status,
+  badge: badgeSchema,
+  report: reportSchema.nullable(),
+  durationMs: z.number().int().nullable(),
+  createdAt: z.iso.datetime(),
+  finishedAt: z.iso.datetime().nullable(),
+});
+
+export const retuneResultSchema = z.object({
+  value: z.string().meta({ description: "Solved value with its unit", example: "10.3 kohm" }),
+  snapped: z.string().meta({ description: "Nearest value of the series", example: "10 kohm" }),
+  report: reportSchema,
+});
+
+export const versionListSchema = z.object({
+  items: z.array(
+    z.object({
+      version: z.number().int(),
+      badge: badgeSchema,
+      approved: z.boolean(),
+      author: z.string(),
+      message: z.string(),
+      createdAt: z.iso.datetime(),
+    }),
+  ),
+  nextCursor: z.string().nullable(),
+});

@@ -1,0 +1,81 @@
+import { z } from "zod";
+import { CATEGORIES } from "@/entities/block.entity";
+import { cursorSchema, limitSchema, slugSchema, teamSlugSchema, versionNumberSchema } from "./api";
+
+// Request bodies and the JSON the API answers with. These schemas are also the source of /api/v1/openapi.json.
+
+export const BADGES = ["unchecked", "pending", "verified", "failing", "error", "stale"] as const;
+export const badgeSchema = z.enum(BADGES).meta({ description: "State of one version's checks" });
+export const categorySchema = z.enum(CATEGORIES);
+export const E_SERIES = ["E3", "E6", "E12", "E24", "E48", "E96", "E192"] as const;
+
+const identifier = z
+  .string()
+  .min(1)
+  .max(64)
+  .regex(/^[A-Za-z_][A-Za-z0-9_]*$/, "an identifier: letters, digits, underscore");
+/** Parameter values as mathjs reads them, e.g. "3.3 kohm"; the engine checks them, zod only bounds them. */
+const quantityText = z.string().trim().min(1).max(100).meta({ example: "10 kohm" });
+export const paramValuesSchema = z
+  .record(identifier, quantityText)
+  .refine((r) => Object.keys(r).length <= 64, "at most 64 parameters")
+  .meta({ description: "New parameter values by name", example: { R: "3.9 kohm", C: "22 nF" } });
+
+export const newVersionJsonSchema = z.strictObject({
+  params: paramValuesSchema,
+  baseVersion: versionNumberSchema.meta({ description: "The head version the change was made against" }),
+  message: z.string().max(2000).optional().meta({ description: "What changed and why" }),
+});
+
+export const forkBodySchema = z.strictObject({
+  fromVersion: versionNumberSchema.optional().meta({ description: "Version to fork (default: the head)" }),
+  slug: slugSchema.optional().meta({ description: "Slug of the new block (default: derived from the parent's)" }),
+  title: z.string().trim().min(1).max(200).optional(),
+  params: paramValuesSchema.optional(),
+  team: teamSlugSchema.optional().meta({ description: "Team that owns the fork (default: the caller's team)" }),
+});
+
+export const evaluateBodySchema = z.strictObject({
+  params: paramValuesSchema.default({}),
+  simulate: z.boolean().optional().meta({ description: "Run the simulations too; without it simulated checks are skipped" }),
+});
+
+export const retuneBodySchema = z.strictObject({
+  param: identifier.meta({ description: "Parameter to solve for", example: "R" }),
+  target: z.strictObject({
+    quantity: identifier.meta({ description: "Reported quantity to hit", example: "fc" }),
+    value: quantityText.meta({ description: "Target value with its unit", example: "1 kHz" }),
+  }),
+  series: z.enum(E_SERIES).meta({ description: "IEC 60063 series to snap the result to" }),
+});
+
+export const createQuerySchema = z.object({
+  team: teamSlugSchema,
+  visibility: z.enum(["team", "public"]).optional(),
+});
+export const fileVersionQuerySchema = z.object({
+  baseVersion: versionNumberSchema,
+  message: z.string().max(2000).optional(),
+});
+export const formatQuerySchema = z.object({
+  format: z.enum(["json", "md", "spice"]).default("json").meta({ description: "json (default), md = the block file, spice = a runnable deck" }),
+});
+export const badgeQuerySchema = z.object({ version: versionNumberSchema.optional() });
+
+export const searchQuerySchema = z.object({
+  q: z.string().max(200).optional(),
+  category: categorySchema.optional(),
+  badge: badgeSchema.optional(),
+  tag: z.string().max(64).optional(),
+  team: teamSlugSchema.optional(),
+  approved: z.enum(["true", "false"]).transform((v) => v === "true").optional(),
+  sort: z.enum(["relevance", "updated", "title"]).optional(),
+  cursor: cursorSchema.optional(),
+  limit: limitSchema,
+});
+
+export type NewVersionJson = z.infer<typeof newVersionJsonSchema>;
+export type ForkBody = z.infer<typeof forkBodySchema>;
+export type EvaluateBody = z.infer<typeof evaluateBodySchema>;
+export type RetuneBody = z.infer<typeof retuneBodySchema>;
+export type SearchQuery = z.infer<typeof searchQuerySchema>;
