@@ -1,0 +1,78 @@
+import { cacheKey, readCached, writeCached } from "./cache";
+import { circuitOffset, writeDeck as deckFor } from "./deck";
+import { defaultCacheDir, defaultModelsDir } from "./paths";
+import { parseRawFile, type RawPlot } from "./raw-file";
+import { runNgspice } from "./run-ngspice";
+import { SpiceError, type ComplexVector, type SimOptions, type SimRequest, type SimResult } from "./types";
+import { SPICE_RUNNER_VERSION, ngspiceVersion } from "./version";
+
+export { SpiceError, ngspiceVersion, parseRawFile, defaultCacheDir, defaultModelsDir };
+export { sanitizeNetlist } from "./sanitize";
+export { MAX_AC_POINTS, MAX_TRAN_POINTS } from "./deck";
+export type { Analysis, ComplexVector, SimOptions, SimRequest, SimResult } from "./types";
+export type { RawPlot, RawVariable } from "./raw-file";
+
+/** The full ngspice deck for a request (sanitised; throws SpiceError naming the circuit line). */
+export function writeDeck(req: SimRequest, modelsDir?: string): string {
+  return deckFor(req, modelsDir ?? defaultModelsDir());
+}
+
+/**
+ * Run one analysis synchronously (mathjs script functions are sync): one ngspice process,
+ * or none when the content-addressed cache already holds the raw file.
+ */
+export function simulate(req: SimRequest, opts: SimOptions = {}): SimResult {
+  const t0 = performance.now();
+  const deck = writeDeck(req, opts.modelsDir);
+  const key = cacheKey(deck, ngspiceVersion(), `${opts.engineVersion ?? ""}/${SPICE_RUNNER_VERSION}`);
+  const dir = opts.cacheDir ?? defaultCacheDir();
+  const hit = opts.noCache ? null : readCached(dir, key);
+  const raw = hit ?? runNgspice(deck, { timeoutMs: opts.timeoutMs, circuitOffset: circuitOffset(req) }).raw;
+  const result = toResult(req.analysis.kind, parseRawFile(raw));
+  if (!hit && !opts.noCache) writeCached(dir, key, raw);
+  return { ...result, ms: Math.round((performance.now() - t0) * 10) / 10, cached: hit !== null };
+}
+
+const PLOT_NAME = { tran: /transient/i, ac: /^ac/i, op: /operating point/i } as const;
+
+function toResult(kind: SimResult["analysis"], plots: RawPlot[]): Omit<SimResult, "ms" | "cached"> {
+  const plot = plots.find((p) => PLOT_NAME[kind].test(p.plotname));
+  if (!plot) throw new SpiceError(`ngspice wrote no ${kind} result (plots: ${plots.map((p) => p.plotname).join(", ")})`);
+  const hasScale = kind !== "op";
+  const vectors: Record<string, Float64Array> = {};
+  const complex: Record<string, ComplexVector> = {};
+  plot.variables.forEach((v, i) => {
+    if (hasScale && i === 0) return;
+    const re = plot.real[i];
+    const im = plot.imag?.[i];
+    const values = im ? magnitude(re, im) : re;
+    for (const name of namesOf(v.name)) {
+      vectors[name] = values;
+      if (im) complex[name] = { re, im };
+    }
+  });
+  return {
+    analysis: kind,
+    scale: hasScale ? plot.real[0] : new Float64Array(0),
+    vectors,
+    ...(plot.complex ? { complex } : {}),
+    points: plot.points,
+  };
+}
+
+// ngspice writes "v(out)", "i(v1)", sometimes "v1#branch"; measures also look nodes up as "out".
+function namesOf(rawName: string): string[] {
+  const name = rawName.toLowerCase();
+  const branch = /^(.*)#branch$/.exec(name);
+  if (branch) return [`i(${branch[1]})`];
+  const node = /^v\((.*)\)$/.exec(name);
+  if (node) return [name, node[1]];
+  if (/^i\(.*\)$/.test(name)) return [name];
+  return [name, `v(${name})`];
+}
+
+function magnitude(re: Float64Array, im: Float64Array): Float64Array {
+  const out = new Float64Array(re.length);
+  for (let k = 0; k < re.length; k++) out[k] = Math.hypot(re[k], im[k]);
+  return out;
+}
