@@ -1,4 +1,5 @@
 import { z } from "zod";
+import "@/lib/validation/api";
 import { badgeSchema, categorySchema } from "@/lib/validation/blocks";
 
 // The JSON the API answers with, as zod schemas: the OpenAPI document is generated from them,
@@ -35,7 +36,7 @@ export const reportSchema = z
     ),
     errors: z.array(blockError),
   })
-  .meta({ description: "Result of checking one block file" });
+  .meta({ description: "Result of checking one block file" }).openapi("Report");
 
 export const paramSchema = z.object({
   name: z.string(),
@@ -43,26 +44,26 @@ export const paramSchema = z.object({
   unit: z.string().meta({ description: "SI unit name, empty for plain numbers", example: "ohm" }),
   tol: z.string().nullable().meta({ description: "Percentage or absolute tolerance", example: "1%" }),
   note: z.string().nullable(),
-});
+}).openapi("Param");
 
 const versionRef = z.object({ slug: z.string(), version: z.number().int() });
 export const runRefSchema = z.object({
   id: z.uuid(),
   status: z.enum(["queued", "running", "done", "error"]),
-});
+}).openapi("RunRef");
 
 export const lineageSchema = z.object({
   forkedFrom: versionRef.extend({ title: z.string() }).nullable(),
   parentNewerVersions: z.number().int().meta({ description: "Versions the parent gained since the fork" }),
   forks: z.array(z.object({ slug: z.string(), title: z.string() })),
-});
+}).openapi("Lineage");
 
 export const checkCountsSchema = z.object({
   pass: z.number().int(),
   fail: z.number().int(),
   error: z.number().int(),
   skipped: z.number().int(),
-});
+}).openapi("CheckCounts");
 
 export const blockSchema = z.object({
   slug: z.string(),
@@ -90,7 +91,7 @@ export const blockSchema = z.object({
   lineage: lineageSchema,
   createdAt: z.iso.datetime(),
   author: z.string().meta({ description: "Name of the version's author" }),
-});
+}).openapi("Block");
 
 const highlightRun = z.object({ text: z.string(), match: z.boolean() });
 export const blockSummarySchema = z.object({
@@ -106,15 +107,15 @@ export const blockSummarySchema = z.object({
   approved: z.boolean(),
   updatedAt: z.string(),
   highlight: z.object({ title: z.array(highlightRun), summary: z.array(highlightRun) }).optional(),
-});
+}).openapi("BlockSummary");
 
 export const searchResultSchema = z.object({
   items: z.array(blockSummarySchema),
   nextCursor: z.string().nullable(),
   estimatedTotal: z.number().int(),
-});
+}).openapi("SearchResult");
 
-export const createdSchema = z.object({ slug: z.string(), version: z.number().int(), run: runRefSchema });
+export const createdSchema = z.object({ slug: z.string(), version: z.number().int(), run: runRefSchema }).openapi("Created");
 
 export const runSchema = z.object({
   id: z.uuid(),
@@ -124,13 +125,13 @@ export const runSchema = z.object({
   durationMs: z.number().int().nullable(),
   createdAt: z.iso.datetime(),
   finishedAt: z.iso.datetime().nullable(),
-});
+}).openapi("Run");
 
 export const retuneResultSchema = z.object({
   value: z.string().meta({ description: "Solved value with its unit", example: "10.3 kohm" }),
   snapped: z.string().meta({ description: "Nearest value of the series", example: "10 kohm" }),
   report: reportSchema,
-});
+}).openapi("RetuneResult");
 
 export const versionListSchema = z.object({
   items: z.array(
@@ -144,4 +145,4 @@ export const versionListSchema = z.object({
     }),
   ),
   nextCursor: z.string().nullable(),
-});
+}).openapi("VersionList");

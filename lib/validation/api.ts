@@ -1,4 +1,8 @@
+import { extendZodWithOpenApi } from "@asteasolutions/zod-to-openapi";
 import { z } from "zod";
+
+// zod 4 copies methods onto each schema when it is made, so `.openapi()` must exist before any schema here is built.
+extendZodWithOpenApi(z);
 
 // Shapes shared by every /api/v1 route: identifiers in paths and queries, pagination, problem documents.
 
@@ -33,7 +37,8 @@ export const issueSchema = z
     path: z.string().optional().meta({ description: "Dotted path of the offending request field" }),
     line: z.number().int().optional().meta({ description: "Line in the block file, counted from 1" }),
   })
-  .meta({ description: "One validation issue" });
+  .meta({ description: "One validation issue" })
+  .openapi("Issue");
 
 export const problemSchema = z
   .object({
@@ -44,7 +49,8 @@ export const problemSchema = z
     head: z.number().int().optional().meta({ description: "On a stale base (409): the current head version" }),
     errors: z.array(issueSchema).optional().meta({ description: "On 422: the validation issues" }),
   })
-  .meta({ description: "RFC 9457 problem details" });
+  .meta({ description: "RFC 9457 problem details" })
+  .openapi("Problem");
 
 /** Path segments that cannot name anything answer 404, like a missing resource, not 422. */
 export const slugParamsSchema = z.object({ slug: slugSchema });

@@ -5,7 +5,7 @@ import { cursorSchema, limitSchema, slugSchema, teamSlugSchema, versionNumberSch
 // Request bodies and the JSON the API answers with. These schemas are also the source of /api/v1/openapi.json.
 
 export const BADGES = ["unchecked", "pending", "verified", "failing", "error", "stale"] as const;
-export const badgeSchema = z.enum(BADGES).meta({ description: "State of one version's checks" });
+export const badgeSchema = z.enum(BADGES).meta({ description: "State of one version's checks" }).openapi("Badge");
 export const categorySchema = z.enum(CATEGORIES);
 export const E_SERIES = ["E3", "E6", "E12", "E24", "E48", "E96", "E192"] as const;
 

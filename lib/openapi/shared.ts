@@ -1,0 +1,27 @@
+import { z, type ZodType } from "zod";
+import { cursorSchema, limitSchema, problemSchema } from "@/lib/validation/api";
+
+const STATUS_TEXT: Record<number, string> = {
+  401: "Sign-in or a valid token is required (or the token is malformed, revoked or expired)",
+  403: "The caller's role or token scope does not allow this",
+  404: "No such resource, or a team block outside the caller's teams",
+  409: "Conflict; on a stale base the body carries the current `head`",
+  413: "The body is larger than allowed",
+  415: "Unsupported Content-Type",
+  422: "The request did not validate; `errors` lists the issues",
+};
+
+export const json = (schema: ZodType) => ({ "application/json": { schema } });
+
+export function problems(...codes: number[]) {
+  return Object.fromEntries(
+    codes.map((c) => [c, { description: STATUS_TEXT[c], content: { "application/problem+json": { schema: problemSchema } } }]),
+  );
+}
+
+export const etagHeaders = z.object({
+  ETag: z.string().meta({ description: "Strong validator of the exact body" }),
+  "Cache-Control": z.string(),
+});
+
+export const cursorQuery = z.object({ cursor: cursorSchema.optional(), limit: limitSchema });
