@@ -30,7 +30,8 @@ export function runNgspice(deck: string, opts: { timeoutMs?: number; spinit?: st
       [`--as=${MAX_MEMORY_BYTES}`, `--cpu=${cpu}`, `--fsize=${MAX_RAW_BYTES}`, "--", "ngspice", "-b", "-r", "out.raw", "deck.cir"],
       {
         cwd: dir, encoding: "utf8", timeout: timeoutMs, killSignal: "SIGKILL", maxBuffer: 8 * 1024 * 1024,
-        env: { PATH: process.env.PATH ?? "/usr/bin:/bin", HOME: dir, TMPDIR: dir, LANG: "C", SPICE_SCRIPTS: path.join(dir, "scripts") },
+        // A minimal environment: nothing of the app (secrets, URLs) reaches the simulator.
+        env: { PATH: process.env.PATH ?? "/usr/bin:/bin", HOME: dir, TMPDIR: dir, LANG: "C", SPICE_SCRIPTS: path.join(dir, "scripts"), NODE_ENV: process.env.NODE_ENV },
       },
     );
     const ms = performance.now() - t0;

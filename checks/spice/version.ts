@@ -8,7 +8,7 @@ let cached: string | undefined;
 /** "ngspice-39" as printed by `ngspice -v`; read once per process. */
 export function ngspiceVersion(): string {
   if (cached) return cached;
-  const r = spawnSync("ngspice", ["-v"], { encoding: "utf8", timeout: 10_000, env: { PATH: process.env.PATH ?? "/usr/bin:/bin" } });
+  const r = spawnSync("ngspice", ["-v"], { encoding: "utf8", timeout: 10_000, env: { PATH: process.env.PATH ?? "/usr/bin:/bin", NODE_ENV: process.env.NODE_ENV } });
   const m = /ngspice-[0-9][\w.+-]*/.exec(`${r.stdout ?? ""}${r.stderr ?? ""}`);
   if (!m) throw new Error(`cannot run ngspice -v: ${r.error?.message ?? (r.stderr || "no version in its output")}`);
   return (cached = m[0]);
