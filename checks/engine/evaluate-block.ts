@@ -1,0 +1,69 @@
+import { toleranceCorners } from "../corners";
+import type { Analysis, SimHooks } from "../script/builtins";
+import { runScript } from "../script/evaluate";
+import { nominalValues, noSimulation, prepare, scopeFor } from "./prepare";
+import { quantitiesOf, reportStatus, withCorners } from "./report";
+import type { Report, SimBackend, Waveform } from "./types";
+
+export type EvaluateOptions = { simulate?: boolean; params?: Record<string, string>; backend?: SimBackend };
+
+/**
+ * The whole check run for one block file: the script at nominal (with simulations when
+ * asked and a backend is given), then every non-simulated check at each tolerance corner.
+ */
+export function evaluateBlock(text: string, opts: EvaluateOptions = {}): { report: Report; waveforms: Waveform[] } {
+  const { block, statements, errors, slug } = prepare(text, opts.params);
+  const report: Report = { slug, status: "error", quantities: {}, checks: [], simulations: [], errors };
+  if (!block || errors.length) {
+    report.status = reportStatus(report);
+    return { report, waveforms: [] };
+  }
+  const simulate = Boolean(opts.simulate && opts.backend);
+  const sims: { analysis: Analysis; result: unknown; windows: Waveform["windows"]; marks: Waveform["marks"]; nodes: Set<string> }[] = [];
+  const hooks: SimHooks = simulate
+    ? {
+        simulate: (analysis) => {
+          if (!block.netlist.trim()) throw new Error("the block has no ```spice fence to simulate");
+          const values = nominalValues(block);
+          try {
+            const r = opts.backend!.simulate({ title: block.title, circuit: block.netlist, params: values, analysis });
+            report.simulations.push({ analysis: analysis.kind, points: r.points, ms: r.ms, ...(r.cached !== undefined ? { cached: r.cached } : {}) });
+            sims.push({ analysis, result: r.result, windows: [], marks: [], nodes: new Set() });
+            return { result: r.result, index: sims.length - 1 };
+          } catch (e) {
+            const line = opts.backend!.errorLine(e, block.netlistLine);
+            throw Object.assign(new Error(`simulation: ${(e as Error).message}`), { blockLine: line });
+          }
+        },
+        measure: (name, result, node, args) => {
+          const sim = sims.find((s) => s.result === result);
+          sim?.nodes.add(node);
+          return opts.backend!.measure(name, result, node, args);
+        },
+        window: (i, w) => sims[i].windows.push(w),
+        mark: (i, m) => sims[i].marks.push(m),
+      }
+    : noSimulation;
+
+  const nominal = runScript(statements, scopeFor(block, nominalValues(block), hooks), simulate);
+  report.errors.push(...nominal.errors);
+  report.quantities = quantitiesOf(nominal.scope, nominal.assigned);
+
+  const { corners } = toleranceCorners(block.params);
+  const cornerStatements = statements.filter((s) => !s.simulated);
+  const perCorner = corners.map((c) => runScript(cornerStatements, scopeFor(block, c.values, noSimulation), false).checks);
+  const plain = nominal.checks.filter((c) => !c.simulated);
+  report.checks = nominal.checks.map((c) => {
+    const k = plain.indexOf(c);
+    return withCorners(c, k < 0 ? [] : perCorner.map((checks) => checks[k]), k < 0 ? [] : corners);
+  });
+  report.status = reportStatus(report);
+
+  const waveforms: Waveform[] = [];
+  for (const s of sims) {
+    if (s.analysis.kind === "op") continue;
+    const w = opts.backend!.waveform(s.result, s.analysis, [...s.nodes]);
+    if (w) waveforms.push({ ...w, windows: [...w.windows, ...s.windows], marks: [...w.marks, ...s.marks] });
+  }
+  return { report, waveforms };
+}

@@ -1,0 +1,49 @@
+import { parseBlock } from "../block/parse";
+import type { BlockError, ParsedBlock } from "../block/types";
+import { withParams } from "../block/with-params";
+import { analyzeScript, type Statement } from "../script/analyze";
+import { builtins, type SimHooks } from "../script/builtins";
+import { fromQuantity } from "../units";
+
+export type Prepared = { block: ParsedBlock | null; statements: Statement[]; errors: BlockError[]; slug: string };
+
+/** Parse a block (with draft parameter values put in first) and its check script. */
+export function prepare(text: string, params?: Record<string, string>): Prepared {
+  let source = String(text ?? "");
+  if (params && Object.keys(params).length) {
+    try {
+      source = withParams(source, params);
+    } catch (e) {
+      return { block: null, statements: [], errors: [{ message: (e as Error).message }], slug: slugGuess(source) };
+    }
+  }
+  const { block, errors } = parseBlock(source);
+  if (!block) return { block, statements: [], errors, slug: slugGuess(source) };
+  const statements = analyzeScript(block.script, block.scriptLine, errors, block.params.map((p) => p.name));
+  return { block, statements, errors, slug: block.slug };
+}
+
+/** The slug even from a file that does not parse, so an error report still names its block. */
+function slugGuess(text: string): string {
+  return /^slug:\s*["']?([a-z0-9-]+)/m.exec(text)?.[1] ?? "";
+}
+
+/** A fresh script scope: the built-ins, then the parameters as quantities (they win over unit names). */
+export function scopeFor(block: ParsedBlock, values: Record<string, number>, hooks: SimHooks): Map<string, unknown> {
+  const scope = builtins(hooks);
+  for (const p of block.params) scope.set(p.name, fromQuantity(values[p.name] ?? p.si, p.unit));
+  return scope;
+}
+
+export const nominalValues = (block: ParsedBlock) => Object.fromEntries(block.params.map((p) => [p.name, p.si]));
+
+export const noSimulation: SimHooks = {
+  simulate: () => {
+    throw new Error("simulations run at nominal only");
+  },
+  measure: () => {
+    throw new Error("simulations run at nominal only");
+  },
+  window: () => {},
+  mark: () => {},
+};

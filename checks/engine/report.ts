@@ -1,0 +1,60 @@
+import type { CheckOutcome } from "../script/evaluate";
+import { formatQuantity, toQuantity } from "../units";
+import type { Corner } from "../corners";
+import type { CheckReport, Report } from "./types";
+
+export function reportStatus(r: Pick<Report, "checks" | "errors">): Report["status"] {
+  if (r.errors.length || r.checks.some((c) => c.status === "error")) return "error";
+  if (r.checks.some((c) => c.status === "fail")) return "failing";
+  if (r.checks.length === 0 || r.checks.some((c) => c.status === "skipped")) return "unchecked";
+  return "verified";
+}
+
+export function quantitiesOf(scope: Map<string, unknown>, assigned: { name: string; simulated: boolean }[]): Report["quantities"] {
+  const out: Report["quantities"] = {};
+  for (const { name, simulated } of assigned) {
+    if (simulated) continue;
+    const q = toQuantity(scope.get(name));
+    if (!q || !Number.isFinite(q.si)) continue;
+    out[name] = { value: q.si, unit: q.unit, text: formatQuantity(q.si, q.unit) };
+  }
+  return out;
+}
+
+const siOf = (x: unknown) => toQuantity(x)?.si ?? NaN;
+
+/** Fold a check's outcomes at every tolerance corner into its nominal result. */
+export function withCorners(nominal: CheckOutcome, atCorners: CheckOutcome[], corners: Corner[]): CheckReport {
+  const out: CheckReport = { label: nominal.label, status: nominal.status, detail: nominal.detail, line: nominal.line, simulated: nominal.simulated };
+  if (nominal.simulated || nominal.status === "skipped" || corners.length === 0) return out;
+  let worst = -1;
+  atCorners.forEach((c, k) => {
+    if (worst < 0 || c.margin < atCorners[worst].margin) worst = k;
+  });
+  const failing = atCorners.filter((c) => c.status === "fail").length;
+  const broken = atCorners.findIndex((c) => c.status === "error");
+  if (nominal.status !== "error" && broken >= 0) {
+    out.status = "error";
+    out.detail = `${nominal.detail}; at corner ${describe(corners[broken].label)}: ${atCorners[broken].detail}`;
+  } else if (nominal.status === "pass" && failing > 0) {
+    out.status = "fail";
+    out.detail = `${nominal.detail}; fails at ${failing} of ${corners.length} tolerance corners`;
+  } else if (nominal.status === "fail" && failing < corners.length) {
+    out.detail = `${nominal.detail}; fails at nominal and at ${failing} of ${corners.length} tolerance corners`;
+  }
+  if (worst >= 0) out.worst = { corner: corners[worst].label, detail: atCorners[worst].detail };
+  const p = nominal.primary;
+  if (p && atCorners.every((c) => c.primary?.label === p.label)) {
+    const unit = toQuantity(p.value)?.unit ?? "";
+    out.corners = {
+      quantity: p.label,
+      unit,
+      values: atCorners.map((c) => siOf(c.primary!.value)),
+      nominal: siOf(p.value),
+      limits: p.limits.map(siOf),
+    };
+  }
+  return out;
+}
+
+const describe = (label: Record<string, string>) => Object.entries(label).map(([k, v]) => `${k} ${v}`).join(", ");

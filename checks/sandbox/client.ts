@@ -1,0 +1,102 @@
+import { fork, type ChildProcess } from "node:child_process";
+import { assayRoot, childEntry } from "./root";
+
+type Reply = { id: number; ok: boolean; value?: unknown; error?: string };
+type Pending = { resolve: (r: Reply) => void; timer: NodeJS.Timeout; timeoutMs: number };
+
+/**
+ * One warm sandbox child: requests run one at a time; a request that runs past its time
+ * or a child that dies (out of memory) gives an error reply, and the next request starts
+ * a fresh child. Idle children do not keep the parent process alive.
+ */
+export class SandboxLane {
+  private child: ChildProcess | null = null;
+  private ready: Promise<void> | null = null;
+  private queue: Promise<unknown> = Promise.resolve();
+  private pending = new Map<number, Pending>();
+  private nextId = 1;
+  private stderr = "";
+
+  constructor(private memoryMb: number) {}
+
+  request(op: string, text: string, opts: unknown, timeoutMs: number): Promise<Reply> {
+    const run = this.queue.then(() => this.send(op, text, opts, timeoutMs));
+    this.queue = run.catch(() => undefined);
+    return run;
+  }
+
+  private start(): Promise<void> {
+    const root = assayRoot();
+    const child = fork(childEntry(), [], {
+      cwd: root,
+      execPath: process.execPath,
+      execArgv: ["--import", "tsx", `--max-old-space-size=${this.memoryMb}`],
+      stdio: ["ignore", "ignore", "pipe", "ipc"],
+      env: { ...process.env, ASSAY_ROOT: root },
+      serialization: "advanced",
+    });
+    this.child = child;
+    this.stderr = "";
+    child.stderr?.on("data", (d: Buffer) => (this.stderr = (this.stderr + d.toString()).slice(-4000)));
+    this.ready = new Promise((resolve, reject) => {
+      const onFirst = (m: Reply) => m.id === 0 && (child.off("message", onFirst), resolve());
+      child.on("message", onFirst);
+      child.once("exit", (code) => reject(new Error(`the sandbox did not start (exit ${code}): ${this.stderr.trim().split("\n").slice(-3).join(" ")}`)));
+    });
+    child.on("message", (m: Reply) => {
+      const p = this.pending.get(m.id);
+      if (!p) return;
+      clearTimeout(p.timer);
+      this.pending.delete(m.id);
+      this.idle();
+      p.resolve(m);
+    });
+    child.on("exit", (code, signal) => {
+      if (this.child === child) [this.child, this.ready] = [null, null];
+      const oom = /heap out of memory|Reached heap limit|Allocation failed/i.test(this.stderr);
+      for (const [id, p] of this.pending) {
+        clearTimeout(p.timer);
+        const why = oom
+          ? `the check script ran out of memory (limit ${this.memoryMb} MB)`
+          : `the sandbox stopped (${signal ?? `exit ${code}`})`;
+        p.resolve({ id, ok: false, error: why });
+      }
+      this.pending.clear();
+    });
+    return this.ready;
+  }
+
+  private idle() {
+    if (this.pending.size === 0 && this.child) {
+      this.child.unref();
+      (this.child.channel as unknown as { unref?: () => void } | undefined)?.unref?.();
+      this.child.stderr?.unref?.();
+    }
+  }
+
+  private async send(op: string, text: string, opts: unknown, timeoutMs: number): Promise<Reply> {
+    if (!this.child || !this.ready) this.start();
+    const child = this.child!;
+    child.ref();
+    (child.channel as unknown as { ref?: () => void } | undefined)?.ref?.();
+    try {
+      await this.ready;
+    } catch (e) {
+      return { id: -1, ok: false, error: (e as Error).message };
+    }
+    const id = this.nextId++;
+    return new Promise<Reply>((resolve) => {
+      const timer = setTimeout(() => {
+        this.pending.delete(id);
+        resolve({ id, ok: false, error: `the check run took longer than ${timeoutMs} ms and was stopped` });
+        child.kill("SIGKILL");
+      }, timeoutMs);
+      this.pending.set(id, { resolve, timer, timeoutMs });
+      child.send({ id, op, text, opts });
+    });
+  }
+}
+
+// Previews and full runs get a lane each, so a long simulation never holds up a keystroke.
+export const previewLane = new SandboxLane(256);
+export const verifyLane = new SandboxLane(768);

@@ -1,0 +1,119 @@
+import type { MathNode } from "mathjs";
+import type { BlockError } from "../block/types";
+import { parseExpression } from "./math";
+
+export const SIM_CALLS = new Set(["tran", "ac", "op"]);
+export const MEASURE_CALLS = new Set([
+  "peak", "trough", "pp", "rms", "avg", "freq", "thd", "at", "startup", "gain_db", "phase", "f3db", "v", "i",
+]);
+
+export type Statement = {
+  line: number;
+  source: string;
+  node: MathNode;
+  kind: "check" | "assign" | "function" | "expr";
+  /** The name an assignment or function definition binds. */
+  name?: string;
+  /** Variables this statement reads. */
+  deps: Set<string>;
+  /** Needs a simulation result, directly or through a variable that does. */
+  simulated: boolean;
+  evaluate: (scope: Map<string, unknown>) => unknown;
+};
+
+/** Names read by a node, leaving out the parameters of function definitions inside it. */
+function reads(node: MathNode, calls: Set<string>): Set<string> {
+  const out = new Set<string>();
+  const walk = (n: MathNode, bound: Set<string>) => {
+    if (n.type === "FunctionAssignmentNode") {
+      const f = n as unknown as { params: string[]; expr: MathNode };
+      walk(f.expr, new Set([...bound, ...f.params]));
+      return;
+    }
+    if (n.type === "FunctionNode") {
+      const fn = (n as unknown as { fn: MathNode }).fn;
+      if (fn.type === "SymbolNode") calls.add((fn as unknown as { name: string }).name);
+    }
+    if (n.type === "SymbolNode") {
+      const name = (n as unknown as { name: string }).name;
+      if (!bound.has(name)) out.add(name);
+    }
+    n.forEach((child) => walk(child, bound));
+  };
+  walk(node, new Set());
+  return out;
+}
+
+function nestedCheck(node: MathNode): boolean {
+  let found = false;
+  node.forEach((c) =>
+    c.traverse((n) => {
+      if (n.type === "FunctionNode" && (n as unknown as { fn: { name?: string } }).fn.name === "check") found = true;
+    }),
+  );
+  return found;
+}
+
+/**
+ * mathjs reads `C2 (R1 + R2)` as a call of C2. When the name holds a value (a parameter or
+ * an earlier assignment) and not a function, the engineer meant a product: rewrite it so.
+ */
+function productsForValueCalls(node: MathNode, values: Set<string>): MathNode {
+  return node.transform((n) => {
+    if (n.type !== "FunctionNode") return n;
+    const { fn, args } = n as unknown as { fn: MathNode & { name?: string }; args: MathNode[] };
+    if (fn.type !== "SymbolNode" || !values.has(fn.name!) || args.length !== 1) return n;
+    const factor = productsForValueCalls(args[0], values);
+    return parseExpression("a * (b)").transform((m) =>
+      m.type === "SymbolNode" ? ((m as unknown as { name: string }).name === "a" ? fn : factor) : m,
+    );
+  });
+}
+
+/** Parse a check script line by line (one statement a line, `#` comments), marking what needs a simulation. */
+export function analyzeScript(script: string, firstLine: number, errors: BlockError[], params: string[] = []): Statement[] {
+  const out: Statement[] = [];
+  const simVars = new Set<string>();
+  const values = new Set(params);
+  script.split("\n").forEach((raw, i) => {
+    const line = firstLine + i;
+    const source = raw.replace(/\r$/, "");
+    if (!source.trim() || source.trim().startsWith("#")) return;
+    let root: MathNode;
+    try {
+      root = parseExpression(source);
+    } catch (e) {
+      errors.push({ message: `script: ${(e as Error).message}`, line });
+      return;
+    }
+    const parts = root.type === "BlockNode" ? (root as unknown as { blocks: { node: MathNode }[] }).blocks.map((b) => b.node) : [root];
+    for (const part of parts) {
+      const node = productsForValueCalls(part, values);
+      const calls = new Set<string>();
+      const deps = reads(node, calls);
+      let kind: Statement["kind"] = "expr";
+      let name: string | undefined;
+      if (node.type === "FunctionNode" && (node as unknown as { fn: { name?: string } }).fn.name === "check") kind = "check";
+      else if (node.type === "AssignmentNode") {
+        const object = (node as unknown as { object: MathNode }).object;
+        if (object.type === "SymbolNode") [kind, name] = ["assign", (object as unknown as { name: string }).name];
+      } else if (node.type === "FunctionAssignmentNode") [kind, name] = ["function", (node as unknown as { name: string }).name];
+      if (nestedCheck(node)) {
+        errors.push({ message: "check() must stand on a line of its own", line });
+        continue;
+      }
+      if (kind === "check" && (node as unknown as { args: MathNode[] }).args.length !== 2) {
+        errors.push({ message: 'check() takes a label and a condition: check("label", x > 1 V)', line });
+        continue;
+      }
+      const simulated = [...calls].some((c) => SIM_CALLS.has(c) || MEASURE_CALLS.has(c)) || [...deps].some((d) => simVars.has(d));
+      if (kind === "assign" && name) values.add(name);
+      if (kind === "function" && name) values.delete(name);
+      if (simulated && name) simVars.add(name);
+      else if (name) simVars.delete(name);
+      const compiled = node.compile();
+      out.push({ line, source, node, kind, name, deps, simulated, evaluate: (scope) => compiled.evaluate(scope) });
+    }
+  });
+  return out;
+}

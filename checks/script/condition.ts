@@ -1,0 +1,138 @@
+import type { MathNode } from "mathjs";
+import { formatValue, toQuantity } from "../units";
+import { isUnit, math } from "./math";
+
+export type Judged = {
+  ok: boolean;
+  text: string;
+  /** Signed distance from the limit, relative: > 0 passes, < 0 fails; ranks tolerance corners. */
+  margin: number;
+  /** The first compared quantity and its limits, for the corner plot. */
+  primary?: { label: string; value: unknown; limits: unknown[] };
+};
+
+const RELATIONS: Record<string, { sym: string; test: (a: unknown, b: unknown) => boolean; dir: 1 | -1 | 0 }> = {
+  smaller: { sym: "<", test: (a, b) => math.smaller(a as never, b as never) as unknown as boolean, dir: -1 },
+  smallerEq: { sym: "≤", test: (a, b) => math.smallerEq(a as never, b as never) as unknown as boolean, dir: -1 },
+  larger: { sym: ">", test: (a, b) => math.larger(a as never, b as never) as unknown as boolean, dir: 1 },
+  largerEq: { sym: "≥", test: (a, b) => math.largerEq(a as never, b as never) as unknown as boolean, dir: 1 },
+  equal: { sym: "==", test: (a, b) => math.equal(a as never, b as never) as unknown as boolean, dir: 0 },
+  unequal: { sym: "!=", test: (a, b) => !math.equal(a as never, b as never), dir: 0 },
+};
+
+type Primary = Judged["primary"];
+/** Limits on the same quantity (fc > 1.5 kHz and fc < 3 kHz) belong on one plot. */
+const merge = (a: Primary, b: Primary): Primary =>
+  a && b && a.label === b.label ? { ...a, limits: [...a.limits, ...b.limits] } : (a ?? b);
+
+const mark = (ok: boolean) => (ok ? "✓" : "✗");
+
+function si(x: unknown): number {
+  const q = toQuantity(x);
+  if (!q) throw new Error(`expected a number or a quantity, got ${formatValue(x)}`);
+  return q.si;
+}
+
+/** Evaluates a check condition node by node, keeping each comparison's operands for the report. */
+export class ConditionJudge {
+  private shown = new Set<string>();
+  constructor(private scope: Map<string, unknown>) {}
+
+  private value(n: MathNode): unknown {
+    return n.compile().evaluate(this.scope);
+  }
+
+  /** A literal (only numbers and unit names) is shown as its value; anything else is named once. */
+  private operand(n: MathNode, v: unknown): { text: string; label: string; literal: boolean } {
+    const inner = n.type === "ParenthesisNode" ? (n as unknown as { content: MathNode }).content : n;
+    let literal = true;
+    inner.traverse((c) => {
+      if (c.type === "SymbolNode" && this.scope.has((c as unknown as { name: string }).name)) literal = false;
+      if (c.type === "FunctionNode") literal = false;
+    });
+    const label = inner.type === "SymbolNode" ? (inner as unknown as { name: string }).name : inner.toString();
+    if (literal || this.shown.has(label)) return { text: formatValue(v), label, literal };
+    this.shown.add(label);
+    return { text: `${label} = ${formatValue(v)}`, label, literal };
+  }
+
+  judge(n: MathNode): Judged {
+    if (n.type === "ParenthesisNode") return this.judge((n as unknown as { content: MathNode }).content);
+    if (n.type === "OperatorNode") {
+      const { fn, args } = n as unknown as { fn: string; args: MathNode[] };
+      if (fn === "and" || fn === "or") {
+        const a = this.judge(args[0]);
+        const b = this.judge(args[1]);
+        const ok = fn === "and" ? a.ok && b.ok : a.ok || b.ok;
+        const margin = fn === "and" ? Math.min(a.margin, b.margin) : Math.max(a.margin, b.margin);
+        return { ok, margin, text: `${a.text} ${fn} ${b.text}`, primary: merge(a.primary, b.primary) };
+      }
+      if (fn === "not") {
+        const a = this.judge(args[0]);
+        return { ok: !a.ok, margin: -a.margin, text: `not (${a.text})`, primary: a.primary };
+      }
+      if (RELATIONS[fn]) return this.relation(fn, args[0], args[1]);
+    }
+    if (n.type === "RelationalNode") {
+      const { conditionals, params } = n as unknown as { conditionals: string[]; params: MathNode[] };
+      const parts = conditionals.map((c, i) => this.relation(c, params[i], params[i + 1]));
+      return {
+        ok: parts.every((p) => p.ok),
+        margin: Math.min(...parts.map((p) => p.margin)),
+        text: parts.map((p) => p.text).join(" and "),
+        primary: parts.map((p) => p.primary).reduce(merge),
+      };
+    }
+    if (n.type === "FunctionNode" && (n as unknown as { fn: { name?: string } }).fn.name === "near") {
+      const args = (n as unknown as { args: MathNode[] }).args;
+      if (args.length === 3) return this.near(args[0], args[1], args[2]);
+    }
+    const v = this.value(n);
+    if (typeof v !== "boolean") throw new Error(`the condition ${n.toString()} gives ${formatValue(v)}, not true or false`);
+    return { ok: v, margin: v ? 1 : -1, text: `${n.toString()} ${mark(v)}` };
+  }
+
+  private relation(fn: string, ln: MathNode, rn: MathNode): Judged {
+    const rel = RELATIONS[fn];
+    const a = this.value(ln);
+    const b = this.value(rn);
+    const ok = rel.test(a, b);
+    const [x, y] = [si(a), si(b)];
+    const scale = Math.max(Math.abs(x), Math.abs(y)) || 1;
+    const margin = rel.dir === 0 ? (ok ? 0 : -Math.abs(x - y) / scale) : (rel.dir * (x - y)) / scale;
+    const left = this.operand(ln, a);
+    const right = this.operand(rn, b);
+    const primary = left.literal && !right.literal ? { label: right.label, value: b, limits: [a] } : { label: left.label, value: a, limits: [b] };
+    return { ok, margin, text: `${left.text} ${rel.sym} ${right.text} ${mark(ok)}`, primary };
+  }
+
+  private near(xn: MathNode, tn: MathNode, toln: MathNode): Judged {
+    const [x, t, tol] = [this.value(xn), this.value(tn), this.value(toln)];
+    const r = nearTest(x, t, tol);
+    const left = this.operand(xn, x);
+    const right = this.operand(tn, t);
+    const tolText = isUnit(tol) ? formatValue(tol) : `${formatValue((tol as number) * 100)}%`;
+    const off = r.target !== 0 ? ` (off by ${formatValue((100 * (r.x - r.target)) / Math.abs(r.target), 2)}%)` : "";
+    return {
+      ok: r.ok,
+      margin: (r.tolAbs - Math.abs(r.x - r.target)) / (Math.abs(r.target) || r.tolAbs || 1),
+      text: `${left.text} ≈ ${right.text} ± ${tolText} ${mark(r.ok)}${off}`,
+      primary: { label: left.label, value: x, limits: [r.target - r.tolAbs, r.target + r.tolAbs] },
+    };
+  }
+}
+
+/** near(x, target, tol): tol with units is absolute, a plain number relative to |target|. */
+export function nearTest(x: unknown, target: unknown, tol: unknown) {
+  if (isUnit(x) !== isUnit(target) || (isUnit(x) && !(x as { equalBase(u: unknown): boolean }).equalBase(target)))
+    throw new Error(`near(): ${formatValue(x)} and ${formatValue(target)} are not in the same unit`);
+  const [xs, ts] = [si(x), si(target)];
+  let tolAbs: number;
+  if (isUnit(tol)) {
+    if (!isUnit(target) || !(tol as { equalBase(u: unknown): boolean }).equalBase(target))
+      throw new Error(`near(): the tolerance ${formatValue(tol)} is not in the unit of ${formatValue(target)}`);
+    tolAbs = si(tol);
+  } else if (typeof tol === "number") tolAbs = Math.abs(tol * ts);
+  else throw new Error("near(): the tolerance must be a number (relative, e.g. 2%) or a quantity (absolute)");
+  return { ok: Math.abs(xs - ts) <= tolAbs * (1 + 1e-12), x: xs, target: ts, tolAbs };
+}

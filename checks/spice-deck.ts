@@ -1,0 +1,12 @@
+import { parseBlock } from "./block/parse";
+import { withParams } from "./block/with-params";
+
+/** The block as a SPICE deck for other tools: title, .param lines in SI numbers, the circuit, .end (no analysis). */
+export function spiceDeck(text: string, params?: Record<string, string>): string {
+  const source = params && Object.keys(params).length ? withParams(text, params) : text;
+  const { block, errors } = parseBlock(source);
+  if (!block) throw new Error(`the block file has errors: ${errors.map((e) => (e.line ? `line ${e.line}: ` : "") + e.message).join("; ")}`);
+  const title = block.title.replace(/[\r\n]+/g, " ").trim();
+  const lines = block.params.map((p) => `.param ${p.name}=${String(p.si)}`);
+  return [title, ...lines, block.netlist.replace(/\s+$/, ""), ".end", ""].join("\n");
+}
