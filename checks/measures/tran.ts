@@ -63,7 +63,7 @@ export function freq(res: SimResult, node: string, from?: number, to?: number): 
 export function at(res: SimResult, node: string, t: number): number {
   expectAnalysis(res, "tran", "at");
   const s = res.scale;
-  if (!(t >= s[0] && t <= s[s.length - 1]))
+  if (!(t >= Math.min(s[0], 0) && t <= s[s.length - 1]))
     throw new MeasureError(`at(): ${t} s lies outside the simulated ${s[0]} s to ${s[s.length - 1]} s`);
   return interpolate(s, vectorOf(res, node), t);
 }
