@@ -10,10 +10,10 @@ export function mediaType(req: Request): string {
 }
 
 /** Reads at most `limit` bytes: the Content-Length is checked first, and a body streamed without one is cut off. */
-export async function readLimited(req: Request, limit: number): Promise<Uint8Array> {
+export async function readLimited(req: Request, limit: number): Promise<Uint8Array<ArrayBuffer>> {
   const declared = Number(req.headers.get("content-length") ?? NaN);
   if (Number.isFinite(declared) && declared > limit) throw tooLarge(limit);
-  if (!req.body) return new Uint8Array();
+  if (!req.body) return new Uint8Array(new ArrayBuffer(0));
   const reader = req.body.getReader();
   const chunks: Uint8Array[] = [];
   let size = 0;
@@ -27,7 +27,13 @@ export async function readLimited(req: Request, limit: number): Promise<Uint8Arr
     }
     chunks.push(value);
   }
-  return Buffer.concat(chunks);
+  const out = new Uint8Array(new ArrayBuffer(size));
+  let at = 0;
+  for (const c of chunks) {
+    out.set(c, at);
+    at += c.byteLength;
+  }
+  return out;
 }
 
 const tooLarge = (limit: number) => new AppError("payload_too_large", `the body is larger than ${limit / 1024} KiB`);

@@ -20,7 +20,7 @@ export function matchesIfNoneMatch(req: Request, etag: string): boolean {
  */
 export function conditional(req: Request, body: string, headers: Record<string, string>): Response {
   const etag = strongEtag(body);
-  const h = { ...headers, ETag: etag };
+  const h: Record<string, string> = { ...headers, ETag: etag };
   if (matchesIfNoneMatch(req, etag)) {
     const { "Content-Type": _ct, "Content-Disposition": _cd, ...rest } = h;
     return new Response(null, { status: 304, headers: rest });

@@ -112,7 +112,8 @@ export function hallmarkSvg({ badge, version, approved = false, idPrefix = "hm" 
   const inset = look.inset
     ? `<path d="${hexPath(w, 2.6)}" fill="none" stroke="${look.ink}" stroke-opacity="0.75" stroke-width="0.8"${look.inset === "dotted" ? ' stroke-dasharray="1 1.6"' : ""}/>`
     : "";
-  const text = `font-family="Inter, 'DejaVu Sans', Verdana, sans-serif" font-size="11" fill="${look.ink}"`;
+  const text = `font-size="11" fill="${look.ink}"`;
+  const sans = `font-family="Inter, 'DejaVu Sans', Verdana, sans-serif"`;
   const rule = ver ? `<path d="M${verX - 5} 6 V${H - 6}" stroke="${look.ink}" stroke-opacity="0.6" stroke-width="0.8"/>` : "";
   const verText = ver ? `<text x="${verX}" y="15" ${text} font-family="'IBM Plex Mono', 'DejaVu Sans Mono', monospace">${esc(ver)}</text>` : "";
   return [
@@ -122,7 +123,7 @@ export function hallmarkSvg({ badge, version, approved = false, idPrefix = "hm" 
     outer,
     inset,
     look.glyph(glyphX, H / 2, look.ink),
-    `<text x="${wordX}" y="15" ${text} font-weight="600" letter-spacing="0.2">${esc(word)}</text>`,
+    `<text x="${wordX}" y="15" ${text} ${sans} font-weight="600" letter-spacing="0.2">${esc(word)}</text>`,
     rule,
     verText,
     approved ? seal(w + 11) : "",

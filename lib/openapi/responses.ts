@@ -55,7 +55,7 @@ export const runRefSchema = z.object({
 export const lineageSchema = z.object({
   forkedFrom: versionRef.extend({ title: z.string() }).nullable(),
   parentNewerVersions: z.number().int().meta({ description: "Versions the parent gained since the fork" }),
-  forks: z.array(z.object({ slug: z.string(), title: z.string() })),
+  forks: z.array(z.object({ slug: z.string(), title: z.string(), fromVersion: z.number().int() })),
 }).openapi("Lineage");
 
 export const checkCountsSchema = z.object({
@@ -119,6 +119,8 @@ export const createdSchema = z.object({ slug: z.string(), version: z.number().in
 
 export const runSchema = z.object({
   id: z.uuid(),
+  slug: z.string(),
+  version: z.number().int(),
   status: runRefSchema.shape.status,
   badge: badgeSchema,
   report: reportSchema.nullable(),

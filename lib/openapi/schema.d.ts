@@ -297,6 +297,7 @@ export interface components {
                 version: number;
             } | null;
             forks: {
+                fromVersion: number;
                 slug: string;
                 title: string;
             }[];
@@ -406,8 +407,10 @@ export interface components {
             /** Format: uuid */
             id: string;
             report: components["schemas"]["Report"] & unknown;
+            slug: string;
             /** @enum {string} */
             status: "queued" | "running" | "done" | "error";
+            version: number;
         };
         RunRef: {
             /** Format: uuid */

@@ -1,5 +1,5 @@
 import { z, type ZodType } from "zod";
-import { cursorSchema, limitSchema, problemSchema } from "@/lib/validation/api";
+import { cursorQuerySchema, problemSchema } from "@/lib/validation/api";
 
 const STATUS_TEXT: Record<number, string> = {
   401: "Sign-in or a valid token is required (or the token is malformed, revoked or expired)",
@@ -24,4 +24,4 @@ export const etagHeaders = z.object({
   "Cache-Control": z.string(),
 });
 
-export const cursorQuery = z.object({ cursor: cursorSchema.optional(), limit: limitSchema });
+export const cursorQuery = cursorQuerySchema;

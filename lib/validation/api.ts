@@ -31,6 +31,8 @@ export const versionNumberSchema = z.coerce
 export const cursorSchema = z.string().min(1).max(200).meta({ description: "Opaque cursor from a previous page's nextCursor" });
 export const limitSchema = z.coerce.number().int().min(1).max(100).default(20).meta({ description: "Page size (1–100)" });
 
+export const cursorQuerySchema = z.object({ cursor: cursorSchema.optional(), limit: limitSchema });
+
 export const issueSchema = z
   .object({
     message: z.string(),

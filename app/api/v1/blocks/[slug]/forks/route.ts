@@ -1,0 +1,19 @@
+import { mediaType, readJson } from "@/lib/api/body";
+import { created } from "@/lib/api/created";
+import { pathParams, route } from "@/lib/api/handler";
+import { callerFromRequest } from "@/lib/auth/request-caller";
+import { forkBlock } from "@/lib/blocks/fork";
+import { slugParamsSchema } from "@/lib/validation/api";
+import { forkBodySchema } from "@/lib/validation/blocks";
+
+export const dynamic = "force-dynamic";
+
+const hasBody = (req: Request) => req.headers.has("content-type") || Number(req.headers.get("content-length") ?? 0) > 0;
+
+// The body is optional: a bare POST forks the head into the caller's team under a derived slug.
+export const POST = route<{ slug: string }>(async (req, params) => {
+  const { slug } = pathParams(slugParamsSchema, params);
+  const input = hasBody(req) || mediaType(req) ? forkBodySchema.parse(await readJson(req)) : {};
+  const caller = await callerFromRequest(req);
+  return created(req, await forkBlock(caller, slug, input));
+});

@@ -1,0 +1,26 @@
+import { readBlockFile } from "@/lib/api/body";
+import { noStore } from "@/lib/api/cache";
+import { created } from "@/lib/api/created";
+import { route } from "@/lib/api/handler";
+import { callerFromRequest } from "@/lib/auth/request-caller";
+import { createBlock } from "@/lib/blocks/create";
+import { searchBlocks } from "@/lib/search/search";
+import { queryObject } from "@/lib/validation/api";
+import { createQuerySchema, searchQuerySchema } from "@/lib/validation/blocks";
+
+export const dynamic = "force-dynamic";
+
+export const GET = route(async (req) => {
+  const query = searchQuerySchema.parse(queryObject(req.url));
+  const caller = await callerFromRequest(req);
+  const { items, nextCursor, estimatedTotal } = await searchBlocks(caller, query);
+  return Response.json({ items, nextCursor, estimatedTotal }, { headers: { ...noStore, Vary: "Authorization, Cookie" } });
+});
+
+export const POST = route(async (req) => {
+  const query = createQuerySchema.parse(queryObject(req.url));
+  const text = await readBlockFile(req);
+  const caller = await callerFromRequest(req);
+  const result = await createBlock(caller, { teamSlug: query.team, text, visibility: query.visibility });
+  return created(req, result);
+});

@@ -1,0 +1,60 @@
+import { describe, expect, it, vi } from "vitest";
+import { z } from "zod";
+import { problem, problemDocument, PROBLEM_BASE, STALE_BASE_TYPE } from "@/lib/api/problem";
+import { route } from "@/lib/api/handler";
+import { AppError } from "@/lib/errors";
+
+// RFC 9457 (Problem Details for HTTP APIs), §3: type, title, status, detail; extension members allowed.
+describe("problem documents", () => {
+  it("maps every AppError code to its status and a type under one base", async () => {
+    const cases: [ConstructorParameters<typeof AppError>[0], number][] = [
+      ["unauthenticated", 401], ["forbidden", 403], ["not_found", 404], ["conflict", 409],
+      ["payload_too_large", 413], ["unsupported_media_type", 415], ["validation", 422],
+    ];
+    for (const [code, status] of cases) {
+      const res = problem(new AppError(code, "why"));
+      expect(res.status).toBe(status);
+      expect(res.headers.get("content-type")).toBe("application/problem+json");
+      const body = await res.json();
+      expect(body.type.startsWith(PROBLEM_BASE)).toBe(true);
+      expect(body).toMatchObject({ status, detail: "why" });
+      expect(typeof body.title).toBe("string");
+    }
+  });
+
+  it("names a conflict with a head a stale base and carries the head", () => {
+    const doc = problemDocument(new AppError("conflict", "moved on", { head: 4 }));
+    expect(doc).toMatchObject({ type: STALE_BASE_TYPE, status: 409, head: 4 });
+    expect(problemDocument(new AppError("conflict", "slug taken", { slug: "x" })).type).toBe(PROBLEM_BASE + "conflict");
+  });
+
+  it("lists zod issues with their paths on 422", () => {
+    const r = z.object({ baseVersion: z.number().int() }).safeParse({ baseVersion: "two" });
+    const doc = problemDocument(r.error);
+    expect(doc.status).toBe(422);
+    expect(doc.errors).toEqual([expect.objectContaining({ path: "baseVersion" })]);
+  });
+
+  it("keeps extra members but never lets them overwrite type, title, status or detail", () => {
+    const doc = problemDocument(new AppError("validation", "bad file", { errors: [{ message: "x", line: 3 }], status: 200, type: "evil" }));
+    expect(doc).toMatchObject({ status: 422, type: PROBLEM_BASE + "validation", errors: [{ message: "x", line: 3 }] });
+  });
+
+  it("answers 401 with a Bearer challenge (RFC 6750 §3)", () => {
+    expect(problem(new AppError("unauthenticated", "sign in")).headers.get("www-authenticate")).toMatch(/^Bearer /);
+  });
+
+  it("hides the cause of an unexpected error and logs it on the server", async () => {
+    const log = vi.spyOn(console, "error").mockImplementation(() => {});
+    const handler = route(async () => {
+      throw new Error('relation "blocks" does not exist at 10.0.0.5:5432');
+    });
+    const res = await handler(new Request("http://x.test/api/v1/blocks"), { params: Promise.resolve({}) });
+    expect(res.status).toBe(500);
+    const text = await res.text();
+    expect(text).not.toMatch(/relation|5432/);
+    expect(log).toHaveBeenCalled();
+    expect(String(log.mock.calls[0][0])).toContain("/api/v1/blocks");
+    log.mockRestore();
+  });
+});
