@@ -4,6 +4,7 @@ import { normalize } from "./tokenize";
 // facets and sorting never walk the JSON again.
 export interface PathValues {
   strings: Set<string>; // normalized strings (booleans as "true"/"false")
+  stringList: string[]; // the same, as an array: faster to walk when counting facets
   originals: Map<string, string>; // normalized → first spelling seen, for facet keys
   numbers: number[];
   hasNull: boolean;
@@ -15,7 +16,7 @@ export type FlatDoc = Map<string, PathValues>;
 function slot(flat: FlatDoc, path: string): PathValues {
   let v = flat.get(path);
   if (!v) {
-    v = { strings: new Set(), originals: new Map(), numbers: [], hasNull: false, hasEmpty: false };
+    v = { strings: new Set(), stringList: [], originals: new Map(), numbers: [], hasNull: false, hasEmpty: false };
     flat.set(path, v);
   }
   return v;
@@ -23,6 +24,7 @@ function slot(flat: FlatDoc, path: string): PathValues {
 
 function addString(v: PathValues, s: string) {
   const n = normalize(s);
+  if (!v.strings.has(n)) v.stringList.push(n);
   v.strings.add(n);
   if (!v.originals.has(n)) v.originals.set(n, s);
 }

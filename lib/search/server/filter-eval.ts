@@ -9,18 +9,16 @@ const asNumber = (s: string) => (NUMBER.test(s) ? Number(s) : null);
 
 // String values compare case-insensitively; a value that reads as a number also
 // matches numeric values; an array attribute matches when any element does.
-function equals(v: PathValues | undefined, value: string, num: number | null): boolean {
+function equals(v: PathValues | undefined, norm: string, num: number | null): boolean {
   if (!v) return false;
-  if (v.strings.has(normalize(value))) return true;
+  if (v.strings.has(norm)) return true;
   return num !== null && v.numbers.includes(num);
 }
 
-function compare(v: PathValues | undefined, op: string, value: string): boolean {
+function compare(v: PathValues | undefined, op: string, num: number | null, target: string): boolean {
   if (!v) return false;
-  const num = asNumber(value);
   const test = (cmp: number) => (op === ">" ? cmp > 0 : op === ">=" ? cmp >= 0 : op === "<" ? cmp < 0 : cmp <= 0);
   if (num !== null) return v.numbers.some((n) => test(n - num));
-  const target = normalize(value);
   for (const s of v.strings) if (test(s < target ? -1 : s > target ? 1 : 0)) return true;
   return false;
 }
@@ -29,18 +27,25 @@ function condition(c: Condition): DocPredicate {
   switch (c.op) {
     case "=": {
       const num = asNumber(c.value);
-      return (f) => equals(f.get(c.attr), c.value, num);
+      const norm = normalize(c.value);
+      return (f) => equals(f.get(c.attr), norm, num);
     }
     case "!=": {
       const num = asNumber(c.value);
-      return (f) => !equals(f.get(c.attr), c.value, num);
+      const norm = normalize(c.value);
+      return (f) => !equals(f.get(c.attr), norm, num);
     }
-    case ">": case ">=": case "<": case "<=":
-      return (f) => compare(f.get(c.attr), c.op, c.value);
-    case "TO":
-      return (f) => inOneValue(f.get(c.attr), c.from, c.to);
+    case ">": case ">=": case "<": case "<=": {
+      const num = asNumber(c.value);
+      const target = normalize(c.value);
+      return (f) => compare(f.get(c.attr), c.op, num, target);
+    }
+    case "TO": {
+      const range = [asNumber(c.from), asNumber(c.to), normalize(c.from), normalize(c.to)] as const;
+      return (f) => inOneValue(f.get(c.attr), range);
+    }
     case "IN": {
-      const values = c.values.map((v) => [v, asNumber(v)] as const);
+      const values = c.values.map((v) => [normalize(v), asNumber(v)] as const);
       return (f) => {
         const pv = f.get(c.attr);
         return values.some(([v, n]) => equals(pv, v, n));
@@ -56,13 +61,9 @@ function condition(c: Condition): DocPredicate {
 }
 
 // `a 1 TO 5` needs one value inside the range, not one above 1 and another below 5.
-function inOneValue(v: PathValues | undefined, from: string, to: string): boolean {
+function inOneValue(v: PathValues | undefined, [lo, hi, a, b]: readonly [number | null, number | null, string, string]): boolean {
   if (!v) return false;
-  const lo = asNumber(from);
-  const hi = asNumber(to);
   if (lo !== null && hi !== null) return v.numbers.some((n) => n >= lo && n <= hi);
-  const a = normalize(from);
-  const b = normalize(to);
   for (const s of v.strings) if (s >= a && s <= b) return true;
   return false;
 }

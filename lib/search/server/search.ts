@@ -18,6 +18,7 @@ interface Candidate {
   rank: number;
   exact: number;
   freq: number;
+  sortKeys?: SortKey[];
 }
 
 function listAttrs(list: string[]) {
@@ -56,8 +57,7 @@ function parseSort(index: IndexState, sort: string[]) {
 
 type SortKey = [number, number | string];
 
-// Numbers sort before strings, documents without the attribute come last; keys
-// are worked out once per document and request.
+// Numbers sort before strings, documents without the attribute come last.
 function sortKeyOf(f: FlatDoc, attr: string, desc: boolean): SortKey {
   const v = f.get(attr);
   if (v && v.numbers.length) return [0, desc ? Math.max(...v.numbers) : Math.min(...v.numbers)];
@@ -68,20 +68,46 @@ function sortKeyOf(f: FlatDoc, attr: string, desc: boolean): SortKey {
   return [2, 0];
 }
 
-function sortComparer(index: IndexState) {
-  const memo = new Map<string, Map<string, SortKey>>();
-  return (a: string, b: string, attr: string, desc: boolean): number => {
-    const id = `${attr}:${desc}`;
-    let m = memo.get(id);
-    if (!m) memo.set(id, (m = new Map()));
-    let ka = m.get(a);
-    if (!ka) m.set(a, (ka = sortKeyOf(index.flats.get(a)!, attr, desc)));
-    let kb = m.get(b);
-    if (!kb) m.set(b, (kb = sortKeyOf(index.flats.get(b)!, attr, desc)));
-    if (ka[0] !== kb[0]) return ka[0] - kb[0];
-    if (ka[0] === 2 || ka[1] === kb[1]) return 0;
-    return (ka[1] < kb[1] ? -1 : 1) * (desc ? -1 : 1);
+function compareKeys(a: SortKey, b: SortKey, desc: boolean): number {
+  if (a[0] !== b[0]) return a[0] - b[0];
+  if (a[0] === 2 || a[1] === b[1]) return 0;
+  return (a[1] < b[1] ? -1 : 1) * (desc ? -1 : 1);
+}
+
+type Step = (a: Candidate, b: Candidate) => number;
+
+// The ranking rules as comparison steps; sort keys are worked out once per
+// candidate. Rules that cannot separate placeholder hits are left out.
+function rankingSteps(index: IndexState, sort: { attr: string; desc: boolean }[], candidates: Candidate[], placeholder: boolean): Step[] {
+  const steps: Step[] = [];
+  const specs: { attr: string; desc: boolean }[] = [];
+  const sortStep = (from: number, to: number): Step => (a, b) => {
+    for (let i = from; i < to; i++) {
+      const d = compareKeys(a.sortKeys![i], b.sortKeys![i], specs[i].desc);
+      if (d) return d;
+    }
+    return 0;
   };
+  for (const rule of index.settings.rankingRules) {
+    if (rule === "words" && !placeholder) steps.push((a, b) => b.words - a.words);
+    else if (rule === "typo" && !placeholder) steps.push((a, b) => a.typos - b.typos);
+    else if (rule === "attribute" && !placeholder) steps.push((a, b) => a.rank - b.rank);
+    else if (rule === "exactness" && !placeholder) steps.push((a, b) => b.exact - a.exact);
+    else if (rule === "sort" && sort.length) {
+      steps.push(sortStep(specs.length, specs.length + sort.length));
+      specs.push(...sort);
+    } else {
+      const custom = /^(.+):(asc|desc)$/.exec(rule);
+      if (custom) {
+        steps.push(sortStep(specs.length, specs.length + 1));
+        specs.push({ attr: custom[1], desc: custom[2] === "desc" });
+      }
+    }
+  }
+  if (specs.length) for (const c of candidates) c.sortKeys = specs.map((s) => sortKeyOf(index.flats.get(c.key)!, s.attr, s.desc));
+  if (!placeholder) steps.push((a, b) => b.freq - a.freq);
+  steps.push((a, b) => a.seq - b.seq);
+  return steps;
 }
 
 // Hits matching the query words under the matching strategy: "all" keeps
@@ -137,24 +163,13 @@ export function executeSearch(index: IndexState, p: SearchParams) {
   }
   if (predicate) candidates = candidates.filter((c) => predicate(index.flats.get(c.key)!));
 
-  const rules = index.settings.rankingRules;
-  const sortCompare = sortComparer(index);
+  const steps = rankingSteps(index, sort, candidates, q.trim() === "" || queryWords(q).length === 0);
   const cmp = (a: Candidate, b: Candidate): number => {
-    for (const rule of rules) {
-      let d = 0;
-      if (rule === "words") d = b.words - a.words;
-      else if (rule === "typo") d = a.typos - b.typos;
-      else if (rule === "attribute") d = a.rank - b.rank;
-      else if (rule === "exactness") d = b.exact - a.exact;
-      else if (rule === "sort") {
-        for (const s of sort) if ((d = sortCompare(a.key, b.key, s.attr, s.desc))) break;
-      } else {
-        const custom = /^(.+):(asc|desc)$/.exec(rule);
-        if (custom) d = sortCompare(a.key, b.key, custom[1], custom[2] === "desc");
-      }
+    for (const step of steps) {
+      const d = step(a, b);
       if (d) return d;
     }
-    return b.freq - a.freq || a.seq - b.seq;
+    return 0;
   };
   candidates.sort(cmp);
 
