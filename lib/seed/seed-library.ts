@@ -1,9 +1,64 @@
+import { readdirSync, readFileSync } from "node:fs";
+import path from "node:path";
 import type { EntityManager } from "@mikro-orm/postgresql";
+import { BlockSchema, ReviewSchema, UserSchema } from "@/entities";
+import { loadCaller } from "@/lib/auth/load-caller";
+import { setVisibility } from "@/lib/blocks/archive";
+import { createBlock } from "@/lib/blocks/create";
+import { forkBlock } from "@/lib/blocks/fork";
+import { addVersion } from "@/lib/blocks/versions";
+import { decide } from "@/lib/reviews/reviews";
 
-/**
- * The demo library from content/blocks, created through the block services so every version gets its run.
- * Filled in by the blocks service (lib/blocks): until then it creates nothing.
- */
-export async function seedLibrary(_em: EntityManager): Promise<{ created: number }> {
-  return { created: 0 };
+// Fenwick's library as the demo shows it: every content block, a few published, one fork, one retuned block,
+// one approved version. Each step checks first, so a second run creates nothing.
+const AUTHOR = "nadia.okafor@fenwick.test";
+const MAINTAINER = "tomas.reyes@fenwick.test";
+const PUBLIC = ["wien-bridge-sine-1k", "rc-lowpass-antialias", "opamp-soft-limiter", "sallen-key-lowpass-unity"];
+const FORK = {
+  from: "rc-lowpass-antialias", slug: "rc-lowpass-antialias-5k1", title: "First-order anti-alias low-pass, 5.1 k / 9.1 nF",
+  params: { R: "5.1 kohm", C: "9.1 nF" },
+};
+const RETUNE = { slug: "diode-clamp-adc-input", params: { Rs: "1.2 kohm" }, message: "Rs raised to 1.2 kohm to halve the current injected into the rail" };
+const APPROVE = { slug: "wien-bridge-sine-1k", version: 1, comment: "Start-up margin and amplitude agree with my bench notes." };
+
+const blocksDir = () => path.join(process.env.ASSAY_ROOT || process.cwd(), "content/blocks");
+
+export async function seedLibrary(em: EntityManager): Promise<{ created: number }> {
+  const nadia = await em.findOne(UserSchema, { email: AUTHOR });
+  const tomas = await em.findOne(UserSchema, { email: MAINTAINER });
+  if (!nadia || !tomas) throw new Error("seed the demo people first");
+  const author = await loadCaller(em, nadia.id);
+  const maintainer = await loadCaller(em, tomas.id);
+  const exists = async (slug: string) => (await em.fork().count(BlockSchema, { slug })) > 0;
+  let created = 0;
+
+  const files = readdirSync(blocksDir()).filter((f) => f.endsWith(".md")).sort();
+  for (const file of files) {
+    const text = readFileSync(path.join(blocksDir(), file), "utf8");
+    const slug = /^slug:\s*["']?([a-z0-9-]+)/m.exec(text)?.[1] ?? file.replace(/\.md$/, "");
+    if (await exists(slug)) continue;
+    try {
+      await createBlock(author, { teamSlug: "fenwick", text, visibility: PUBLIC.includes(slug) ? "public" : "team", message: "imported from the bench notebook" });
+      created++;
+    } catch (err) {
+      console.warn(`[assay] seed: ${file} was not imported: ${(err as Error).message}`);
+    }
+  }
+  for (const slug of PUBLIC) {
+    if (await exists(slug)) await setVisibility(maintainer, slug, "public");
+  }
+  if ((await exists(FORK.from)) && !(await exists(FORK.slug))) {
+    await forkBlock(author, FORK.from, { slug: FORK.slug, title: FORK.title, params: FORK.params });
+    created++;
+  }
+  const retuned = await em.fork().findOne(BlockSchema, { slug: RETUNE.slug }, { populate: ["head"] });
+  if (retuned?.head?.number === 1) {
+    await addVersion(author, RETUNE.slug, { params: RETUNE.params, baseVersion: 1, message: RETUNE.message });
+  }
+  const approved = await em.fork().findOne(BlockSchema, { slug: APPROVE.slug });
+  if (approved) {
+    const done = await em.fork().count(ReviewSchema, { version: { block: approved.id, number: APPROVE.version }, decision: "approved" });
+    if (!done) await decide(maintainer, APPROVE.slug, APPROVE.version, "approved", APPROVE.comment);
+  }
+  return { created };
 }

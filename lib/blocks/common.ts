@@ -1,0 +1,63 @@
+import { createHash } from "node:crypto";
+import type { EntityManager } from "@mikro-orm/postgresql";
+import { parseBlock, type ParamSpec, type ParsedBlock } from "@/checks";
+import { BlockSchema, BlockVersionSchema, type Block, type BlockVersion, type StoredParam } from "@/entities";
+import type { Caller } from "@/lib/auth/caller";
+import { assertCan, type Action, type BlockResource } from "@/lib/auth/permissions";
+import { AppError } from "@/lib/errors";
+
+export const sha256 = (text: string): string => createHash("sha256").update(text, "utf8").digest("hex");
+
+/** The engine's parser decides whether a file (and its parameter values) may be stored at all. */
+export function parseOrThrow(text: string): ParsedBlock {
+  const { block, errors } = parseBlock(text);
+  if (!block || errors.length > 0) {
+    const first = errors[0];
+    const where = first?.line ? ` (line ${first.line})` : "";
+    throw new AppError("validation", `the block file is not valid: ${first?.message ?? "unreadable"}${where}`, { errors });
+  }
+  return block;
+}
+
+export const storedParams = (params: ParamSpec[]): StoredParam[] =>
+  params.map(({ name, value, tol, note, si, unit }) => ({ name, value, ...(tol ? { tol } : {}), ...(note ? { note } : {}), si, unit }));
+
+export function requireUser(caller: Caller): { id: number; email: string; name: string } {
+  if (!caller.user) throw new AppError("unauthenticated", "sign in first");
+  return caller.user;
+}
+
+export function resourceOf(block: Block, authorId?: number | null): BlockResource {
+  return { kind: "block", teamId: block.team.id, visibility: block.visibility, authorId: authorId ?? null };
+}
+
+/** The block by slug with team and head loaded, after checking `action` (404 when the caller may not read it). */
+export async function loadBlock(em: EntityManager, caller: Caller, slug: string, action: Action = "block.read"): Promise<Block> {
+  const block = await em.findOne(BlockSchema, { slug: String(slug) }, { populate: ["team", "head", "head.author"] });
+  if (!block) throw new AppError("not_found", "no such block");
+  assertCan(caller, "block.read", resourceOf(block));
+  if (action !== "block.read") assertCan(caller, action, resourceOf(block, await creatorOf(em, block)));
+  return block;
+}
+
+/** "Own block" for the author role: the author of version 1. */
+async function creatorOf(em: EntityManager, block: Block): Promise<number | null> {
+  const first = await em.findOne(BlockVersionSchema, { block, number: 1 }, { fields: ["author"] });
+  return first ? first.author.id : null;
+}
+
+export async function loadVersion(em: EntityManager, block: Block, number?: number): Promise<BlockVersion> {
+  if (number === undefined || number === null) {
+    if (!block.head) throw new AppError("not_found", "the block has no version");
+    return block.head;
+  }
+  const v = await em.findOne(BlockVersionSchema, { block, number: Number(number) }, { populate: ["author"] });
+  if (!v) throw new AppError("not_found", `no version ${number} of ${block.slug}`);
+  return v;
+}
+
+/** withParams throws plain Errors for unknown names or unreadable values; callers see a validation problem. */
+export function engineInputError(err: unknown): AppError {
+  const message = (err as Error)?.message ?? String(err);
+  return new AppError("validation", message, { errors: [{ message }] });
+}

@@ -1,0 +1,62 @@
+import { diffLines, type ChangeObject } from "diff";
+import { parseBlock } from "@/checks";
+import type { Caller } from "@/lib/auth/caller";
+import { getEm } from "@/lib/db/orm";
+import { latestRuns } from "@/lib/runs/badge";
+import { loadBlock, loadVersion } from "./common";
+
+export type DiffPart = { value: string; added?: boolean; removed?: boolean };
+
+export interface Comparison {
+  from: number;
+  to: number;
+  params: { name: string; from: string | null; to: string | null }[];
+  note: DiffPart[];
+  netlist: DiffPart[];
+  script: DiffPart[];
+  /** Checks whose outcome differs between the two versions' latest runs (null: absent or not run). */
+  checks: { label: string; from: string | null; to: string | null }[];
+}
+
+const parts = (a: string, b: string): DiffPart[] =>
+  diffLines(a, b).map((c: ChangeObject<string>) => ({ value: c.value, ...(c.added ? { added: true } : {}), ...(c.removed ? { removed: true } : {}) }));
+
+/** What changed from version a to version b of one block: values, note, circuit, script and check outcomes. */
+export async function compareVersions(caller: Caller, slug: string, a: number, b: number): Promise<Comparison> {
+  const em = await getEm();
+  const block = await loadBlock(em, caller, slug);
+  const va = await loadVersion(em, block, Number(a));
+  const vb = await loadVersion(em, block, Number(b));
+  const pa = parseBlock(va.text).block;
+  const pb = parseBlock(vb.text).block;
+
+  const valueOf = (ps: typeof va.params) => new Map(ps.map((p) => [p.name, p.tol ? `${p.value} ± ${p.tol}` : p.value]));
+  const ma = valueOf(va.params);
+  const mb = valueOf(vb.params);
+  const names = [...new Set([...ma.keys(), ...mb.keys()])];
+  const params = names
+    .filter((n) => ma.get(n) !== mb.get(n))
+    .map((n) => ({ name: n, from: ma.get(n) ?? null, to: mb.get(n) ?? null }));
+
+  const runs = await latestRuns(em, [va.id, vb.id]);
+  const outcomes = (id: number) => {
+    const checks = ((runs.get(id)?.report as { checks?: { label: string; status: string }[] } | null)?.checks ?? []);
+    return new Map(checks.map((c) => [c.label, c.status]));
+  };
+  const ca = outcomes(va.id);
+  const cb = outcomes(vb.id);
+  const labels = [...new Set([...ca.keys(), ...cb.keys()])];
+  const checks = labels
+    .filter((l) => ca.get(l) !== cb.get(l))
+    .map((l) => ({ label: l, from: ca.get(l) ?? null, to: cb.get(l) ?? null }));
+
+  return {
+    from: va.number,
+    to: vb.number,
+    params,
+    note: parts(pa?.note ?? "", pb?.note ?? ""),
+    netlist: parts(pa?.netlist ?? "", pb?.netlist ?? ""),
+    script: parts(pa?.script ?? "", pb?.script ?? ""),
+    checks,
+  };
+}

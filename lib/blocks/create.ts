@@ -1,0 +1,42 @@
+import { UniqueConstraintViolationException } from "@mikro-orm/core";
+import { BlockSchema, TeamSchema, type Visibility } from "@/entities";
+import type { Caller } from "@/lib/auth/caller";
+import { assertCan } from "@/lib/auth/permissions";
+import { getEm } from "@/lib/db/orm";
+import { AppError } from "@/lib/errors";
+import { parseOrThrow, requireUser } from "./common";
+import { storeVersion, type StoredResult } from "./store";
+
+/** A new block from a block file: version 1, its run queued in the same transaction. */
+export async function createBlock(
+  caller: Caller,
+  input: { teamSlug: string; text: string; visibility?: Visibility; message?: string },
+): Promise<StoredResult> {
+  const user = requireUser(caller);
+  const em = await getEm();
+  const team = await em.findOne(TeamSchema, { slug: String(input.teamSlug ?? "") });
+  if (!team) throw new AppError("not_found", `no team "${input.teamSlug}"`);
+  assertCan(caller, "block.create", { kind: "team", teamId: team.id });
+  const visibility = input.visibility ?? "team";
+  if (visibility !== "team" && visibility !== "public") throw new AppError("validation", "visibility is team or public");
+  const parsed = parseOrThrow(input.text);
+  try {
+    return await em.transactional(async (tx) => {
+      if (await tx.count(BlockSchema, { slug: parsed.slug })) throw taken(parsed.slug);
+      const block = tx.create(BlockSchema, {
+        slug: parsed.slug, team, title: parsed.title, summary: parsed.summary, category: parsed.category as never,
+        tags: parsed.tags, hazard: parsed.hazard, visibility, head: null, forkedFrom: null, archived: false, createdAt: new Date(), updatedAt: new Date(),
+      });
+      await tx.flush();
+      const { result } = await storeVersion(tx, {
+        block, number: 1, text: input.text, parsed, authorId: user.id, message: input.message ?? "created",
+      });
+      return result;
+    });
+  } catch (err) {
+    if (err instanceof UniqueConstraintViolationException) throw taken(parsed.slug);
+    throw err;
+  }
+}
+
+const taken = (slug: string) => new AppError("conflict", `the slug "${slug}" is taken`, { slug });

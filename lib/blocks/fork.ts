@@ -1,0 +1,81 @@
+import { UniqueConstraintViolationException } from "@mikro-orm/core";
+import { withParams } from "@/checks";
+import { BlockSchema, TeamSchema, type Team } from "@/entities";
+import type { Caller } from "@/lib/auth/caller";
+import { assertCan, can } from "@/lib/auth/permissions";
+import { getEm } from "@/lib/db/orm";
+import { AppError } from "@/lib/errors";
+import { engineInputError, loadBlock, loadVersion, parseOrThrow, requireUser } from "./common";
+import { storeVersion, type StoredResult } from "./store";
+
+export interface ForkInput {
+  fromVersion?: number;
+  slug?: string;
+  title?: string;
+  params?: Record<string, string>;
+  /** Team slug of the fork; by default the source's team when the caller may create there. */
+  team?: string;
+}
+
+/** A new block that starts from one version of another, optionally with new values and title; records forkedFrom. */
+export async function forkBlock(caller: Caller, slug: string, input: ForkInput = {}): Promise<StoredResult> {
+  const user = requireUser(caller);
+  const em = await getEm();
+  const source = await loadBlock(em, caller, slug);
+  const from = await loadVersion(em, source, input.fromVersion);
+  const team = await targetTeam(caller, source.team, input.team);
+  assertCan(caller, "block.fork", { kind: "team", teamId: team.id });
+  const newSlug = input.slug ? String(input.slug) : await freeSlug(source.slug);
+
+  let text: string;
+  try {
+    text = withParams(from.text, input.params ?? {}, { slug: newSlug, ...(input.title ? { title: String(input.title) } : {}) });
+  } catch (err) {
+    throw engineInputError(err);
+  }
+  const parsed = parseOrThrow(text);
+  try {
+    return await em.transactional(async (tx) => {
+      if (await tx.count(BlockSchema, { slug: parsed.slug })) throw taken(parsed.slug);
+      const block = tx.create(BlockSchema, {
+        slug: parsed.slug, team: tx.getReference(TeamSchema, team.id), title: parsed.title, summary: parsed.summary,
+        category: parsed.category as never, tags: parsed.tags, hazard: parsed.hazard, visibility: "team",
+        head: null, forkedFrom: from, archived: false, createdAt: new Date(), updatedAt: new Date(),
+      });
+      await tx.flush();
+      await tx.populate(block, ["team"]);
+      const { result } = await storeVersion(tx, {
+        block, number: 1, text, parsed, authorId: user.id, message: `forked from ${source.slug} v${from.number}`,
+        extra: { forkedFrom: { slug: source.slug, version: from.number } },
+      });
+      return result;
+    });
+  } catch (err) {
+    if (err instanceof UniqueConstraintViolationException) throw taken(parsed.slug);
+    throw err;
+  }
+}
+
+async function targetTeam(caller: Caller, sourceTeam: Team, wanted?: string): Promise<Team> {
+  if (wanted) {
+    const team = await (await getEm()).findOne(TeamSchema, { slug: String(wanted) });
+    if (!team) throw new AppError("not_found", `no team "${wanted}"`);
+    return team;
+  }
+  if (can(caller, "block.fork", { kind: "team", teamId: sourceTeam.id })) return sourceTeam;
+  const mine = caller.memberships.find((m) => can(caller, "block.fork", { kind: "team", teamId: m.teamId }));
+  if (!mine) throw new AppError(caller.user ? "forbidden" : "unauthenticated", "you may not create blocks in any team");
+  return (await (await getEm()).findOneOrFail(TeamSchema, { id: mine.teamId }));
+}
+
+async function freeSlug(base: string): Promise<string> {
+  const em = await getEm();
+  const stem = base.slice(0, 90);
+  for (let i = 1; i < 1000; i++) {
+    const candidate = i === 1 ? `${stem}-fork` : `${stem}-fork-${i}`;
+    if (!(await em.count(BlockSchema, { slug: candidate }))) return candidate;
+  }
+  throw new AppError("conflict", "no free slug for the fork; name one");
+}
+
+const taken = (slug: string) => new AppError("conflict", `the slug "${slug}" is taken`, { slug });

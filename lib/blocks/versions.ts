@@ -1,0 +1,79 @@
+import { UniqueConstraintViolationException } from "@mikro-orm/core";
+import { withParams } from "@/checks";
+import { BlockSchema, BlockVersionSchema } from "@/entities";
+import type { Caller } from "@/lib/auth/caller";
+import { getEm } from "@/lib/db/orm";
+import { AppError } from "@/lib/errors";
+import { engineInputError, loadBlock, parseOrThrow, requireUser, sha256 } from "./common";
+import { storeVersion, type StoredResult } from "./store";
+
+export interface NewVersionInput {
+  /** A whole new block file; with `params` too, the values are put into it. */
+  text?: string;
+  /** New parameter values only: applied to the base version's file. */
+  params?: Record<string, string>;
+  /** The version the edit started from; anything else than the current head is refused. */
+  baseVersion: number;
+  message?: string;
+}
+
+/**
+ * A new version on top of `baseVersion`. Optimistic concurrency, made race-proof: the block row is locked
+ * (SELECT … FOR UPDATE) inside the transaction, so of two saves on the same base exactly one moves the head and
+ * the other sees the new head and gets a conflict; the unique (block, number) index is the backstop.
+ */
+export async function addVersion(caller: Caller, slug: string, input: NewVersionInput): Promise<StoredResult> {
+  const user = requireUser(caller);
+  const em = await getEm();
+  const block = await loadBlock(em, caller, slug, "block.edit");
+  if (block.archived) throw new AppError("conflict", "the block is archived", { head: block.head?.number ?? 0 });
+  const base = Number(input.baseVersion);
+  if (!Number.isInteger(base) || base < 1) throw new AppError("validation", "baseVersion must be a version number");
+  if (input.text === undefined && !input.params) throw new AppError("validation", "send a block file or new parameter values");
+  const baseRow = await em.findOne(BlockVersionSchema, { block, number: base });
+  if (!baseRow) throw stale(block.head?.number ?? 0);
+
+  let text: string;
+  try {
+    text = input.text ?? baseRow.text;
+    if (input.params && Object.keys(input.params).length > 0) text = withParams(text, input.params);
+  } catch (err) {
+    throw engineInputError(err);
+  }
+  const parsed = parseOrThrow(text);
+  if (parsed.slug !== block.slug)
+    throw new AppError("validation", `the file's slug "${parsed.slug}" is not this block's ("${block.slug}"); fork to rename`, {
+      errors: [{ message: "slug differs from the block's" }],
+    });
+
+  try {
+    return await em.transactional(async (tx) => {
+      const conn = tx.getConnection();
+      const [locked] = await conn.execute<{ id: number; head: number | null }[]>(
+        `select b.id, v.number as head from blocks b left join block_versions v on v.id = b.head_id
+          where b.id = ? for update of b`, [block.id], "all", tx.getTransactionContext());
+      const head = Number(locked?.head ?? 0);
+      if (head !== base) throw stale(head);
+      const fresh = await tx.findOneOrFail(BlockSchema, { id: block.id }, { populate: ["team", "head"], refresh: true });
+      if (fresh.head && fresh.head.contentHash === sha256(text))
+        throw new AppError("validation", `nothing changed: the file is identical to version ${head}`, { errors: [{ message: "no change" }] });
+      const { result } = await storeVersion(tx, {
+        block: fresh, number: head + 1, text, parsed, authorId: user.id,
+        message: input.message ?? (input.text === undefined ? describeParams(input.params!) : "new file"),
+      });
+      return result;
+    });
+  } catch (err) {
+    if (err instanceof UniqueConstraintViolationException) {
+      const now = await (await getEm()).findOne(BlockSchema, { id: block.id }, { populate: ["head"] });
+      throw stale(now?.head?.number ?? base);
+    }
+    throw err;
+  }
+}
+
+const stale = (head: number) =>
+  new AppError("conflict", `the block has moved on: the head is version ${head}; reload and apply your change to it`, { head });
+
+const describeParams = (p: Record<string, string>) =>
+  "retuned " + Object.entries(p).map(([k, v]) => `${k} = ${v}`).join(", ");

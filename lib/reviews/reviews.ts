@@ -1,0 +1,107 @@
+import type { EntityManager } from "@mikro-orm/postgresql";
+import { MembershipSchema, ReviewSchema, UserSchema, type Block, type BlockVersion, type ReviewDecision } from "@/entities";
+import type { Caller } from "@/lib/auth/caller";
+import { assertCan, can } from "@/lib/auth/permissions";
+import { loadBlock, loadVersion, requireUser, resourceOf } from "@/lib/blocks/common";
+import { blockEventBase } from "@/lib/blocks/events";
+import { getEm } from "@/lib/db/orm";
+import { AppError } from "@/lib/errors";
+import { writeEvent } from "@/lib/outbox/outbox";
+import { badgesFor, type Badge } from "@/lib/runs/badge";
+
+async function target(caller: Caller, slug: string, version: number): Promise<{ em: EntityManager; block: Block; v: BlockVersion }> {
+  const em = await getEm();
+  const block = await loadBlock(em, caller, slug);
+  const v = await loadVersion(em, block, Number(version));
+  await em.populate(v, ["author"]);
+  return { em, block, v };
+}
+
+/** Maintainers and admins of the team, who may decide; the version's author is left out. */
+async function reviewersOf(em: EntityManager, block: Block, authorId: number): Promise<string[]> {
+  const rows = await em.find(MembershipSchema, { team: block.team.id, role: { $in: ["maintainer", "admin"] } }, { populate: ["user"] });
+  return rows.filter((m) => m.user.id !== authorId).map((m) => m.user.email);
+}
+
+/** Asks the team's maintainers to review one version; asking twice for the same version keeps one request. */
+export async function requestReview(caller: Caller, slug: string, version: number): Promise<{ id: number; created: boolean }> {
+  const user = requireUser(caller);
+  const { em, block, v } = await target(caller, slug, version);
+  assertCan(caller, "review.request", resourceOf(block));
+  const open = await em.findOne(ReviewSchema, { version: v, decision: "requested" }, { orderBy: { createdAt: "desc" } });
+  if (open) {
+    const later = await em.count(ReviewSchema, { version: v, decision: { $ne: "requested" }, createdAt: { $gt: open.createdAt } });
+    if (later === 0) return { id: open.id, created: false };
+  }
+  return em.transactional(async (tx) => {
+    const r = tx.create(ReviewSchema, { version: v, reviewer: null, requestedBy: tx.getReference(UserSchema, user.id), decision: "requested", comment: "", createdAt: new Date() });
+    writeEvent(tx, "review.requested", {
+      ...(await blockEventBase(tx, block, v)), requestedBy: user.email, reviewers: await reviewersOf(tx, block, v.author.id),
+    });
+    await tx.flush();
+    return { id: r.id, created: true };
+  });
+}
+
+/** Approve or ask for changes on one version. Nobody decides on a version they wrote. */
+export async function decide(
+  caller: Caller, slug: string, version: number, decision: "approved" | "changes-requested", comment = "",
+): Promise<{ id: number; decision: ReviewDecision }> {
+  const user = requireUser(caller);
+  if (decision !== "approved" && decision !== "changes-requested") throw new AppError("validation", "decision is approved or changes-requested");
+  const { em, block, v } = await target(caller, slug, version);
+  assertCan(caller, "version.approve", resourceOf(block));
+  if (v.author.id === user.id) throw new AppError("forbidden", "nobody approves their own version: ask another maintainer");
+  const text = String(comment ?? "").trim().slice(0, 5000);
+  if (decision === "changes-requested" && !text) throw new AppError("validation", "say which changes you ask for");
+  return em.transactional(async (tx) => {
+    const r = tx.create(ReviewSchema, { version: v, reviewer: tx.getReference(UserSchema, user.id), requestedBy: null, decision, comment: text, createdAt: new Date() });
+    const askers = await tx.find(ReviewSchema, { version: v, decision: "requested" }, { populate: ["requestedBy"] });
+    writeEvent(tx, "review.decided", {
+      ...(await blockEventBase(tx, block, v)), decision, comment: text, reviewer: user.email, reviewerName: user.name,
+      requestedBy: [...new Set(askers.map((a) => a.requestedBy?.email).filter(Boolean))],
+    });
+    await tx.flush();
+    return { id: r.id, decision };
+  });
+}
+
+export interface QueueItem {
+  slug: string; title: string; team: string; version: number; badge: Badge; requestedBy: string | null; requestedAt: string;
+}
+
+/** Open requests on head versions of teams where the caller may approve, minus their own versions. */
+export async function reviewQueue(caller: Caller): Promise<QueueItem[]> {
+  if (!caller.user) return [];
+  const em = await getEm();
+  const rows = await em.getConnection().execute<{ review_id: number }[]>(
+    `select distinct on (r.version_id) r.id as review_id from reviews r
+       join block_versions v on v.id = r.version_id join blocks b on b.head_id = v.id
+      where r.decision = 'requested' and b.archived = false and v.author_id <> ?
+        and not exists (select 1 from reviews d where d.version_id = r.version_id and d.decision <> 'requested' and d.created_at > r.created_at)
+      order by r.version_id, r.created_at`, [caller.user.id]);
+  const reviews = await em.find(ReviewSchema, { id: { $in: rows.map((r) => r.review_id) } },
+    { populate: ["version", "version.block", "version.block.team", "requestedBy"], orderBy: { createdAt: "asc" } });
+  const mine = reviews.filter((r) => can(caller, "version.approve", resourceOf(r.version.block)));
+  const badges = await badgesFor(em, mine.map((r) => r.version.id));
+  return mine.map((r) => ({
+    slug: r.version.block.slug, title: r.version.block.title, team: r.version.block.team.slug, version: r.version.number,
+    badge: badges.get(r.version.id)!.badge, requestedBy: r.requestedBy?.name ?? null, requestedAt: r.createdAt.toISOString(),
+  }));
+}
+
+export interface ReviewRow {
+  id: number; version: number; decision: ReviewDecision; reviewer: string | null; requestedBy: string | null; comment: string; createdAt: string;
+}
+
+/** The review history of a block, newest first. */
+export async function reviewsOf(caller: Caller, slug: string): Promise<ReviewRow[]> {
+  const em = await getEm();
+  const block = await loadBlock(em, caller, slug);
+  const rows = await em.find(ReviewSchema, { version: { block: { id: block.id } } },
+    { populate: ["version", "reviewer", "requestedBy"], orderBy: { createdAt: "desc", id: "desc" } });
+  return rows.map((r) => ({
+    id: r.id, version: r.version.number, decision: r.decision, reviewer: r.reviewer?.name ?? null,
+    requestedBy: r.requestedBy?.name ?? null, comment: r.comment, createdAt: r.createdAt.toISOString(),
+  }));
+}

@@ -1,0 +1,83 @@
+import type { EntityManager } from "@mikro-orm/postgresql";
+import { ENGINE_VERSION, modelLibraryHash } from "@/checks";
+import type { CheckRun } from "@/entities";
+import { getEm } from "@/lib/db/orm";
+
+export const BADGES = ["unchecked", "pending", "verified", "failing", "error", "stale"] as const;
+export type Badge = (typeof BADGES)[number];
+
+/** What a run must have been made with to count as current. */
+export interface EngineStamp {
+  engineVersion: string;
+  modelLibraryHash: string;
+}
+export const currentStamp = (): EngineStamp => ({ engineVersion: ENGINE_VERSION, modelLibraryHash: modelLibraryHash() });
+
+export type RunLike = Pick<CheckRun, "status" | "report" | "engineVersion" | "modelLibraryHash">;
+
+/**
+ * A version's badge from its latest run. No run, or a script without any check: unchecked.
+ * A finished run made with another engine or model library is stale whatever it said.
+ */
+export function badgeOfRun(run: RunLike | null | undefined, stamp: EngineStamp = currentStamp()): Badge {
+  if (!run) return "unchecked";
+  if (run.status === "queued" || run.status === "running") return "pending";
+  if (run.status === "error") return "error";
+  const status = (run.report as { status?: string } | null)?.status;
+  if (status === "unchecked") return "unchecked";
+  if (run.engineVersion !== stamp.engineVersion || run.modelLibraryHash !== stamp.modelLibraryHash) return "stale";
+  if (status === "verified" || status === "failing" || status === "error") return status;
+  return "error";
+}
+
+export interface LatestRun {
+  id: string;
+  versionId: number;
+  status: CheckRun["status"];
+  report: CheckRun["report"];
+  engineVersion: string | null;
+  modelLibraryHash: string | null;
+  finishedAt: Date | null;
+  createdAt: Date;
+}
+
+/** The newest run of each version, in one query. */
+export async function latestRuns(em: EntityManager, versionIds: number[]): Promise<Map<number, LatestRun>> {
+  const out = new Map<number, LatestRun>();
+  if (versionIds.length === 0) return out;
+  const rows = await em.getConnection().execute<Record<string, never>[]>(
+    `select distinct on (version_id) id, version_id, status, report, engine_version, model_library_hash, finished_at, created_at
+       from check_runs where version_id in (${versionIds.map(() => "?").join(",")})
+      order by version_id, created_at desc, id`,
+    versionIds, "all", em.getTransactionContext(),
+  );
+  for (const r of rows as Record<string, unknown>[]) {
+    out.set(Number(r.version_id), {
+      id: String(r.id), versionId: Number(r.version_id), status: r.status as CheckRun["status"],
+      report: (r.report ?? null) as CheckRun["report"], engineVersion: (r.engine_version ?? null) as string | null,
+      modelLibraryHash: (r.model_library_hash ?? null) as string | null,
+      finishedAt: (r.finished_at ?? null) as Date | null, createdAt: r.created_at as Date,
+    });
+  }
+  return out;
+}
+
+export interface VersionBadge {
+  badge: Badge;
+  run: LatestRun | null;
+}
+
+export async function badgesFor(em: EntityManager, versionIds: number[], stamp = currentStamp()): Promise<Map<number, VersionBadge>> {
+  const runs = await latestRuns(em, versionIds);
+  return new Map(versionIds.map((id) => {
+    const run = runs.get(id) ?? null;
+    return [id, { badge: badgeOfRun(run, stamp), run }];
+  }));
+}
+
+/** A version's badge by id, or a run's badge. */
+export async function badgeFor(versionOrRun: number | RunLike | null, em?: EntityManager): Promise<Badge> {
+  if (versionOrRun === null || typeof versionOrRun !== "number") return badgeOfRun(versionOrRun);
+  const m = em ?? (await getEm());
+  return (await badgesFor(m, [versionOrRun])).get(versionOrRun)!.badge;
+}

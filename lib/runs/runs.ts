@@ -1,0 +1,54 @@
+import { CheckRunSchema, type CheckRun } from "@/entities";
+import type { Caller } from "@/lib/auth/caller";
+import { assertCan } from "@/lib/auth/permissions";
+import { loadBlock, resourceOf } from "@/lib/blocks/common";
+import { getEm } from "@/lib/db/orm";
+import { AppError } from "@/lib/errors";
+import { badgeOfRun, currentStamp, type Badge } from "./badge";
+
+export interface RunView {
+  id: string; slug: string; version: number; status: CheckRun["status"]; badge: Badge; trigger: string;
+  report: Record<string, unknown> | null; error: string | null; attempts: number; durationMs: number | null;
+  engineVersion: string | null; ngspiceVersion: string | null; modelLibraryHash: string | null;
+  createdAt: string; startedAt: string | null; finishedAt: string | null;
+}
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+async function loadRun(caller: Caller, id: string, populate: ("waveforms")[] = []): Promise<CheckRun> {
+  if (!UUID.test(String(id))) throw new AppError("not_found", "no such run");
+  const em = await getEm();
+  const run = await em.findOne(CheckRunSchema, { id }, { populate: ["version", "version.block", "version.block.team", ...populate] });
+  if (!run) throw new AppError("not_found", "no such run");
+  assertCan(caller, "block.read", resourceOf(run.version.block));
+  return run;
+}
+
+const view = (run: CheckRun, stamp = currentStamp()): RunView => ({
+  id: run.id, slug: run.version.block.slug, version: run.version.number, status: run.status,
+  badge: badgeOfRun(run, stamp), trigger: run.trigger, report: run.report, error: run.error, attempts: run.attempts,
+  durationMs: run.durationMs, engineVersion: run.engineVersion, ngspiceVersion: run.ngspiceVersion,
+  modelLibraryHash: run.modelLibraryHash, createdAt: run.createdAt.toISOString(),
+  startedAt: run.startedAt?.toISOString() ?? null, finishedAt: run.finishedAt?.toISOString() ?? null,
+});
+
+export async function getRun(caller: Caller, id: string): Promise<RunView> {
+  return view(await loadRun(caller, id));
+}
+
+/** Every run of every version of the block, newest first. */
+export async function listRuns(caller: Caller, slug: string, limit = 100): Promise<RunView[]> {
+  const em = await getEm();
+  const block = await loadBlock(em, caller, slug);
+  const runs = await em.find(CheckRunSchema, { version: { block: { id: block.id } } },
+    { populate: ["version", "version.block"], orderBy: { createdAt: "desc" }, limit: Math.min(Math.max(1, limit), 500) });
+  const stamp = currentStamp();
+  return runs.map((r) => view(r, stamp));
+}
+
+/** The downsampled series the engine returned with the report (empty until the run is done). */
+export async function getWaveforms(caller: Caller, runId: string): Promise<unknown[]> {
+  const run = await loadRun(caller, runId, ["waveforms"]);
+  return run.waveforms ?? [];
+}
+

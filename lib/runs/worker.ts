@@ -1,0 +1,75 @@
+import { randomUUID } from "node:crypto";
+import os from "node:os";
+import pg from "pg";
+import { databaseUrl } from "@/lib/db/database-url";
+import { getEm } from "@/lib/db/orm";
+import { RUN_CHANNEL } from "./enqueue";
+import { processNext } from "./execute";
+import { beat, forget } from "./heartbeat";
+import { reapExpired, releaseRun } from "./lease";
+import { enqueueStaleHeads } from "./reverify";
+
+export interface WorkerOptions {
+  id?: string;
+  /** Work only on these teams' blocks (a dedicated worker); all teams by default. */
+  teamIds?: number[];
+  /** Poll interval when idle; a NOTIFY on commit wakes the worker sooner. */
+  idlePollMs?: number;
+  log?: (line: string) => void;
+}
+
+/** One worker process: one run at a time; start more processes (or machines) to verify more in parallel. */
+export function startWorker(opts: WorkerOptions = {}): { id: string; stop: () => Promise<void>; done: Promise<void> } {
+  const id = opts.id ?? `${os.hostname()}-${process.pid}-${randomUUID().slice(0, 8)}`;
+  const log = opts.log ?? ((line: string) => console.log(`[worker ${id}] ${line}`));
+  const startedAt = new Date();
+  let stopping = false;
+  let current: string | null = null;
+  let wake: (() => void) | null = null;
+  const sleep = (ms: number) => new Promise<void>((resolve) => {
+    const t = setTimeout(() => { wake = null; resolve(); }, ms);
+    wake = () => { clearTimeout(t); wake = null; resolve(); };
+  });
+
+  const listener = new pg.Client({ connectionString: databaseUrl() });
+  listener.on("notification", () => wake?.());
+  listener.on("error", (err) => log(`listen connection lost (${err.message}); polling only`));
+
+  const timers: NodeJS.Timeout[] = [];
+  const every = (ms: number, fn: () => Promise<unknown>) =>
+    timers.push(setInterval(() => { fn().catch((err: Error) => log(`background step failed: ${err.message}`)); }, ms));
+
+  const done = (async () => {
+    const em = await getEm();
+    await beat(em, id, null, startedAt);
+    await listener.connect().then(() => listener.query(`LISTEN ${RUN_CHANNEL}`)).catch((err: Error) => log(`no LISTEN (${err.message}); polling only`));
+    every(5000, async () => beat(await getEm(), id, current, startedAt));
+    every(10_000, async () => { const n = await reapExpired(await getEm()); if (n) log(`${n} run(s) ended as error after their last attempt`); });
+    const stale = await enqueueStaleHeads(await getEm(), { teamIds: opts.teamIds });
+    if (stale.queued) log(`queued ${stale.queued} stale or unchecked head(s) for verification`);
+    log("ready");
+    while (!stopping) {
+      try {
+        const r = await processNext(id, { teamIds: opts.teamIds, onClaim: (runId) => { current = runId; } });
+        current = null;
+        if (r.outcome !== "idle") log(`run ${r.runId}: ${r.outcome}`);
+        else await sleep(opts.idlePollMs ?? 1000);
+      } catch (err) {
+        current = null;
+        log(`error: ${(err as Error).message}`);
+        await sleep(2000);
+      }
+    }
+  })();
+
+  const stop = async () => {
+    stopping = true;
+    wake?.();
+    for (const t of timers) clearInterval(t);
+    const em = await getEm();
+    if (current) await releaseRun(em, current, id).catch(() => undefined);
+    await forget(em, id).catch(() => undefined);
+    await listener.end().catch(() => undefined);
+  };
+  return { id, stop, done };
+}
