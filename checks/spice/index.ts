@@ -5,6 +5,7 @@ import { parseRawFile, type RawPlot } from "./raw-file";
 import { runNgspice } from "./run-ngspice";
 import { SpiceError, type ComplexVector, type SimOptions, type SimRequest, type SimResult } from "./types";
 import { SPICE_RUNNER_VERSION, ngspiceVersion } from "./version";
+import { ENGINE_VERSION } from "../version";
 
 export { SpiceError, ngspiceVersion, parseRawFile, defaultCacheDir, defaultModelsDir };
 export { sanitizeNetlist } from "./sanitize";
@@ -24,7 +25,7 @@ export function writeDeck(req: SimRequest, modelsDir?: string): string {
 export function simulate(req: SimRequest, opts: SimOptions = {}): SimResult {
   const t0 = performance.now();
   const deck = writeDeck(req, opts.modelsDir);
-  const key = cacheKey(deck, ngspiceVersion(), `${opts.engineVersion ?? ""}/${SPICE_RUNNER_VERSION}`);
+  const key = cacheKey(deck, ngspiceVersion(), `${opts.engineVersion ?? ENGINE_VERSION}/${SPICE_RUNNER_VERSION}`);
   const dir = opts.cacheDir ?? defaultCacheDir();
   const hit = opts.noCache ? null : readCached(dir, key);
   const raw = hit ?? runNgspice(deck, { timeoutMs: opts.timeoutMs, circuitOffset: circuitOffset(req) }).raw;

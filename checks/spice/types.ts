@@ -15,7 +15,7 @@ export type SimOptions = {
   noCache?: boolean;
   modelsDir?: string;     // default ASSAY_MODELS_DIR or content/models under the repo root
   timeoutMs?: number;     // wall clock for one ngspice run, default 20 s
-  engineVersion?: string; // folded into the cache key so an engine bump reruns simulations
+  engineVersion?: string; // folded into the cache key (default ENGINE_VERSION) so an engine bump reruns simulations
 };
 
 export type ComplexVector = { re: Float64Array; im: Float64Array };
