@@ -13,8 +13,8 @@ export const dynamic = "force-dynamic";
 export const GET = route(async (req) => {
   const query = searchQuerySchema.parse(queryObject(req.url));
   const caller = await callerFromRequest(req);
-  const { items, nextCursor, estimatedTotal } = await searchBlocks(caller, query);
-  return Response.json({ items, nextCursor, estimatedTotal }, { headers: { ...noStore, Vary: "Authorization, Cookie" } });
+  const { items, nextCursor, estimatedTotal, facets } = await searchBlocks(caller, query);
+  return Response.json({ items, nextCursor, estimatedTotal, facets }, { headers: { ...noStore, Vary: "Authorization, Cookie" } });
 });
 
 export const POST = route(async (req) => {
