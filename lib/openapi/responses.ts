@@ -113,6 +113,9 @@ export const searchResultSchema = z.object({
   items: z.array(blockSummarySchema),
   nextCursor: z.string().nullable(),
   estimatedTotal: z.number().int(),
+  facets: z
+    .record(z.string(), z.record(z.string(), z.number().int()))
+    .meta({ description: "Counts per value of category, badge, tags, team and approved over all matches" }),
 }).openapi("SearchResult");
 
 export const createdSchema = z.object({ slug: z.string(), version: z.number().int(), run: runRefSchema }).openapi("Created");

@@ -420,6 +420,12 @@ export interface components {
         };
         SearchResult: {
             estimatedTotal: number;
+            /** @description Counts per value of category, badge, tags, team and approved over all matches */
+            facets: {
+                [key: string]: {
+                    [key: string]: number;
+                };
+            };
             items: components["schemas"]["BlockSummary"][];
             nextCursor: string | null;
         };
