@@ -28,6 +28,12 @@ function errorReport(text: string, message: string): Report {
   return report;
 }
 
+/** Optional: start the sandbox children now so the first preview does not wait for them to load. */
+export function warmEngine(): void {
+  previewLane.warm();
+  verifyLane.warm();
+}
+
 /** Full verification in the sandbox child. Never throws for bad input: errors go in the report. */
 export async function verifyBlock(
   text: string,

@@ -40,8 +40,8 @@ export function evaluateBlock(text: string, opts: EvaluateOptions = {}): { repor
           sim?.nodes.add(node);
           return opts.backend!.measure(name, result, node, args);
         },
-        window: (i, w) => sims[i].windows.push(w),
-        mark: (i, m) => sims[i].marks.push(m),
+        window: (i, w) => pushOnce(sims[i].windows, w),
+        mark: (i, m) => pushOnce(sims[i].marks, m),
       }
     : noSimulation;
 
@@ -66,4 +66,10 @@ export function evaluateBlock(text: string, opts: EvaluateOptions = {}): { repor
     if (w) waveforms.push({ ...w, windows: [...w.windows, ...s.windows], marks: [...w.marks, ...s.marks] });
   }
   return { report, waveforms };
+}
+
+// The same window measured twice (peak for two checks) is drawn once.
+function pushOnce<T>(list: T[], item: T) {
+  const key = JSON.stringify(item);
+  if (!list.some((x) => JSON.stringify(x) === key)) list.push(item);
 }

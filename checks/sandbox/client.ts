@@ -19,6 +19,11 @@ export class SandboxLane {
 
   constructor(private memoryMb: number) {}
 
+  /** Start the child ahead of the first request (it takes about a second to load). */
+  warm(): void {
+    if (!this.child) this.start().then(() => this.idle(), () => undefined);
+  }
+
   request(op: string, text: string, opts: unknown, timeoutMs: number): Promise<Reply> {
     const run = this.queue.then(() => this.send(op, text, opts, timeoutMs));
     this.queue = run.catch(() => undefined);

@@ -22,6 +22,7 @@ export type ScriptRun = {
 };
 
 function message(e: unknown): string {
+  if (e instanceof RangeError && /call stack/i.test(e.message)) return `the script recursed too deep (${e.message})`;
   const m = e instanceof Error ? e.message : String(e);
   return m.replace(/^Error: /, "");
 }
