@@ -1,0 +1,59 @@
+import type { NextAuthOptions } from "next-auth";
+import CredentialsProvider from "next-auth/providers/credentials";
+import { withEm } from "@/lib/db/orm";
+import { acceptInvitation } from "./invitations";
+import { clientIp } from "./rate-limit";
+import { authorizePassword, redeemSignInLink } from "./sign-in";
+import { SESSION_MAX_AGE_S, appUrl, authSecret, useSecureCookies } from "./config";
+
+// next-auth reads NEXTAUTH_URL for its own links; APP_URL is the one setting people change.
+process.env.NEXTAUTH_URL ??= appUrl();
+
+const str = (v: unknown): string => (typeof v === "string" ? v : "");
+type Req = { headers?: Record<string, string | string[] | undefined> };
+
+/**
+ * Three ways in, all ending in a JWT session that holds only the user id (roles are read from the
+ * database per request): a password, a one-time sign-in link, an invitation link.
+ * A thrown error's message is what the sign-in form shows.
+ */
+export function authOptions(): NextAuthOptions {
+  return {
+    secret: authSecret(),
+    session: { strategy: "jwt", maxAge: SESSION_MAX_AGE_S, updateAge: 24 * 3600 },
+    useSecureCookies: useSecureCookies(),
+    pages: { signIn: "/sign-in", error: "/sign-in", signOut: "/sign-out" },
+    providers: [
+      CredentialsProvider({
+        id: "password",
+        name: "E-mail and password",
+        credentials: { email: { type: "email" }, password: { type: "password" } },
+        authorize: (c, req) =>
+          withEm((em) => authorizePassword(em, str(c?.email), str(c?.password), clientIp((req as Req).headers))),
+      }),
+      CredentialsProvider({
+        id: "link",
+        name: "Sign-in link",
+        credentials: { token: { type: "text" } },
+        authorize: (c, req) => withEm((em) => redeemSignInLink(em, str(c?.token), clientIp((req as Req).headers))),
+      }),
+      CredentialsProvider({
+        id: "invitation",
+        name: "Invitation",
+        credentials: { token: { type: "text" }, name: { type: "text" }, password: { type: "password" } },
+        authorize: (c) =>
+          withEm((em) => acceptInvitation(em, str(c?.token), { name: str(c?.name) || undefined, password: str(c?.password) || undefined })),
+      }),
+    ],
+    callbacks: {
+      jwt({ token, user }) {
+        if (user) token.sub = user.id;
+        return token;
+      },
+      session({ session, token }) {
+        if (session.user) (session.user as { id?: string }).id = token.sub;
+        return session;
+      },
+    },
+  };
+}

@@ -1,0 +1,54 @@
+import { getToken } from "next-auth/jwt";
+import { withEm } from "@/lib/db/orm";
+import { AppError } from "@/lib/errors";
+import { findTokenCaller } from "@/lib/tokens/tokens";
+import { anonymous, type Caller } from "./caller";
+import { loadCaller } from "./load-caller";
+import { authSecret, sessionCookieName, useSecureCookies } from "./config";
+
+/** Cookie header → { name: value }; values stay as sent (next-auth's JWT is base64url, nothing to unescape). */
+export function parseCookies(header: string | null | undefined): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const part of (header ?? "").split(";")) {
+    const i = part.indexOf("=");
+    if (i <= 0) continue;
+    out[part.slice(0, i).trim()] = part.slice(i + 1).trim();
+  }
+  return out;
+}
+
+/** The user id in a next-auth session cookie, or null when there is none or it does not decode with our secret. */
+export async function sessionUserId(cookieHeader: string | null | undefined): Promise<number | null> {
+  const cookies = parseCookies(cookieHeader);
+  const name = sessionCookieName();
+  if (!Object.keys(cookies).some((k) => k.startsWith(name))) return null;
+  const jwt = await getToken({
+    req: { cookies, headers: {} } as never,
+    secret: authSecret(),
+    secureCookie: useSecureCookies(),
+    cookieName: name,
+  });
+  const id = Number(jwt?.sub);
+  return Number.isInteger(id) && id > 0 ? id : null;
+}
+
+/**
+ * Who sent this request: a Bearer API token, else the session cookie, else anonymous.
+ * Works on any WHATWG Request (route handlers, tests), not only inside Next.
+ */
+export async function callerFromRequest(req: Request): Promise<Caller> {
+  const auth = req.headers.get("authorization");
+  if (auth) {
+    const m = /^Bearer\s+(\S+)\s*$/i.exec(auth);
+    if (!m) throw new AppError("unauthenticated", "the Authorization header must be 'Bearer <token>'");
+    const token = m[1];
+    return withEm((em) => findTokenCaller(em, token));
+  }
+  return callerFromCookieHeader(req.headers.get("cookie"));
+}
+
+export async function callerFromCookieHeader(cookieHeader: string | null | undefined): Promise<Caller> {
+  const userId = await sessionUserId(cookieHeader);
+  if (userId === null) return anonymous;
+  return withEm((em) => loadCaller(em, userId));
+}

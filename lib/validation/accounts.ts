@@ -1,0 +1,33 @@
+import { z } from "zod";
+import { ROLES } from "@/entities";
+
+// Form and CLI input for accounts, teams and tokens; services re-check rights, these only check shape.
+export const email = z.string().trim().toLowerCase().email("Enter an e-mail address.").max(320);
+export const password = z.string().min(10, "Use at least 10 characters.").max(200, "Use at most 200 characters.");
+export const personName = z.string().trim().min(1, "Enter your name.").max(200);
+export const role = z.enum(ROLES);
+export const teamSlug = z.string().trim().regex(/^[a-z0-9-]{1,64}$/, "Not a team slug.");
+
+export const passwordSignIn = z.object({ email, password: z.string().min(1, "Enter your password.").max(200) });
+export const linkRequest = z.object({ email });
+export const invitation = z.object({ teamSlug, email, role });
+export const acceptInvitation = z.object({
+  token: z.string().min(20).max(100),
+  name: personName.optional(),
+  password: password.optional(),
+});
+export const profileName = z.object({ name: personName });
+export const passwordChange = z
+  .object({ current: z.string().max(200), next: password, repeat: z.string() })
+  .refine((v) => v.next === v.repeat, { message: "The two new passwords differ.", path: ["repeat"] });
+
+export const TOKEN_EXPIRY_DAYS = [7, 30, 90, 365, 0] as const; // 0 = never
+export const newToken = z.object({
+  name: z.string().trim().min(1, "Name the token, e.g. after the script that uses it.").max(100),
+  teamSlug,
+  scope: z.enum(["read", "write"]),
+  expiresInDays: z.coerce.number().int().refine((d) => (TOKEN_EXPIRY_DAYS as readonly number[]).includes(d), "Pick an expiry."),
+});
+
+/** First message of a zod error, for a form's one-line answer. */
+export const firstIssue = (e: z.ZodError): string => e.issues[0]?.message ?? "Invalid input.";
