@@ -1,7 +1,7 @@
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { BlockSchema, OutboxEventSchema } from "@/entities";
-import { blocksIndex, type BlockDocument } from "./client";
-import { blockDocument } from "./document";
+import { blocksIndex } from "./client";
+import { blockDocuments } from "./document";
 import { ensureBlocksIndex } from "./settings";
 
 /**
@@ -15,13 +15,7 @@ export async function processIndexBacklog(em: EntityManager, limit = 200): Promi
   await ensureBlocksIndex();
   const slugs = [...new Set(events.map((e) => e.payload.slug).filter((s): s is string => typeof s === "string"))];
   const blocks = await em.find(BlockSchema, { slug: { $in: slugs } }, { populate: ["head", "team"] });
-  const upserts: BlockDocument[] = [];
-  const removals: number[] = [];
-  for (const block of blocks) {
-    const doc = await blockDocument(em, block);
-    if (doc) upserts.push(doc);
-    else removals.push(block.id);
-  }
+  const { docs: upserts, removals } = await blockDocuments(em, blocks);
   const index = blocksIndex();
   if (upserts.length) await index.addDocuments(upserts).waitTask({ timeout: 30_000 });
   if (removals.length) await index.deleteDocuments(removals).waitTask({ timeout: 30_000 });
@@ -37,11 +31,7 @@ export async function reindexAll(em: EntityManager): Promise<number> {
   const index = blocksIndex();
   await index.deleteAllDocuments().waitTask({ timeout: 60_000 });
   const blocks = await em.find(BlockSchema, { archived: false }, { populate: ["head", "team"] });
-  const docs: BlockDocument[] = [];
-  for (const block of blocks) {
-    const doc = await blockDocument(em, block);
-    if (doc) docs.push(doc);
-  }
+  const { docs } = await blockDocuments(em, blocks);
   for (let i = 0; i < docs.length; i += 500) {
     await index.addDocuments(docs.slice(i, i + 500)).waitTask({ timeout: 60_000 });
   }
