@@ -1,4 +1,4 @@
-import { EntitySchema } from "@mikro-orm/core";
+import { EntitySchema, type Opt } from "@mikro-orm/core";
 import type { Team } from "./team.entity";
 import type { User } from "./user.entity";
 
@@ -16,7 +16,7 @@ export interface ApiToken {
   expiresAt: Date | null;
   lastUsedAt: Date | null;
   revokedAt: Date | null;
-  createdAt: Date;
+  createdAt: Opt<Date>;
 }
 
 export const ApiTokenSchema = new EntitySchema<ApiToken>({

@@ -1,4 +1,4 @@
-import { EntitySchema } from "@mikro-orm/core";
+import { EntitySchema, type Opt } from "@mikro-orm/core";
 import type { Block } from "./block.entity";
 import type { User } from "./user.entity";
 
@@ -12,7 +12,7 @@ export interface Attachment {
   sha256: string;
   bytes: Buffer;
   uploadedBy: User;
-  createdAt: Date;
+  createdAt: Opt<Date>;
 }
 
 export const AttachmentSchema = new EntitySchema<Attachment>({

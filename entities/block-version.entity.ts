@@ -1,4 +1,4 @@
-import { EntitySchema } from "@mikro-orm/core";
+import { EntitySchema, type Opt } from "@mikro-orm/core";
 import type { Block } from "./block.entity";
 import type { User } from "./user.entity";
 
@@ -21,7 +21,7 @@ export interface BlockVersion {
   contentHash: string;
   author: User;
   message: string;
-  createdAt: Date;
+  createdAt: Opt<Date>;
 }
 
 export const BlockVersionSchema = new EntitySchema<BlockVersion>({

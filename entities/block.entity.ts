@@ -1,4 +1,4 @@
-import { EntitySchema } from "@mikro-orm/core";
+import { EntitySchema, type Opt } from "@mikro-orm/core";
 import type { BlockVersion } from "./block-version.entity";
 import type { Team } from "./team.entity";
 
@@ -20,8 +20,8 @@ export interface Block {
   head: BlockVersion | null;
   forkedFrom: BlockVersion | null;
   archived: boolean;
-  createdAt: Date;
-  updatedAt: Date;
+  createdAt: Opt<Date>;
+  updatedAt: Opt<Date>;
 }
 
 export const BlockSchema = new EntitySchema<Block>({

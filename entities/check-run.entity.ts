@@ -1,4 +1,4 @@
-import { EntitySchema } from "@mikro-orm/core";
+import { EntitySchema, type Opt } from "@mikro-orm/core";
 import type { BlockVersion } from "./block-version.entity";
 
 export type RunStatus = "queued" | "running" | "done" | "error";
@@ -20,7 +20,7 @@ export interface CheckRun {
   /** The worker holding the run and until when; an expired lease means its worker died (lib/runs/lease.ts). */
   leasedBy?: string | null;
   leaseUntil?: Date | null;
-  createdAt: Date;
+  createdAt: Opt<Date>;
   startedAt: Date | null;
   finishedAt: Date | null;
 }

@@ -1,4 +1,4 @@
-import { EntitySchema } from "@mikro-orm/core";
+import { EntitySchema, type Opt } from "@mikro-orm/core";
 import type { Role } from "./membership.entity";
 import type { Team } from "./team.entity";
 import type { User } from "./user.entity";
@@ -13,7 +13,7 @@ export interface Invitation {
   invitedBy: User;
   expiresAt: Date;
   acceptedAt: Date | null;
-  createdAt: Date;
+  createdAt: Opt<Date>;
 }
 
 export const InvitationSchema = new EntitySchema<Invitation>({

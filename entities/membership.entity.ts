@@ -1,4 +1,4 @@
-import { EntitySchema } from "@mikro-orm/core";
+import { EntitySchema, type Opt } from "@mikro-orm/core";
 import type { Team } from "./team.entity";
 import type { User } from "./user.entity";
 
@@ -10,7 +10,7 @@ export interface Membership {
   user: User;
   team: Team;
   role: Role;
-  createdAt: Date;
+  createdAt: Opt<Date>;
 }
 
 export const MembershipSchema = new EntitySchema<Membership>({

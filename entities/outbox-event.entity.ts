@@ -1,4 +1,4 @@
-import { EntitySchema } from "@mikro-orm/core";
+import { EntitySchema, type Opt } from "@mikro-orm/core";
 
 export type OutboxKind =
   | "version.created"
@@ -13,7 +13,7 @@ export interface OutboxEvent {
   id: number;
   kind: OutboxKind;
   payload: Record<string, unknown>;
-  createdAt: Date;
+  createdAt: Opt<Date>;
   indexedAt: Date | null;
   notifiedAt: Date | null;
 }

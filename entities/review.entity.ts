@@ -1,4 +1,4 @@
-import { EntitySchema } from "@mikro-orm/core";
+import { EntitySchema, type Opt } from "@mikro-orm/core";
 import type { BlockVersion } from "./block-version.entity";
 import type { User } from "./user.entity";
 
@@ -12,7 +12,7 @@ export interface Review {
   requestedBy: User | null;
   decision: ReviewDecision;
   comment: string;
-  createdAt: Date;
+  createdAt: Opt<Date>;
 }
 
 export const ReviewSchema = new EntitySchema<Review>({

@@ -1,4 +1,4 @@
-import { EntitySchema } from "@mikro-orm/core";
+import { EntitySchema, type Opt } from "@mikro-orm/core";
 
 // One-time e-mail sign-in links; redeemed through a Credentials provider with JWT sessions.
 export interface SignInLink {
@@ -7,7 +7,7 @@ export interface SignInLink {
   tokenHash: string;
   expiresAt: Date;
   usedAt: Date | null;
-  createdAt: Date;
+  createdAt: Opt<Date>;
 }
 
 export const SignInLinkSchema = new EntitySchema<SignInLink>({

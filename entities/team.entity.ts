@@ -1,10 +1,10 @@
-import { EntitySchema } from "@mikro-orm/core";
+import { EntitySchema, type Opt } from "@mikro-orm/core";
 
 export interface Team {
   id: number;
   slug: string;
   name: string;
-  createdAt: Date;
+  createdAt: Opt<Date>;
 }
 
 export const TeamSchema = new EntitySchema<Team>({

@@ -1,11 +1,11 @@
-import { EntitySchema } from "@mikro-orm/core";
+import { EntitySchema, type Opt } from "@mikro-orm/core";
 
 export interface User {
   id: number;
   email: string;
   name: string;
   passwordHash: string | null;
-  createdAt: Date;
+  createdAt: Opt<Date>;
 }
 
 export const UserSchema = new EntitySchema<User>({

@@ -1,4 +1,4 @@
-import { EntitySchema } from "@mikro-orm/core";
+import { EntitySchema, type Opt } from "@mikro-orm/core";
 import type { Block } from "./block.entity";
 import type { User } from "./user.entity";
 
@@ -6,7 +6,7 @@ export interface Watch {
   id: number;
   user: User;
   block: Block;
-  createdAt: Date;
+  createdAt: Opt<Date>;
 }
 
 export const WatchSchema = new EntitySchema<Watch>({

@@ -1,14 +1,14 @@
 import { getEm } from "@/lib/db/orm";
+import { processNotifications } from "@/lib/mail/notify";
 import { processIndexBacklog } from "@/lib/search/indexer";
 
 type Consumer = { name: string; pass: () => Promise<number> };
 
-const consumers: Consumer[] = [{ name: "search index", pass: async () => processIndexBacklog(await getEm()) }];
-
-/** Register another consumer of the outbox (the mailer does). */
-export function addConsumer(c: Consumer): void {
-  consumers.push(c);
-}
+// Each consumer marks its own column on the outbox rows, so one being down never holds up the other.
+const consumers: Consumer[] = [
+  { name: "search index", pass: async () => processIndexBacklog(await getEm()) },
+  { name: "mail", pass: async () => processNotifications(await getEm()) },
+];
 
 /**
  * Poll each consumer until stopped. A consumer whose service is down keeps its events pending and is retried

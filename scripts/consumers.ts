@@ -1,7 +1,7 @@
 import { closeOrm } from "../lib/db/orm";
 import { runConsumers } from "../lib/outbox-consumers";
 
-// Keeps the search index (and, once registered, the mail notifications) in step with the outbox.
+// Keeps the search index and the mail notifications in step with the outbox.
 const stop = runConsumers();
 console.log("[assay] outbox consumers running");
 for (const sig of ["SIGINT", "SIGTERM"] as const) {

@@ -15,6 +15,8 @@ export ASSAY_ROOT="$ROOT"
 export VITE_CONFIG_NATIVE_IGNORE_WARNING=true
 
 status=0
+say "type check"
+npx tsc --noEmit -p . || status=$?
 say "unit and integration tests"
 npx vitest run || status=$?
 if [ -f vitest.e2e.config.mts ] && [ "$status" -eq 0 ]; then

@@ -77,12 +77,3 @@ export async function processNotifications(em: EntityManager, limit = 20): Promi
     limit,
   );
 }
-
-/** For lib/outbox-consumers.ts: `addConsumer(mailConsumer)`. */
-export const mailConsumer = {
-  name: "mail",
-  pass: async (): Promise<number> => {
-    const { getEm } = await import("@/lib/db/orm");
-    return processNotifications(await getEm());
-  },
-};
