@@ -1,0 +1,41 @@
+import type { Report } from "@/checks";
+
+type Check = Report["checks"][number];
+
+const VERDICT: Record<Check["status"], { word: string; mark: string; tone: string }> = {
+  pass: { word: "passes", mark: "✓", tone: "text-verdigris" },
+  fail: { word: "fails", mark: "✗", tone: "text-brick" },
+  error: { word: "could not be evaluated", mark: "!", tone: "text-plum" },
+  skipped: { word: "waits for a simulation", mark: "…", tone: "text-slate" },
+};
+
+const corner = (c: Record<string, string>) => Object.entries(c).map(([k, v]) => `${k} ${v}`).join(", ");
+
+/** Each check as a sentence: its label and verdict, the comparison with its numbers, the worst corner beneath. */
+export function CheckList({ checks, lines }: { checks: Check[]; lines?: boolean }) {
+  if (checks.length === 0) return <p className="text-sm text-graphite">The script states no checks.</p>;
+  return (
+    <ol className="space-y-2" data-testid="check-list">
+      {checks.map((c, i) => {
+        const v = VERDICT[c.status] ?? VERDICT.error;
+        return (
+          <li key={`${c.label}-${i}`} className="rounded border border-rule/70 bg-panel px-3 py-2 text-sm" data-status={c.status}>
+            <p>
+              <span className={`mr-1 font-mono font-semibold ${v.tone}`} aria-hidden>{v.mark}</span>
+              <span className="font-medium">{c.label}</span>{" "}
+              <span className={v.tone}>{v.word}</span>
+              {c.simulated ? <span className="ml-1 text-xs text-graphite">(simulated)</span> : null}
+              {lines && c.line ? <span className="ml-1 text-xs text-graphite">line {c.line}</span> : null}
+            </p>
+            {c.detail ? <p className="mt-0.5 break-words font-mono text-xs text-graphite">{c.detail}</p> : null}
+            {c.worst ? (
+              <p className="mt-0.5 break-words text-xs text-graphite">
+                worst corner {corner(c.worst.corner)}: <span className="font-mono">{c.worst.detail}</span>
+              </p>
+            ) : null}
+          </li>
+        );
+      })}
+    </ol>
+  );
+}

@@ -1,0 +1,12 @@
+import { splitDecimal } from "./eng";
+
+/** A value aligned on its decimal point: the integer part right-aligned in a fixed width. */
+export function Decimal({ text, intWidth = 4 }: { text: string; intWidth?: number }) {
+  const { int, frac } = splitDecimal(text);
+  return (
+    <span className="whitespace-nowrap font-mono tabular-nums">
+      <span className="inline-block text-right" style={{ width: `${intWidth}ch` }}>{int}</span>
+      <span>{frac}</span>
+    </span>
+  );
+}

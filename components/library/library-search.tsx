@@ -1,0 +1,69 @@
+"use client";
+import { usePathname, useRouter } from "next/navigation";
+import { useEffect, useState } from "react";
+import { BlockTable } from "@/components/block-table";
+import { EmptyState } from "@/components/empty-state";
+import { useSearchBlocks, type SearchAnswer, type SearchFilters } from "@/lib/queries/search-blocks";
+import { FacetGroup } from "./facet-group";
+import { useDebounced } from "./use-debounced";
+
+const FACETS: { facet: string; key: keyof SearchFilters }[] = [
+  { facet: "category", key: "category" }, { facet: "badge", key: "badge" }, { facet: "tags", key: "tag" },
+  { facet: "team", key: "team" }, { facet: "approved", key: "approved" },
+];
+
+/** Search as you type: debounced, the previous results stay on screen while the next ones load. */
+export function LibrarySearch({ initial, initialFilters }: { initial: SearchAnswer | null; initialFilters: SearchFilters }) {
+  const router = useRouter();
+  const pathname = usePathname();
+  const [q, setQ] = useState(initialFilters.q ?? "");
+  const [filters, setFilters] = useState<SearchFilters>({ ...initialFilters, q: undefined });
+  const debouncedQ = useDebounced(q.trim(), 200);
+  const current = { ...filters, q: debouncedQ || undefined };
+  const query = useSearchBlocks(current);
+  const data = query.data ?? initial;
+
+  // Keep the address in step with the search, so a result list can be shared and the back button returns to it.
+  const qs = new URLSearchParams(Object.entries(current).filter((e): e is [string, string] => Boolean(e[1]))).toString();
+  useEffect(() => {
+    router.replace(qs ? `${pathname}?${qs}` : pathname, { scroll: false });
+  }, [qs, pathname, router]);
+
+  const set = (key: keyof SearchFilters) => (v: string | undefined) => setFilters((f) => ({ ...f, [key]: v }));
+
+  return (
+    <section aria-label="Search the library" className="grid gap-6 md:grid-cols-[13rem_1fr]">
+      <div className="md:col-span-2">
+        <label htmlFor="library-q" className="mb-1 block text-sm font-medium">Search blocks</label>
+        <div className="flex flex-wrap gap-2">
+          <input id="library-q" type="search" value={q} onChange={(e) => setQ(e.target.value)} autoComplete="off"
+            placeholder="limiter, Wien bridge, 1 kHz low-pass…" aria-describedby="library-count"
+            className="min-w-0 flex-1 rounded border border-rule bg-panel px-3 py-2 text-base shadow-sm" />
+          <label htmlFor="library-sort" className="sr-only">Sort</label>
+          <select id="library-sort" value={filters.sort ?? ""} onChange={(e) => set("sort")(e.target.value || undefined)}
+            className="rounded border border-rule bg-panel px-2 py-2 text-sm">
+            <option value="">Best match</option>
+            <option value="updated">Last change</option>
+            <option value="title">Title</option>
+          </select>
+        </div>
+        <p id="library-count" className="mt-1 text-xs text-graphite" aria-live="polite">
+          {query.isError ? `Search failed: ${query.error.message}` : data ? `${data.estimatedTotal} block${data.estimatedTotal === 1 ? "" : "s"}` : "Searching…"}
+          {query.isFetching ? " · updating" : ""}
+        </p>
+      </div>
+      <aside aria-label="Narrow the results" className="grid grid-cols-2 gap-4 md:block md:space-y-4">
+        {FACETS.map(({ facet, key }) => (
+          <FacetGroup key={facet} name={facet} counts={data?.facets?.[facet] ?? {}} value={filters[key]} onChange={set(key)} />
+        ))}
+      </aside>
+      <div className={query.isPlaceholderData ? "opacity-70 transition-opacity" : ""}>
+        {data && data.items.length > 0 ? (
+          <BlockTable rows={data.items} caption="Search results" />
+        ) : data ? (
+          <EmptyState title="No block matches.">Try fewer words, or clear a filter on the left.</EmptyState>
+        ) : null}
+      </div>
+    </section>
+  );
+}

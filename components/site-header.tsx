@@ -1,0 +1,41 @@
+import Link from "next/link";
+import { getCaller } from "@/lib/auth/session";
+import { HeaderSearch } from "./header-search";
+import { Wordmark } from "./wordmark";
+
+const NAV = [
+  { href: "/", label: "Library" },
+  { href: "/reviews", label: "Reviews" },
+  { href: "/import", label: "Import" },
+  { href: "/team", label: "Team" },
+  { href: "/settings", label: "Settings" },
+];
+
+export async function SiteHeader() {
+  const caller = await getCaller();
+  return (
+    <header className="border-b border-rule bg-panel/80">
+      <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-2 sm:px-6">
+        <Link href="/" aria-label="Assay, the library" className="shrink-0"><Wordmark /></Link>
+        <nav aria-label="Main" className="order-3 w-full sm:order-none sm:w-auto">
+          <ul className="flex flex-wrap gap-x-4 gap-y-1 text-sm">
+            {NAV.map((n) => (
+              <li key={n.href}><Link href={n.href} className="text-graphite hover:text-copper-dark">{n.label}</Link></li>
+            ))}
+          </ul>
+        </nav>
+        <div className="ml-auto flex items-center gap-3 text-sm">
+          <HeaderSearch />
+          {caller.user ? (
+            <>
+              <span className="hidden text-graphite md:inline" data-testid="signed-in-as">{caller.user.name}</span>
+              <Link href="/sign-out" className="text-copper-dark hover:underline">Sign out</Link>
+            </>
+          ) : (
+            <Link href="/sign-in" className="rounded bg-copper px-3 py-1 font-medium text-white hover:bg-copper-dark">Sign in</Link>
+          )}
+        </div>
+      </div>
+    </header>
+  );
+}
