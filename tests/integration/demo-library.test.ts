@@ -1,0 +1,68 @@
+import { mkdtempSync, readdirSync, readFileSync, rmSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import { afterAll, describe, expect, it } from "vitest";
+import { parseBlock, verifyBlock } from "@/checks";
+
+// The demo library must verify end to end: each block's design equations, tolerance corners
+// and ngspice simulations (real ngspice, no cache from earlier runs). The expected results
+// come from the closed-form sources each block's note names; ngspice is the outside reference.
+const DIR = path.resolve(__dirname, "../../content/blocks");
+const BLOCKS = [
+  "diode-clamp-adc-input.md",
+  "mains-bias-rail-5v1.md",
+  "noninverting-gain-11.md",
+  "npn-current-sink-2ma.md",
+  "opamp-astable-100hz.md",
+  "opamp-soft-limiter.md",
+  "push-pull-buffer-class-ab.md",
+  "rc-highpass-ac-coupling.md",
+  "rc-lowpass-antialias.md",
+  "rc-phase-shift-oscillator.md",
+  "sallen-key-lowpass-unity.md",
+  "twin-t-notch-1k.md",
+  "wien-bridge-sine-1k.md",
+  "wien-bridge-under-gain.md",
+  "zener-clamp-5v1.md",
+  "zener-shunt-reference-5v1.md",
+];
+const CATEGORIES = ["oscillator", "limiter", "filter", "amplifier", "reference", "power", "interface", "other"];
+
+const cacheDir = mkdtempSync(path.join(tmpdir(), "assay-demo-cache-"));
+afterAll(() => rmSync(cacheDir, { recursive: true, force: true }));
+
+describe("demo library", () => {
+  it("holds exactly the listed blocks, with unique slugs matching their file names", () => {
+    expect(readdirSync(DIR).filter((f) => f.endsWith(".md")).sort()).toEqual(BLOCKS);
+    const slugs = BLOCKS.map((f) => {
+      const { block, errors } = parseBlock(readFileSync(path.join(DIR, f), "utf8"));
+      expect(errors, f).toEqual([]);
+      expect(CATEGORIES, f).toContain(block!.category);
+      return block!.slug;
+    });
+    expect(slugs).toEqual(BLOCKS.map((f) => f.replace(/\.md$/, "")));
+    expect(new Set(slugs).size).toBe(slugs.length);
+  });
+
+  it("carries cautions on every block marked with a hazard", () => {
+    const hazardous = BLOCKS.map((f) => parseBlock(readFileSync(path.join(DIR, f), "utf8")).block!).filter((b) => b.hazard.length > 0);
+    expect(hazardous.length).toBeGreaterThan(0);
+    for (const b of hazardous) {
+      expect(b.note, b.slug).toMatch(/Caution/);
+      expect(b.note, b.slug).toMatch(/codes/);
+    }
+  });
+
+  for (const file of BLOCKS) {
+    it(`${file} verifies`, async () => {
+      const text = readFileSync(path.join(DIR, file), "utf8");
+      const { report } = await verifyBlock(text, { simulate: true, cacheDir, timeoutMs: 60_000 });
+      const failing = report.checks.filter((c) => c.status !== "pass").map((c) => `${c.label}: ${c.status} ${c.detail}`);
+      expect({ status: report.status, failing, errors: report.errors }, file).toEqual({ status: "verified", failing: [], errors: [] });
+      // Each block both states a design equation and exercises ngspice.
+      expect(report.checks.some((c) => c.simulated), file).toBe(true);
+      expect(report.checks.some((c) => !c.simulated), file).toBe(true);
+      expect(report.simulations.length, file).toBeGreaterThan(0);
+    }, 120_000);
+  }
+});
