@@ -4,10 +4,13 @@ import { blockDocs, blockSettings } from "./search/fixtures";
 import { searchTarget, uniqueIndexUid, type SearchTarget } from "./search/target";
 
 // The contract between Assay and its search server, written against
-// Meilisearch's documented behaviour (Meilisearch documentation: "Filter
-// expression reference", "Typo tolerance", "Search API", "Tasks", "Errors" —
-// recalled from memory). It drives only the official client, so it runs
-// unchanged against a real Meilisearch: MEILI_URL=… MEILI_MASTER_KEY=… npx vitest run tests/integration/search-contract.test.ts
+// Meilisearch's documented behaviour: the Meilisearch documentation pages
+// "Typo tolerance settings" and "Typo tolerance vs fuzzy search"
+// (meilisearch.com/docs), "Concatenated and split queries"
+// (meilisearch.com/docs/learn/advanced/concat), and — from memory — "Filter
+// expression reference", "Search", "Tasks", "Documents" and "Errors" of the API
+// reference. It drives only the official client, so it runs unchanged against a
+// real Meilisearch: MEILI_URL=… MEILI_MASTER_KEY=… npx vitest run tests/integration/search-contract.test.ts
 
 let target: SearchTarget;
 let client: Meilisearch;
@@ -302,9 +305,10 @@ describe("filters", () => {
 });
 
 describe("typo tolerance and prefixes", () => {
-  // Meilisearch documentation, "Typo tolerance" (from memory): no typo for words
-  // under 5 letters, one from 5, two from 9; a swap of adjacent letters counts
-  // as one typo; a typo on the first letter counts as two.
+  // Meilisearch documentation, "Typo tolerance settings" and "Typo tolerance vs
+  // fuzzy search": no typo for words under 5 letters, one from 5, two from 9;
+  // a swap of adjacent letters counts as one typo (Damerau–Levenshtein); a
+  // typo on the first letter counts as two.
   it("allows no typo under 5 letters", async () => {
     expect(await found("gain")).toEqual([5]);
     expect(await found("gian")).toEqual([]);
@@ -334,6 +338,22 @@ describe("typo tolerance and prefixes", () => {
     expect(await found("bandg")).toEqual([4]);
     expect(await found("osc bridge", { matchingStrategy: "all" })).toEqual([]);
     expect(await found("bridge osc", { matchingStrategy: "all" })).toEqual([1]);
+  });
+});
+
+describe("concatenated and split words", () => {
+  // Meilisearch documentation, "Concatenated and split queries": consecutive
+  // query words are also searched joined, and a word is also searched as two
+  // words that must stand next to each other.
+  it("finds a joined word from its parts", async () => {
+    expect(await found("band gap")).toEqual([4]);
+  });
+
+  it("finds adjacent words from their concatenation", async () => {
+    expect(await found("lowpass filter", { matchingStrategy: "all" })).toEqual([3]);
+    expect(await found("phaseshift oscillator", { matchingStrategy: "all" })).toEqual([5]);
+    expect(await found("sensorinput rails", { matchingStrategy: "all" })).toEqual([2]);
+    expect(await found("sourcesine lamp", { matchingStrategy: "all" })).toEqual([]);
   });
 });
 

@@ -17,7 +17,7 @@ export function highlightText(text: string, o: HighlightOptions): string {
   for (const tok of tokenizeWithOffsets(text)) {
     let len = 0;
     for (const w of o.words) {
-      const typos = termTypos(w.word, tok.norm, allowedTypos(w.word, o.limits), w.prefix);
+      const typos = termTypos(w.word, tok.norm, Math.max(0, allowedTypos(w.word, o.limits) - (w.fewerTypos ?? 0)), w.prefix);
       if (typos === null) continue;
       const partial = w.prefix && tok.norm !== w.word && tok.norm.startsWith(w.word) && tok.text.length === tok.norm.length;
       len = Math.max(len, partial ? w.word.length : tok.text.length);

@@ -1,4 +1,5 @@
-import { flatten, type FlatDoc } from "./doc-values";
+import { flatten, searchableText, type FlatDoc } from "./doc-values";
+import { tokenize } from "./tokenize";
 import { errors, MeiliError } from "./errors";
 import { applySettings, defaultSettings, type IndexSettings } from "./settings";
 import { TermIndex, type TypoSettings } from "./term-index";
@@ -26,6 +27,7 @@ export class IndexState {
   readonly docs = new Map<string, Doc>();
   readonly flats = new Map<string, FlatDoc>();
   private fieldOrder: string[] = [];
+  private tokenCache = new Map<string, Map<string, string[]>>();
   terms: TermIndex;
 
   constructor(readonly uid: string, primaryKey: string | null = null, now = new Date().toISOString()) {
@@ -82,6 +84,7 @@ export class IndexState {
   }
 
   private rebuild() {
+    this.tokenCache.clear();
     this.terms = new TermIndex(this.searchFields());
     for (const [key, doc] of this.docs) this.terms.put(key, doc);
   }
@@ -124,6 +127,7 @@ export class IndexState {
       for (const [key, doc] of keyed) {
         const stored = mode === "update" && this.docs.has(key) ? { ...this.docs.get(key), ...doc } : doc;
         this.docs.set(key, stored);
+        this.tokenCache.delete(key);
         this.flats.set(key, flatten(stored));
         if (this.noteFields(stored)) newFields = true;
         if (!newFields || !this.settings.searchableAttributes.includes("*")) this.terms.put(key, stored);
@@ -141,6 +145,7 @@ export class IndexState {
     let n = 0;
     for (const key of keys) {
       if (!this.docs.delete(key)) continue;
+      this.tokenCache.delete(key);
       this.flats.delete(key);
       this.terms.remove(key);
       n++;
@@ -152,6 +157,7 @@ export class IndexState {
   clear(): number {
     const n = this.docs.size;
     this.docs.clear();
+    this.tokenCache.clear();
     this.flats.clear();
     this.rebuild();
     this.touch();
@@ -171,6 +177,15 @@ export class IndexState {
     if (this.docs.size > 0) throw new MeiliError(400, "index_primary_key_already_exists", `Index \`${this.uid}\`: Index already has a primary key: \`${this.primaryKey}\`.`);
     this.primaryKey = pk;
     this.touch();
+  }
+
+  // Words of one attribute of one document, kept until the document changes.
+  tokensOf(key: string, field: string): string[] {
+    let byField = this.tokenCache.get(key);
+    if (!byField) this.tokenCache.set(key, (byField = new Map()));
+    let tokens = byField.get(field);
+    if (!tokens) byField.set(field, (tokens = tokenize(searchableText(this.docs.get(key)!, field))));
+    return tokens;
   }
 
   getDocument(key: string): Doc {

@@ -143,7 +143,7 @@ async function documents(engine: Engine, uid: string, rest: string[], r: Request
     const body = objectBody(parseJson(await r.body()));
     if (body.filter === undefined) throw new MeiliError(400, "missing_document_filter", "Missing field `filter`");
     const idx = engine.indexes.get(uid);
-    if (idx) filterPredicate(idx, body.filter); // refuse an invalid filter now
+    if (idx) documentFilter(idx, body.filter); // refuse an invalid filter now
     return [202, engine.enqueue(uid, "documentDeletion", { kind: "deleteByFilter", filter: body.filter }, { providedIds: 0, deletedDocuments: null, originalFilter: JSON.stringify(body.filter) })];
   }
   if (rest.length === 1) {
@@ -158,8 +158,18 @@ async function documents(engine: Engine, uid: string, rest: string[], r: Request
   throw errors.notFound();
 }
 
+// The documents routes report filter mistakes under their own error code.
+function documentFilter(idx: ReturnType<Engine["index"]>, filter: unknown) {
+  try {
+    return filterPredicate(idx, filter);
+  } catch (e) {
+    if (e instanceof MeiliError && e.code === "invalid_search_filter") throw new MeiliError(400, "invalid_document_filter", e.message);
+    throw e;
+  }
+}
+
 function listDocuments(engine: Engine, uid: string, o: { offset: number; limit: number; fields?: string[]; filter?: unknown; idx: ReturnType<Engine["index"]> }) {
-  const pred = filterPredicate(o.idx, o.filter);
+  const pred = documentFilter(o.idx, o.filter);
   const keys = pred ? [...o.idx.flats].filter(([, f]) => pred(f)).map(([k]) => k) : [...o.idx.docs.keys()];
   const results = keys.slice(o.offset, o.offset + o.limit).map((k) => projectDocument(o.idx, o.idx.docs.get(k)!, o.fields));
   return { results, offset: o.offset, limit: o.limit, total: keys.length };

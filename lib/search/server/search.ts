@@ -7,8 +7,8 @@ import { formatValue } from "./highlight";
 import type { Doc, IndexState } from "./index-state";
 import type { SearchParams } from "./search-params";
 import { covers } from "./settings";
-import { queryWords } from "./tokenize";
-import type { WordHit } from "./term-index";
+import { queryWords, wordsWithConcatenations } from "./tokenize";
+import { matchQuery } from "./query-match";
 
 interface Candidate {
   key: string;
@@ -110,38 +110,16 @@ function rankingSteps(index: IndexState, sort: { attr: string; desc: boolean }[]
   return steps;
 }
 
-// Hits matching the query words under the matching strategy: "all" keeps
-// documents holding every word; "last" (the default) keeps documents holding
-// the first word and ranks them by how many leading words they hold, which is
-// what dropping words from the end yields; "frequency" keeps any word.
 function matchWords(index: IndexState, q: string, strategy: string): Candidate[] | null {
   const words = queryWords(q);
   if (words.length === 0) return null;
-  const typo = index.typoSettings();
-  const perWord: Map<string, WordHit>[] = words.map((w) => index.terms.match(w.word, w.prefix, typo));
   const seqOf = new Map<string, number>();
-  const out: Candidate[] = [];
   let seq = 0;
   for (const key of index.docs.keys()) seqOf.set(key, seq++);
-  const keys = strategy === "frequency" ? new Set(perWord.flatMap((m) => [...m.keys()])) : perWord[0].keys();
-  for (const key of keys) {
-    let matched = 0, typos = 0, rank = Infinity, exact = 0, freq = 0, leading = true;
-    for (const m of perWord) {
-      const hit = m.get(key);
-      if (!hit) { leading = false; continue; }
-      if (strategy !== "frequency" && !leading) continue;
-      matched++;
-      typos += hit.typos;
-      rank = Math.min(rank, hit.rank);
-      if (hit.exact) exact++;
-      freq += hit.freq;
-    }
-    if (strategy === "all" && matched < words.length) continue;
-    const s = seqOf.get(key);
-    if (s === undefined) continue;
-    out.push({ key, seq: s, words: matched, typos, rank, exact, freq });
-  }
-  return out;
+  return matchQuery(index, words, strategy).flatMap((m) => {
+    const s = seqOf.get(m.key);
+    return s === undefined ? [] : [{ ...m, seq: s }];
+  });
 }
 
 export function executeSearch(index: IndexState, p: SearchParams) {
@@ -204,7 +182,7 @@ function formatHit(index: IndexState, doc: Doc, p: SearchParams, q: string): Doc
   const toHighlight = p.attributesToHighlight ?? [];
   if (toHighlight.length === 0 && (p.attributesToCrop ?? []).length === 0) return hit;
   const typo = index.typoSettings();
-  const options = { words: queryWords(q), limits: typo, pre: p.highlightPreTag ?? "<em>", post: p.highlightPostTag ?? "</em>" };
+  const options = { words: wordsWithConcatenations(queryWords(q)), limits: typo, pre: p.highlightPreTag ?? "<em>", post: p.highlightPostTag ?? "</em>" };
   const formatted: Doc = {};
   for (const [k, v] of Object.entries(hit)) formatted[k] = formatValue(v, covers(toHighlight, k), options);
   return { ...hit, _formatted: formatted };

@@ -93,11 +93,12 @@ export class TermIndex {
   }
 
   // Vocabulary terms a query word reaches, with the typos each costs.
-  candidates(word: string, prefix: boolean, typo: TypoSettings): Map<string, number> {
-    const cacheKey = `${prefix ? "p" : "w"}:${word}`;
+  // `fewer` lowers the allowance: a concatenation of n query words gets n-1 typos less.
+  candidates(word: string, prefix: boolean, typo: TypoSettings, fewer = 0): Map<string, number> {
+    const cacheKey = `${prefix ? "p" : "w"}${fewer}:${word}`;
     const cached = this.candidateCache.get(cacheKey);
     if (cached) return cached;
-    let max = allowedTypos(word, typo);
+    let max = Math.max(0, allowedTypos(word, typo) - fewer);
     if (typo.disableOnWords.has(word) || (typo.disableOnNumbers && /^\d+$/.test(word))) max = 0;
     const out = new Map<string, number>();
     if (max === 0) {
@@ -118,9 +119,9 @@ export class TermIndex {
   }
 
   // Documents holding any of the word's candidate terms.
-  match(word: string, prefix: boolean, typo: TypoSettings): Map<string, WordHit> {
+  match(word: string, prefix: boolean, typo: TypoSettings, fewer = 0): Map<string, WordHit> {
     const hits = new Map<string, WordHit>();
-    for (const [term, typos] of this.candidates(word, prefix, typo)) {
+    for (const [term, typos] of this.candidates(word, prefix, typo, fewer)) {
       const postings = this.mini.postings(term);
       if (!postings) continue;
       for (const [fieldId, docs] of postings) {
@@ -143,5 +144,26 @@ export class TermIndex {
       }
     }
     return hits;
+  }
+
+  // Documents holding the exact term, with the attributes it occurs in.
+  occurrences(term: string): Map<string, string[]> {
+    const out = new Map<string, string[]>();
+    for (const [fieldId, docs] of this.mini.postings(term) ?? []) {
+      for (const shortId of docs.keys()) {
+        const key = this.mini.externalKey(shortId);
+        if (key === undefined) continue;
+        const list = out.get(key);
+        if (list) list.push(this.fieldRank[fieldId]);
+        else out.set(key, [this.fieldRank[fieldId]]);
+      }
+    }
+    return out;
+  }
+
+  documentFrequency(term: string): number {
+    let n = 0;
+    for (const docs of this.mini.postings(term)?.values() ?? []) n = Math.max(n, docs.size);
+    return n;
   }
 }

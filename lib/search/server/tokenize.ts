@@ -33,12 +33,25 @@ export function tokenize(text: string): string[] {
 export interface QueryWord {
   word: string;
   prefix: boolean;
+  fewerTypos?: number; // a concatenation of n query words allows n-1 typos less
 }
 
 // The last word is searched as a prefix unless the query ends with a separator
-// (Meilisearch: "prefix search on the last word").
+// (Meilisearch: "prefix search on the last word"); like Meilisearch, only the
+// first ten words of a query count.
 export function queryWords(q: string): QueryWord[] {
-  const words = tokenize(q);
-  const endsInWord = /[\p{L}\p{N}]$/u.test(q);
+  const all = tokenize(q);
+  const words = all.slice(0, 10);
+  const endsInWord = all.length <= 10 && /[\p{L}\p{N}]$/u.test(q);
   return words.map((word, i) => ({ word, prefix: i === words.length - 1 && endsInWord }));
+}
+
+// The query words plus the concatenations of 2 and 3 consecutive ones, which
+// Meilisearch also searches ("sallen key" finds "sallenkey").
+export function wordsWithConcatenations(words: QueryWord[]): QueryWord[] {
+  const out = [...words];
+  for (let i = 0; i < words.length; i++)
+    for (let len = 2; len <= 3 && i + len <= words.length; len++)
+      out.push({ word: words.slice(i, i + len).map((w) => w.word).join(""), prefix: words[i + len - 1].prefix, fewerTypos: len - 1 });
+  return out;
 }
