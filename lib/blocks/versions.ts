@@ -49,9 +49,13 @@ export async function addVersion(caller: Caller, slug: string, input: NewVersion
   try {
     return await em.transactional(async (tx) => {
       const conn = tx.getConnection();
-      const [locked] = await conn.execute<{ id: number; head: number | null }[]>(
-        `select b.id, v.number as head from blocks b left join block_versions v on v.id = b.head_id
-          where b.id = ? for update of b`, [block.id], "all", tx.getTransactionContext());
+      const ctx = tx.getTransactionContext();
+      await conn.execute(`select id from blocks where id = ? for update`, [block.id], "all", ctx);
+      // A separate statement after the lock: in READ COMMITTED it sees the version the previous holder committed
+      // (a join in the locking statement would still read the old snapshot of block_versions).
+      const [locked] = await conn.execute<{ head: number | null }[]>(
+        `select v.number as head from blocks b left join block_versions v on v.id = b.head_id where b.id = ?`,
+        [block.id], "all", ctx);
       const head = Number(locked?.head ?? 0);
       if (head !== base) throw stale(head);
       const fresh = await tx.findOneOrFail(BlockSchema, { id: block.id }, { populate: ["team", "head"], refresh: true });
