@@ -94,6 +94,8 @@ export class SandboxLane {
       const timer = setTimeout(() => {
         this.pending.delete(id);
         resolve({ id, ok: false, error: `the check run took longer than ${timeoutMs} ms and was stopped` });
+        // Forget the child at once: the next request must not reach it while it is dying.
+        if (this.child === child) [this.child, this.ready] = [null, null];
         child.kill("SIGKILL");
       }, timeoutMs);
       this.pending.set(id, { resolve, timer, timeoutMs });

@@ -28,7 +28,7 @@ export function simulate(req: SimRequest, opts: SimOptions = {}): SimResult {
   const key = cacheKey(deck, ngspiceVersion(), `${opts.engineVersion ?? ENGINE_VERSION}/${SPICE_RUNNER_VERSION}`);
   const dir = opts.cacheDir ?? defaultCacheDir();
   const hit = opts.noCache ? null : readCached(dir, key);
-  const raw = hit ?? runNgspice(deck, { timeoutMs: opts.timeoutMs, circuitOffset: circuitOffset(req) }).raw;
+  const raw = hit ?? runNgspice(deck, { timeoutMs: opts.timeoutMs, circuitOffset: circuitOffset(req), circuit: req.circuit }).raw;
   const result = toResult(req.analysis.kind, parseRawFile(raw));
   if (!hit && !opts.noCache) writeCached(dir, key, raw);
   return { ...result, ms: Math.round((performance.now() - t0) * 10) / 10, cached: hit !== null };

@@ -16,7 +16,10 @@ export type NgspiceRun = { raw: Buffer; log: string; ms: number };
  * clock kills it. An empty spinit keeps XSPICE code models (some read files) unloaded.
  * `spinit` lets the raw-reader test ask ngspice for its ASCII form of the same run.
  */
-export function runNgspice(deck: string, opts: { timeoutMs?: number; spinit?: string; circuitOffset?: number } = {}): NgspiceRun {
+export function runNgspice(
+  deck: string,
+  opts: { timeoutMs?: number; spinit?: string; circuitOffset?: number; circuit?: string } = {},
+): NgspiceRun {
   const timeoutMs = opts.timeoutMs ?? DEFAULT_TIMEOUT_MS;
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), "assay-spice-"));
   try {
@@ -38,13 +41,14 @@ export function runNgspice(deck: string, opts: { timeoutMs?: number; spinit?: st
     const log = `${r.stderr ?? ""}\n${r.stdout ?? ""}`;
     if (r.error && (r.error as NodeJS.ErrnoException).code === "ETIMEDOUT")
       throw new SpiceError(`ngspice did not finish within ${timeoutMs / 1000} s`);
+    if (r.error && (r.error as NodeJS.ErrnoException).code === "ENOBUFS") throw new SpiceError("ngspice printed more than 8 MB of messages");
     if (r.error) throw new SpiceError(`cannot run ngspice: ${r.error.message}`);
     if (r.signal === "SIGXCPU" || r.signal === "SIGKILL") throw new SpiceError(`ngspice used more than ${cpu} s of CPU`);
     if (r.signal === "SIGXFSZ") throw new SpiceError(`simulation output exceeds ${MAX_RAW_BYTES / 2 ** 20} MB`);
     const rawPath = path.join(dir, "out.raw");
     // ngspice warns on stderr and carries on; only a bad exit, no raw file or an aborted analysis fails.
     if (r.status !== 0 || !fs.existsSync(rawPath) || ABORTED.test(log))
-      throw ngspiceFailure(r.stderr ?? "", opts.circuitOffset ?? 0) ?? new SpiceError(`ngspice failed (exit ${r.status ?? r.signal}): ${lastLines(log)}`);
+      throw ngspiceFailure(r.stderr ?? "", opts.circuitOffset ?? 0, opts.circuit ?? "") ?? new SpiceError(`ngspice failed (exit ${r.status ?? r.signal}): ${lastLines(log)}`);
     return { raw: fs.readFileSync(rawPath), log, ms };
   } finally {
     fs.rmSync(dir, { recursive: true, force: true });
@@ -56,14 +60,26 @@ const NOISE = [/^Note: No compatibility mode/i, /^binary raw file/i, /^ascii raw
 const ABORTED = /simulation\(s\) aborted|timestep too small|analysis aborted/i;
 const FATAL = /error|cannot|can't find|undefined|unknown|too small|singular|aborted|not found|failed/i;
 
-function ngspiceFailure(stderr: string, offset: number): SpiceError | null {
-  const lines = stderr.split("\n").map((l) => l.trim()).filter((l) => l && !NOISE.some((n) => n.test(l)));
+function ngspiceFailure(stderr: string, offset: number, circuit: string): SpiceError | null {
+  const lines = [...new Set(stderr.split("\n").map((l) => l.trim()).filter((l) => l && !NOISE.some((n) => n.test(l))))];
   if (!lines.some((l) => FATAL.test(l))) return null;
-  const at = lines.map((l) => /^Netlist line no\.\s*(\d+)/i.exec(l)).find(Boolean);
+  const at = lines.map((l) => /^(?:Netlist line no\.|Error on line)\s*(\d+)/i.exec(l)).find(Boolean);
   const deckLine = at ? Number(at[1]) : undefined;
-  const line = deckLine !== undefined && deckLine > offset ? deckLine - offset : undefined;
-  const message = lines.filter((l) => !/^Netlist line no\./i.test(l) && !/fatal error in ngspice/i.test(l)).slice(0, 4).join("; ");
+  const line = deckLine !== undefined && deckLine > offset ? deckLine - offset : quotedLine(lines.join(" "), circuit);
+  const message = lines.filter((l) => !/^(Netlist line no\.|Error on line)/i.test(l) && !/fatal error in ngspice/i.test(l)).slice(0, 4).join("; ");
   return new SpiceError(`ngspice: ${message || lines.join("; ")}`, line);
+}
+
+// Some messages quote the offending card instead of numbering it: find it in the circuit.
+function quotedLine(text: string, circuit: string): number | undefined {
+  const said = text.toLowerCase().replace(/\s+/g, " ");
+  let best: { line: number; length: number } | undefined;
+  circuit.split("\n").forEach((l, i) => {
+    const card = l.trim().toLowerCase().replace(/\s+/g, " ");
+    if (card.length >= 4 && !card.startsWith("*") && said.includes(card) && card.length > (best?.length ?? 0))
+      best = { line: i + 1, length: card.length };
+  });
+  return best?.line;
 }
 
 const lastLines = (log: string) => log.trim().split("\n").slice(-4).join("; ");
