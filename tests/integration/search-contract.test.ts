@@ -216,6 +216,14 @@ describe("search", () => {
     expect(await found("")).toEqual([1, 2, 3, 4, 5, 6]);
   });
 
+  it("searches a quoted phrase as adjacent words in order, without typos", async () => {
+    // Meilisearch documentation, "Search" API reference, phrase search (from memory).
+    expect(await found('"sine source"')).toEqual([1]);
+    expect(await found('"source sine"')).toEqual([]);
+    expect(await found('"sine sourse"')).toEqual([]);
+    expect(await found('"sensor input" rails', { matchingStrategy: "all" })).toEqual([2]);
+  });
+
   it("keeps documents holding the leading words under the default strategy", async () => {
     // "last" drops query words from the end until documents match.
     expect(await found("oscillator lamp")).toEqual([1, 5]);

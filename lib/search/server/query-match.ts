@@ -52,6 +52,25 @@ function splitMatches(index: IndexState, word: string): Map<string, WordHit> {
   return hits;
 }
 
+// A quoted phrase: its words in order, next to each other, without typos.
+function phraseMatches(index: IndexState, phrase: string[]): Map<string, WordHit> {
+  const hits = new Map<string, WordHit>();
+  const occ = phrase.map((w) => index.terms.occurrences(w));
+  const fields = index.searchFields();
+  for (const [key, firstFields] of occ[0]) {
+    const shared = firstFields.filter((f) => occ.every((o) => o.get(key)?.includes(f)));
+    for (const field of shared) {
+      const tokens = index.tokensOf(key, field);
+      const at = tokens.findIndex((_, i) => phrase.every((w, k) => tokens[i + k] === w));
+      if (at >= 0) {
+        hits.set(key, { typos: 0, rank: fields.indexOf(field), exact: true, freq: 1 });
+        break;
+      }
+    }
+  }
+  return hits;
+}
+
 // Documents matching the query words under the matching strategy. A word is
 // covered by a term within its typo allowance, by a concatenation of 2 or 3
 // consecutive query words (one typo less per extra word), or by its split.
@@ -63,9 +82,13 @@ export function matchQuery(index: IndexState, words: QueryWord[], strategy: stri
   const n = words.length;
   const cov = new Map<string, Coverage>();
   words.forEach((w, i) => {
+    if (w.phrase) {
+      for (const [key, hit] of phraseMatches(index, w.phrase)) cover(cov, n, key, i, i, hit);
+      return;
+    }
     for (const [key, hit] of index.terms.match(w.word, w.prefix, typo)) cover(cov, n, key, i, i, hit);
     if (allowedTypos(w.word, typo) >= 1) for (const [key, hit] of splitMatches(index, w.word)) cover(cov, n, key, i, i, hit);
-    for (let len = 2; len <= 3 && i + len <= n; len++) {
+    for (let len = 2; len <= 3 && i + len <= n && !words.slice(i, i + len).some((x) => x.phrase); len++) {
       const last = words[i + len - 1];
       const joined = words.slice(i, i + len).map((x) => x.word).join("");
       for (const [key, hit] of index.terms.match(joined, last.prefix, typo, len - 1)) cover(cov, n, key, i, i + len - 1, hit);

@@ -34,24 +34,33 @@ export interface QueryWord {
   word: string;
   prefix: boolean;
   fewerTypos?: number; // a concatenation of n query words allows n-1 typos less
+  phrase?: string[]; // a "quoted phrase": these words, next to each other, exactly
 }
 
 // The last word is searched as a prefix unless the query ends with a separator
-// (Meilisearch: "prefix search on the last word"); like Meilisearch, only the
-// first ten words of a query count.
+// (Meilisearch: "prefix search on the last word"); text in double quotes is a
+// phrase; like Meilisearch, only the first ten terms of a query count.
 export function queryWords(q: string): QueryWord[] {
-  const all = tokenize(q);
-  const words = all.slice(0, 10);
-  const endsInWord = all.length <= 10 && /[\p{L}\p{N}]$/u.test(q);
-  return words.map((word, i) => ({ word, prefix: i === words.length - 1 && endsInWord }));
+  const terms: QueryWord[] = [];
+  const parts = q.split('"');
+  parts.forEach((part, i) => {
+    const words = tokenize(part);
+    if (i % 2 === 1) {
+      if (words.length) terms.push({ word: words.join(" "), prefix: false, phrase: words });
+    } else for (const word of words) terms.push({ word, prefix: false });
+  });
+  const kept = terms.slice(0, 10);
+  const last = kept[kept.length - 1];
+  if (last && !last.phrase && kept.length === terms.length && /[\p{L}\p{N}]$/u.test(q)) last.prefix = true;
+  return kept;
 }
 
 // The query words plus the concatenations of 2 and 3 consecutive ones, which
 // Meilisearch also searches ("sallen key" finds "sallenkey").
 export function wordsWithConcatenations(words: QueryWord[]): QueryWord[] {
-  const out = [...words];
+  const out = words.flatMap((w) => (w.phrase ? w.phrase.map((word) => ({ word, prefix: false, fewerTypos: 9 })) : [w]));
   for (let i = 0; i < words.length; i++)
-    for (let len = 2; len <= 3 && i + len <= words.length; len++)
+    for (let len = 2; len <= 3 && i + len <= words.length && !words.slice(i, i + len).some((w) => w.phrase); len++)
       out.push({ word: words.slice(i, i + len).map((w) => w.word).join(""), prefix: words[i + len - 1].prefix, fewerTypos: len - 1 });
   return out;
 }
