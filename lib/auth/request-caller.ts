@@ -9,7 +9,8 @@ import { authSecret, sessionCookieName, useSecureCookies } from "./config";
 /** Cookie header → { name: value }; values stay as sent (next-auth's JWT is base64url, nothing to unescape). */
 export function parseCookies(header: string | null | undefined): Record<string, string> {
   const out: Record<string, string> = {};
-  for (const part of (header ?? "").split(";")) {
+  for (const raw of (header ?? "").split(";")) {
+    const part = raw.trim();
     const i = part.indexOf("=");
     if (i <= 0) continue;
     out[part.slice(0, i).trim()] = part.slice(i + 1).trim();
