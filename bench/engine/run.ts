@@ -25,7 +25,7 @@ function bareNgspice(deck: string): number {
   fs.writeFileSync(path.join(dir, "deck.cir"), deck);
   const args = ["-b", "-r", "out.raw", "deck.cir"];
   const t0 = performance.now();
-  const r = spawnSync("ngspice", args, { cwd: dir, env: { PATH: process.env.PATH, HOME: dir, SPICE_SCRIPTS: dir } as NodeJS.ProcessEnv });
+  const r = spawnSync("ngspice", args, { cwd: dir, env: { PATH: process.env.PATH, HOME: dir, SPICE_SCRIPTS: dir, NODE_ENV: process.env.NODE_ENV } });
   const t = performance.now() - t0;
   if (r.status !== 0) throw new Error(`bare ngspice failed: ${r.stderr}`);
   fs.rmSync(dir, { recursive: true, force: true });

@@ -62,6 +62,15 @@ describe("simulate()", () => {
     expect(e.line).toBe(3);
   });
 
+  it("finds the circuit line of a card ngspice quotes instead of numbering", () => {
+    const e = thrown(() => simulate({ ...rc, circuit: "V1 in 0 DC 1\nR1 in out 1k\nX1 out 0 nosuchsub" }, { cacheDir }));
+    expect(e.message).toMatch(/unknown subckt/);
+    expect(e.line).toBe(3);
+    const m = thrown(() => simulate({ ...rc, circuit: "V1 in 0 DC 1\nQ1 out in 0 nosuchmodel\nR1 in out 1k" }, { cacheDir }));
+    expect(m.message).toMatch(/nosuchmodel/);
+    expect(m.line).toBe(2);
+  });
+
   it("reports an aborted transient as an error", () => {
     // Positive feedback with gain 2 around an RC and no limit: the state grows as e^{t/RC} until
     // ngspice gives up with "timestep too small".
