@@ -1,0 +1,67 @@
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+
+// This file's engine reads a private copy of the model library, so changing it touches nobody else.
+const dirs = vi.hoisted(() => {
+  const fs = require("node:fs") as typeof import("node:fs");
+  const path = require("node:path") as typeof import("node:path");
+  const os = require("node:os") as typeof import("node:os");
+  const models = fs.mkdtempSync(path.join(os.tmpdir(), "assay-models-"));
+  fs.cpSync(path.resolve("content/models"), models, { recursive: true });
+  const cache = fs.mkdtempSync(path.join(os.tmpdir(), "assay-stale-cache-"));
+  process.env.ASSAY_MODELS_DIR = models;
+  process.env.ASSAY_SIM_CACHE = cache;
+  return { models, cache };
+});
+
+import { execFileSync } from "node:child_process";
+import { appendFileSync, rmSync } from "node:fs";
+import path from "node:path";
+import { modelLibraryHash } from "@/checks";
+import { CheckRunSchema } from "@/entities";
+import { createBlock } from "@/lib/blocks/create";
+import { getBlock } from "@/lib/blocks/read";
+import { closeOrm, getEm } from "@/lib/db/orm";
+import { enqueueStaleHeads } from "@/lib/runs/reverify";
+import { dividerBlock, drain, makeTeam, wienFixture, type TestTeam } from "./blocks-helpers";
+
+let team: TestTeam;
+beforeAll(async () => { team = await makeTeam(); });
+afterAll(async () => {
+  await closeOrm();
+  rmSync(dirs.models, { recursive: true, force: true });
+  rmSync(dirs.cache, { recursive: true, force: true });
+});
+
+describe("a model-library change", () => {
+  it("makes every head stale; reverify queues them and fresh runs give fresh badges", { timeout: 120_000 }, async () => {
+    const wien = `stale-wien-${team.tag}`;
+    const div = `stale-div-${team.tag}`;
+    await createBlock(team.author, { teamSlug: team.slug, text: wienFixture(wien) });
+    await createBlock(team.author, { teamSlug: team.slug, text: dividerBlock(div) });
+    await drain(team);
+    const before = modelLibraryHash();
+    expect((await getBlock(team.viewer, wien)).badge).toBe("verified");
+    expect((await getBlock(team.viewer, div)).badge).toBe("verified");
+    expect((await enqueueStaleHeads(await getEm(), { teamIds: [team.id] })).queued).toBe(0);
+
+    // A revision of a shared model (here only its comment) is a new library.
+    appendFileSync(path.join(dirs.models, "opamp-1pole.lib"), "* revised by the bench team\n");
+    const after = modelLibraryHash();
+    expect(after).not.toBe(before);
+    expect((await getBlock(team.viewer, wien)).badge).toBe("stale");
+    expect((await getBlock(team.viewer, div)).badge).toBe("stale");
+
+    // npm run reverify, as a process of its own, limited to this team.
+    const out = execFileSync(process.execPath, ["--import", "tsx", "scripts/reverify.ts", "--team", team.slug], { env: process.env, encoding: "utf8" });
+    expect(out).toMatch(/queued 2 head version\(s\)/);
+    expect((await getBlock(team.viewer, wien)).badge).toBe("pending");
+    expect(await drain(team)).toBe(2);
+    for (const slug of [wien, div]) {
+      const b = await getBlock(team.viewer, slug);
+      expect(b.badge).toBe("verified");
+      const run = await (await getEm()).findOneOrFail(CheckRunSchema, { id: b.runId! });
+      expect(run).toMatchObject({ modelLibraryHash: after, trigger: "reverify" });
+    }
+    expect((await enqueueStaleHeads(await getEm(), { teamIds: [team.id] })).queued).toBe(0);
+  });
+});
