@@ -1,0 +1,151 @@
+import { readdirSync, readFileSync, statSync } from "node:fs";
+import path from "node:path";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { bearer, makeWorld, rcBlockText, type ApiWorld } from "./api-fixtures";
+
+// Who may call what: every route handler under app/api/v1 with every kind of caller, against a team block of
+// team A written by its author. The matrix must name every exported method of every route.ts, so a new route
+// cannot land without deciding its rights here (DESIGN.md, "Roles"; lib/auth/permissions.ts).
+
+type Who = "anonymous" | "viewer" | "author" | "maintainer" | "admin" | "authorCookie" | "otherTeam" | "readToken";
+const WHO: Who[] = ["anonymous", "viewer", "author", "maintainer", "admin", "authorCookie", "otherTeam", "readToken"];
+
+interface Call {
+  path: string;
+  method: string;
+  body?: string;
+  type?: string;
+}
+interface Entry {
+  call: (who: Who) => Promise<Call>;
+  expect: Record<Who, number>;
+}
+
+let w: ApiWorld;
+let slug: string;
+let runId: string;
+let n = 0;
+const unique = () => `${w.tag}-${++n}`;
+
+const all = (status: number): Record<Who, number> => Object.fromEntries(WHO.map((k) => [k, status])) as Record<Who, number>;
+/** Reading a team block: members (any role, any scope) yes; outsiders and the signed-out see nothing (404). */
+const readTeamBlock = { ...all(200), anonymous: 404, otherTeam: 404 };
+/** Writing to team A: authors and up; viewers and read tokens 403; the signed-out 401. */
+const writeTeam = (outsider: number) => ({ ...all(201), anonymous: 401, viewer: 403, readToken: 403, otherTeam: outsider });
+
+async function headOf(): Promise<number> {
+  const res = await fetch(`${w.app.url}/api/v1/blocks/${slug}`, { headers: bearer(w.people.admin.read) });
+  return ((await res.json()) as { version: number }).version;
+}
+const json = (path: string, body: unknown): Call => ({ path, method: "POST", body: JSON.stringify(body), type: "application/json" });
+
+const MATRIX: Record<string, Entry> = {
+  "GET /api/v1/health": { call: async () => ({ path: "/api/v1/health", method: "GET" }), expect: all(200) },
+  "GET /api/v1/openapi.json": { call: async () => ({ path: "/api/v1/openapi.json", method: "GET" }), expect: all(200) },
+  "GET /api/v1/bench/constant": { call: async () => ({ path: "/api/v1/bench/constant", method: "GET" }), expect: all(404) },
+  "GET /api/v1/blocks": { call: async () => ({ path: `/api/v1/blocks?team=${w.teamA.slug}`, method: "GET" }), expect: all(200) },
+  "POST /api/v1/blocks": {
+    call: async () => ({ path: `/api/v1/blocks?team=${w.teamA.slug}`, method: "POST", body: rcBlockText(`rc-new-${unique()}`), type: "text/markdown" }),
+    expect: writeTeam(403),
+  },
+  "GET /api/v1/blocks/[slug]": { call: async () => ({ path: `/api/v1/blocks/${slug}`, method: "GET" }), expect: readTeamBlock },
+  "GET /api/v1/blocks/[slug]/versions": { call: async () => ({ path: `/api/v1/blocks/${slug}/versions`, method: "GET" }), expect: readTeamBlock },
+  "POST /api/v1/blocks/[slug]/versions": {
+    call: async () => json(`/api/v1/blocks/${slug}/versions`, { params: { R: `${4700 + n++} ohm` }, baseVersion: await headOf() }),
+    expect: writeTeam(404),
+  },
+  "GET /api/v1/blocks/[slug]/versions/[n]": { call: async () => ({ path: `/api/v1/blocks/${slug}/versions/1`, method: "GET" }), expect: readTeamBlock },
+  "POST /api/v1/blocks/[slug]/forks": {
+    call: async () => json(`/api/v1/blocks/${slug}/forks`, { slug: `rc-forked-${unique()}` }),
+    expect: writeTeam(404),
+  },
+  "POST /api/v1/blocks/[slug]/evaluate": {
+    call: async () => json(`/api/v1/blocks/${slug}/evaluate`, { params: { R: "3.3 kohm" } }),
+    expect: { ...readTeamBlock },
+  },
+  "POST /api/v1/blocks/[slug]/retune": {
+    call: async () => json(`/api/v1/blocks/${slug}/retune`, { param: "R", target: { quantity: "fc", value: "3.4 kHz" }, series: "E24" }),
+    expect: { ...readTeamBlock },
+  },
+  "GET /api/v1/blocks/[slug]/badge.svg": { call: async () => ({ path: `/api/v1/blocks/${slug}/badge.svg`, method: "GET" }), expect: readTeamBlock },
+  "GET /api/v1/runs/[id]": { call: async () => ({ path: `/api/v1/runs/${runId}`, method: "GET" }), expect: readTeamBlock },
+};
+
+/** Every `METHOD /api/v1/...` the app serves, read from the route files themselves. */
+function servedRoutes(): string[] {
+  const root = path.resolve("app/api/v1");
+  const out: string[] = [];
+  const walk = (dir: string) => {
+    for (const name of readdirSync(dir)) {
+      const full = path.join(dir, name);
+      if (statSync(full).isDirectory()) walk(full);
+      else if (/^route\.(ts|tsx|js)$/.test(name)) {
+        const src = readFileSync(full, "utf8");
+        const url = "/api/v1" + path.relative(root, dir).split(path.sep).map((s) => `/${s}`).join("").replace(/^\/$/, "");
+        for (const m of src.matchAll(/export\s+(?:const|async\s+function|function)\s+(GET|POST|PUT|PATCH|DELETE|HEAD|OPTIONS)\b/g)) out.push(`${m[1]} ${url}`);
+      }
+    }
+  };
+  walk(root);
+  return out.sort();
+}
+
+async function headersOf(who: Who): Promise<Record<string, string>> {
+  switch (who) {
+    case "anonymous":
+      return {};
+    case "authorCookie":
+      return { Cookie: await w.cookieFor(w.people.author.id) };
+    case "otherTeam":
+      return bearer(w.outsider.write);
+    case "readToken":
+      return bearer(w.people.author.read);
+    default:
+      return bearer(w.people[who].write);
+  }
+}
+
+beforeAll(async () => {
+  w = await makeWorld();
+  slug = `rc-authz-${w.tag}`;
+  const res = await fetch(`${w.app.url}/api/v1/blocks?team=${w.teamA.slug}`, {
+    method: "POST",
+    headers: { ...bearer(w.people.author.write), "Content-Type": "text/markdown" },
+    body: rcBlockText(slug),
+  });
+  expect(res.status).toBe(201);
+  runId = ((await res.json()) as { run: { id: string } }).run.id;
+}, 900_000);
+afterAll(async () => w?.stop(), 60_000);
+
+describe("authorization matrix", () => {
+  it("has an entry for every route handler method under app/api/v1", () => {
+    expect(Object.keys(MATRIX).sort()).toEqual(servedRoutes());
+  });
+
+  for (const [route, entry] of Object.entries(MATRIX)) {
+    it(route, async () => {
+      const seen: Record<string, number> = {};
+      for (const who of WHO) {
+        const call = await entry.call(who);
+        const headers = { ...(await headersOf(who)), ...(call.type ? { "Content-Type": call.type } : {}) };
+        const res = await fetch(`${w.app.url}${call.path}`, { method: call.method, headers, body: call.body });
+        await res.arrayBuffer();
+        seen[who] = res.status;
+      }
+      expect(seen).toEqual(entry.expect);
+    });
+  }
+
+  it("refuses a cookie-carried write from a foreign origin, and lets the same write from our own origin through", async () => {
+    const cookie = await w.cookieFor(w.people.author.id);
+    const send = (origin: string) =>
+      fetch(`${w.app.url}/api/v1/blocks/${slug}/forks`, {
+        method: "POST",
+        headers: { Cookie: cookie, Origin: origin, "Content-Type": "application/json" },
+        body: JSON.stringify({ slug: `rc-origin-${unique()}` }),
+      });
+    expect((await send("https://elsewhere.test")).status).toBe(403);
+    expect((await send(w.app.url)).status).toBe(201);
+  });
+});
