@@ -8,9 +8,11 @@ import { ParamTable } from "@/components/param-table";
 import { QuantityList } from "@/components/quantity-list";
 import type { Caller } from "@/lib/auth/caller";
 import { getBlock, getLineage, listVersions } from "@/lib/blocks/read";
-import { getWaveforms } from "@/lib/runs/runs";
+import { reviewsOf } from "@/lib/reviews/reviews";
+import { getWaveforms, listRuns } from "@/lib/runs/runs";
 import { isWatching } from "@/lib/watches/watches";
 import { BlockActions } from "./block-actions";
+import { HistoryPanel } from "./history-panel";
 import { LineagePanel } from "./lineage-panel";
 import { Panel } from "./panel";
 import { RunPlots } from "./run-plots";
@@ -22,11 +24,13 @@ const emptyReport: Report = { slug: "", status: "unchecked", quantities: {}, che
 /** One version of a block: the note in the reading column, what was proven beside it. */
 export async function BlockView({ caller, slug, version }: { caller: Caller; slug: string; version?: number }) {
   const block = await getBlock(caller, slug, version);
-  const [versions, lineage, watching, waveforms] = await Promise.all([
+  const [versions, lineage, watching, waveforms, runs, reviews] = await Promise.all([
     listVersions(caller, slug),
     getLineage(caller, slug),
     caller.user ? isWatching(caller, slug) : Promise.resolve(false),
     block.runId && block.runStatus === "done" ? (getWaveforms(caller, block.runId) as Promise<Waveform[]>) : Promise.resolve([] as Waveform[]),
+    listRuns(caller, slug, 6),
+    reviewsOf(caller, slug),
   ]);
   const report = (block.report as Report | null) ?? emptyReport;
   const role = caller.memberships.find((m) => m.teamSlug === block.team)?.role ?? null;
@@ -86,6 +90,7 @@ export async function BlockView({ caller, slug, version }: { caller: Caller; slu
           </Panel>
           <Panel title="Quantities"><QuantityList quantities={report.quantities} /></Panel>
           <Panel title="Lineage"><LineagePanel lineage={lineage} /></Panel>
+          <HistoryPanel slug={slug} runs={runs} reviews={reviews.slice(0, 6)} />
           <Panel title="API">
             <p className="text-sm">This version as JSON, as the block file, or as a runnable SPICE deck:</p>
             <ul className="mt-1 space-y-0.5 break-all font-mono text-xs">

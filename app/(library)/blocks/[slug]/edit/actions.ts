@@ -1,0 +1,51 @@
+"use server";
+import { redirect } from "next/navigation";
+import { revalidatePath } from "next/cache";
+import { z } from "zod";
+import { parseBlock, previewBlock, type BlockError } from "@/checks";
+import { getCaller } from "@/lib/auth/session";
+import { addVersion } from "@/lib/blocks/versions";
+import { isAppError } from "@/lib/errors";
+import { failure, type FormState } from "../../../form-state";
+
+const MAX_FILE = 256 * 1024;
+
+/** The engine's word on a draft file, with line numbers: parse errors first, else the preview's errors and checks. */
+export async function checkDraftAction(text: string): Promise<{ errors: BlockError[]; failing: string[] }> {
+  const caller = await getCaller();
+  if (!caller.user) return { errors: [{ message: "sign in to check a draft" }], failing: [] };
+  const draft = String(text ?? "").slice(0, MAX_FILE);
+  const { errors } = parseBlock(draft);
+  if (errors.length) return { errors, failing: [] };
+  const report = await previewBlock(draft);
+  return {
+    errors: [...report.errors, ...report.checks.filter((c) => c.status === "error").map((c) => ({ message: `${c.label}: ${c.detail}`, line: c.line }))],
+    failing: report.checks.filter((c) => c.status === "fail").map((c) => c.label),
+  };
+}
+
+const editForm = z.object({
+  slug: z.string().regex(/^[a-z0-9-]{1,100}$/),
+  baseVersion: z.coerce.number().int().min(1),
+  text: z.string().min(1, "the block file is empty").max(MAX_FILE, "the block file is larger than 256 KiB"),
+  message: z.string().trim().max(2000).optional(),
+});
+
+export async function saveEditAction(_prev: FormState, form: FormData): Promise<FormState> {
+  const parsed = editForm.safeParse(Object.fromEntries(form));
+  if (!parsed.success) return { ok: false, message: "The file could not be saved.", errors: z.flattenError(parsed.error).fieldErrors as Record<string, string[]> };
+  const caller = await getCaller();
+  if (!caller.user) return { ok: false, message: "Sign in to save." };
+  const { slug, baseVersion, text, message } = parsed.data;
+  try {
+    await addVersion(caller, slug, { text, baseVersion, message: message || "edited" });
+  } catch (err) {
+    if (isAppError(err) && err.code === "conflict") {
+      const head = (err.extra as { head?: number }).head;
+      return { ok: false, head, message: `Someone saved v${head} while you were editing v${baseVersion}. Your text is kept here; compare and merge before saving again.` };
+    }
+    return failure(err);
+  }
+  revalidatePath(`/blocks/${slug}`);
+  redirect(`/blocks/${slug}`);
+}

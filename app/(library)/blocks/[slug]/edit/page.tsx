@@ -1,0 +1,24 @@
+import type { Metadata } from "next";
+import { BlockEditor } from "@/components/editor/block-editor";
+import { requireUser } from "@/lib/auth/session";
+import { getBlock } from "@/lib/blocks/read";
+import { orNotFound } from "../../../or-not-found";
+
+export const metadata: Metadata = { title: "Edit" };
+export const dynamic = "force-dynamic";
+
+export default async function EditPage({ params }: { params: Promise<{ slug: string }> }) {
+  const { slug } = await params;
+  const caller = await requireUser(`/blocks/${slug}/edit`);
+  const block = await orNotFound(getBlock(caller, slug));
+  return (
+    <div className="space-y-4">
+      <header>
+        <p className="text-sm text-graphite">Edit the block file</p>
+        <h1 className="font-serif text-2xl font-semibold">{block.title} <span className="font-mono text-lg text-graphite">from v{block.version}</span></h1>
+        <p className="mt-1 max-w-prose text-sm text-graphite">Frontmatter, note, netlist and check script in one file. The engine reads it as you type and marks the lines it cannot read.</p>
+      </header>
+      <BlockEditor slug={slug} baseVersion={block.version} initialText={block.text} />
+    </div>
+  );
+}

@@ -1,0 +1,40 @@
+import type { Metadata } from "next";
+import { RetuneForm } from "@/components/retune/retune-form";
+import { requireUser } from "@/lib/auth/session";
+import { getBlock } from "@/lib/blocks/read";
+import { orNotFound } from "../../../or-not-found";
+
+export const metadata: Metadata = { title: "Fork and retune" };
+export const dynamic = "force-dynamic";
+
+export default async function ForkPage({ params, searchParams }: {
+  params: Promise<{ slug: string }>; searchParams: Promise<{ from?: string }>;
+}) {
+  const { slug } = await params;
+  const caller = await requireUser(`/blocks/${slug}/fork`);
+  const from = Number((await searchParams).from) || undefined;
+  const block = await orNotFound(getBlock(caller, slug, from));
+  const role = caller.memberships.find((m) => m.teamSlug === block.team)?.role;
+  const canEdit = (role === "author" || role === "maintainer" || role === "admin") && block.version === block.headVersion;
+  const teams = caller.memberships.filter((m) => m.role !== "viewer").map((m) => m.teamSlug);
+  return (
+    <div className="space-y-4">
+      <header>
+        <p className="text-sm text-graphite">Fork and retune</p>
+        <h1 className="font-serif text-2xl font-semibold">{block.title} <span className="font-mono text-lg text-graphite">v{block.version}</span></h1>
+        <p className="mt-1 max-w-prose text-sm text-graphite">
+          Change values and watch the quantities and expression checks follow as you type. Simulated checks run when you save.
+        </p>
+      </header>
+      <RetuneForm
+        slug={slug}
+        version={block.version}
+        params={block.params}
+        quantities={Object.keys((block.report as { quantities?: Record<string, unknown> } | null)?.quantities ?? {})}
+        canEdit={canEdit}
+        teams={teams}
+        defaultTeam={teams.includes(block.team) ? block.team : teams[0]}
+      />
+    </div>
+  );
+}

@@ -1,0 +1,34 @@
+"use client";
+import { CheckList } from "@/components/check-list";
+import { QuantityList } from "@/components/quantity-list";
+import type { useEvaluateBlock } from "@/lib/queries/evaluate-block";
+
+/** What the draft values give, recomputed as you type: quantities, then every check (simulated ones wait for the save). */
+export function LivePreview({ query }: { query: ReturnType<typeof useEvaluateBlock> }) {
+  const report = query.data;
+  const failing = report?.checks.filter((c) => c.status === "fail").length ?? 0;
+  const errors = report?.errors ?? [];
+  return (
+    <section aria-label="Live preview" className="space-y-3 rounded border border-rule bg-panel p-3" data-testid="live-preview">
+      <header className="flex items-baseline justify-between gap-2">
+        <h2 className="text-xs font-semibold uppercase tracking-wide text-graphite">Live preview</h2>
+        <span aria-live="polite" className="text-xs text-graphite" data-testid="preview-summary">
+          {query.isError ? "preview failed" : !report ? "computing…" : errors.length ? "cannot evaluate" : failing ? `${failing} check${failing === 1 ? "" : "s"} fail` : "expression checks pass"}
+          {query.isFetching ? " · updating" : ""}
+        </span>
+      </header>
+      {query.isError ? <p role="alert" className="text-sm text-brick">{query.error.message}</p> : null}
+      {errors.length ? (
+        <ul role="alert" className="space-y-1 text-sm text-plum">{errors.map((e, i) => <li key={i}>{e.line ? `line ${e.line}: ` : ""}{e.message}</li>)}</ul>
+      ) : null}
+      {report ? (
+        <div className={query.isPlaceholderData ? "opacity-70" : ""}>
+          <h3 className="mb-1 text-sm font-semibold">Quantities</h3>
+          <QuantityList quantities={report.quantities} />
+          <h3 className="mb-1 mt-3 text-sm font-semibold">Checks</h3>
+          <CheckList checks={report.checks} />
+        </div>
+      ) : null}
+    </section>
+  );
+}

@@ -1,0 +1,86 @@
+"use client";
+import { useActionState, useMemo, useState } from "react";
+import { saveRetuneAction } from "@/app/(library)/blocks/[slug]/fork/actions";
+import { useDebounced } from "@/components/library/use-debounced";
+import type { ParamRow } from "@/components/param-table";
+import { useEvaluateBlock } from "@/lib/queries/evaluate-block";
+import { LivePreview } from "./live-preview";
+import { ParamInput } from "./param-input";
+import { RetuneAssistant } from "./retune-assistant";
+
+export function RetuneForm({ slug, version, params, quantities, canEdit, teams, defaultTeam }: {
+  slug: string; version: number; params: ParamRow[]; quantities: string[]; canEdit: boolean; teams: string[]; defaultTeam?: string;
+}) {
+  const [values, setValues] = useState<Record<string, string>>(() => Object.fromEntries(params.map((p) => [p.name, p.value])));
+  const [saveAs, setSaveAs] = useState<"fork" | "version">("fork");
+  const [state, action, pending] = useActionState(saveRetuneAction, {});
+  const changed = useMemo(() => Object.fromEntries(Object.entries(values).filter(([k, v]) => params.find((p) => p.name === k)?.value !== v)), [values, params]);
+  const draft = useDebounced(changed, 250);
+  const preview = useEvaluateBlock(slug, draft);
+  const previewQuantities = Object.keys(preview.data?.quantities ?? {});
+  const set = (name: string, v: string) => setValues((s) => ({ ...s, [name]: v }));
+  const field = "w-full rounded border border-rule bg-panel px-2 py-1 text-sm";
+
+  return (
+    <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,26rem)]">
+      <form action={action} className="space-y-5" aria-describedby="save-message">
+        <input type="hidden" name="source" value={slug} />
+        <input type="hidden" name="fromVersion" value={version} />
+        <input type="hidden" name="params" value={JSON.stringify(changed)} />
+        <fieldset className="rounded border border-rule bg-panel p-3">
+          <legend className="px-1 text-sm font-semibold">Parameters</legend>
+          <div className="space-y-2">
+            {params.map((p) => <ParamInput key={p.name} param={p} value={values[p.name] ?? ""} onChange={(v) => set(p.name, v)} />)}
+          </div>
+          {state.errors?.params ? <p className="mt-1 text-sm text-brick">{state.errors.params[0]}</p> : null}
+        </fieldset>
+
+        <fieldset className="space-y-2 rounded border border-rule bg-panel p-3">
+          <legend className="px-1 text-sm font-semibold">Save as</legend>
+          <label className="flex items-center gap-2 text-sm">
+            <input type="radio" name="saveAs" value="fork" checked={saveAs === "fork"} onChange={() => setSaveAs("fork")} className="accent-copper" />
+            a fork: a new block that records where it came from
+          </label>
+          <label className={`flex items-center gap-2 text-sm ${canEdit ? "" : "opacity-50"}`}>
+            <input type="radio" name="saveAs" value="version" checked={saveAs === "version"} disabled={!canEdit} onChange={() => setSaveAs("version")} className="accent-copper" />
+            the next version of this block{canEdit ? "" : " (you may not edit it)"}
+          </label>
+          {saveAs === "fork" ? (
+            <div className="grid gap-2 sm:grid-cols-3">
+              <label className="text-sm" htmlFor="fork-slug">Slug of the fork (optional)
+                <input id="fork-slug" name="newSlug" className={`${field} font-mono`} placeholder={`${slug}-2`} aria-invalid={Boolean(state.errors?.newSlug)} />
+                {state.errors?.newSlug ? <span className="text-xs text-brick">{state.errors.newSlug[0]}</span> : null}
+              </label>
+              <label className="text-sm" htmlFor="fork-title">Title (optional)
+                <input id="fork-title" name="title" className={field} />
+              </label>
+              <label className="text-sm" htmlFor="fork-team">Team
+                <select id="fork-team" name="team" defaultValue={defaultTeam} className={field}>
+                  {teams.map((t) => <option key={t}>{t}</option>)}
+                </select>
+              </label>
+            </div>
+          ) : null}
+          <label className="block text-sm" htmlFor="retune-message">Message
+            <input id="retune-message" name="message" className={field} placeholder="What you changed and why" />
+          </label>
+        </fieldset>
+
+        <div className="flex flex-wrap items-center gap-3">
+          <button type="submit" disabled={pending} className="rounded bg-copper px-4 py-1.5 font-medium text-white hover:bg-copper-dark disabled:opacity-60">
+            {pending ? "Saving…" : saveAs === "fork" ? "Save the fork" : "Save the version"}
+          </button>
+          <span className="text-xs text-graphite">{Object.keys(changed).length} value{Object.keys(changed).length === 1 ? "" : "s"} changed</span>
+        </div>
+        <div id="save-message" aria-live="polite" className="text-sm">
+          {state.message ? <p className={state.ok === false ? "text-brick" : "text-verdigris"}>{state.message}</p> : null}
+          {state.lines?.length ? <ul className="list-disc pl-5 text-brick">{state.lines.map((l, i) => <li key={i}>{l.line ? `line ${l.line}: ` : ""}{l.message}</li>)}</ul> : null}
+        </div>
+      </form>
+      <div className="space-y-4">
+        <LivePreview query={preview} />
+        <RetuneAssistant slug={slug} params={params.map((p) => p.name)} quantities={previewQuantities.length ? previewQuantities : quantities} onUse={set} />
+      </div>
+    </div>
+  );
+}
