@@ -17,6 +17,8 @@ const nextConfig: NextConfig = {
   // Types are checked once, by `npm run typecheck` in npm test, so a start never fails on a type error.
   typescript: { ignoreBuildErrors: true },
   typedRoutes: false,
+  // The import form sends a block file and schematic images (each at most 1 MiB) in one server action.
+  experimental: { serverActions: { bodySizeLimit: "4mb" } },
 };
 
 export default nextConfig;
