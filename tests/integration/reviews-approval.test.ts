@@ -1,0 +1,106 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { OutboxEventSchema } from "@/entities";
+import { createBlock } from "@/lib/blocks/create";
+import { getBlock, listVersions } from "@/lib/blocks/read";
+import { addVersion } from "@/lib/blocks/versions";
+import { archiveBlock, setVisibility } from "@/lib/blocks/archive";
+import { failingInMyTeams, myBlocks, recentlyVerified } from "@/lib/blocks/lists";
+import { anonymous } from "@/lib/auth/caller";
+import { closeOrm, getEm } from "@/lib/db/orm";
+import type { AppError } from "@/lib/errors";
+import { decide, requestReview, reviewQueue, reviewsOf } from "@/lib/reviews/reviews";
+import { isWatching, unwatch, watch } from "@/lib/watches/watches";
+import { drain, makeTeam, wienFixture, type TestTeam } from "./blocks-helpers";
+
+let team: TestTeam;
+beforeAll(async () => { team = await makeTeam(); });
+afterAll(closeOrm);
+
+const lastEvent = async (kind: string, slug: string) =>
+  (await (await getEm()).find(OutboxEventSchema, { kind: kind as never, payload: { slug } } as never, { orderBy: { id: "desc" }, limit: 1 }))[0];
+const code = (p: Promise<unknown>) => p.then(() => "ok", (e: AppError) => e.code);
+
+describe("reviews", () => {
+  it("approval belongs to one version, is reset by a new version, and nobody approves their own", async () => {
+    const slug = `rev-${team.tag}`;
+    await createBlock(team.author, { teamSlug: team.slug, text: wienFixture(slug) });
+    await drain(team);
+    const req = await requestReview(team.author, slug, 1);
+    expect(req.created).toBe(true);
+    expect((await requestReview(team.author, slug, 1)).created).toBe(false);
+    const asked = await lastEvent("review.requested", slug);
+    expect(asked.payload).toMatchObject({ slug, version: 1, requestedBy: team.author.user!.email, reviewers: [team.maintainer.user!.email] });
+
+    const queue = await reviewQueue(team.maintainer);
+    expect(queue.map((q) => [q.slug, q.version, q.badge])).toContainEqual([slug, 1, "verified"]);
+    expect(await reviewQueue(team.author)).toEqual([]);
+
+    expect(await code(decide(team.author, slug, 1, "approved", ""))).toBe("forbidden"); // author role cannot approve
+    expect(await code(decide(team.viewer, slug, 1, "approved", ""))).toBe("forbidden");
+    expect(await code(decide(team.maintainer, slug, 1, "changes-requested", " "))).toBe("validation");
+    await decide(team.maintainer, slug, 1, "approved", "margins look right");
+    expect((await getBlock(team.viewer, slug)).approved).toBe(true);
+    expect((await lastEvent("review.decided", slug)).payload).toMatchObject({ decision: "approved", reviewer: team.maintainer.user!.email, requestedBy: [team.author.user!.email] });
+    expect((await reviewQueue(team.maintainer)).some((q) => q.slug === slug)).toBe(false);
+
+    // The maintainer writes version 2: it starts unapproved and they may not approve it themselves.
+    await addVersion(team.maintainer, slug, { params: { Rf: "24 kohm" }, baseVersion: 1 });
+    const head = await getBlock(team.viewer, slug);
+    expect([head.version, head.approved]).toEqual([2, false]);
+    expect((await getBlock(team.viewer, slug, 1)).approved).toBe(true);
+    expect(await code(decide(team.maintainer, slug, 2, "approved", ""))).toBe("forbidden");
+    expect((await listVersions(team.viewer, slug)).map((v) => v.approved)).toEqual([false, true]);
+
+    // A later request for changes withdraws an approval of the same version.
+    await decide(team.maintainer, slug, 1, "changes-requested", "Rg tolerance too loose");
+    expect((await getBlock(team.viewer, slug, 1)).approved).toBe(false);
+    expect((await reviewsOf(team.viewer, slug)).map((r) => [r.version, r.decision])).toEqual([
+      [1, "changes-requested"], [1, "approved"], [1, "requested"],
+    ]);
+    await drain(team);
+  });
+});
+
+describe("watches and the outbox", () => {
+  it("watchers are named on new versions and on a head that turns failing", async () => {
+    const slug = `watch-${team.tag}`;
+    await createBlock(team.author, { teamSlug: team.slug, text: wienFixture(slug) });
+    await drain(team);
+    expect(await code(watch(team.outsider, slug))).toBe("not_found");
+    await watch(team.viewer, slug);
+    await watch(team.viewer, slug);
+    expect(await isWatching(team.viewer, slug)).toBe(true);
+
+    await addVersion(team.author, slug, { params: { Rf: "18 kohm" }, baseVersion: 1, message: "try less gain" });
+    const created = await lastEvent("version.created", slug);
+    expect(created.payload).toMatchObject({
+      slug, version: 2, team: team.slug, authorEmail: team.author.user!.email, badge: "pending", previousBadge: "verified",
+      message: "try less gain", watchers: [team.viewer.user!.email],
+    });
+    await drain(team);
+    const finished = await lastEvent("run.finished", slug);
+    expect(finished.payload).toMatchObject({ version: 2, badge: "failing", previousBadge: "verified", isHead: true, watchers: [team.viewer.user!.email] });
+    expect((await failingInMyTeams(team.viewer)).map((b) => b.slug)).toContain(slug);
+    expect((await recentlyVerified(team.viewer, 50)).map((b) => b.slug)).not.toContain(slug);
+    expect((await myBlocks(team.author)).map((b) => b.slug)).toContain(slug);
+
+    await unwatch(team.viewer, slug);
+    expect(await isWatching(team.viewer, slug)).toBe(false);
+  });
+
+  it("archiving and publishing write events; public blocks are readable signed out", async () => {
+    const slug = `pub-${team.tag}`;
+    await createBlock(team.author, { teamSlug: team.slug, text: wienFixture(slug) });
+    expect(await code(getBlock(anonymous, slug))).toBe("not_found");
+    expect(await code(setVisibility(team.author, slug, "public"))).toBe("forbidden");
+    await setVisibility(team.maintainer, slug, "public");
+    expect((await lastEvent("block.updated", slug)).payload).toMatchObject({ change: "visibility", visibility: "public", previous: "team" });
+    expect((await getBlock(anonymous, slug)).visibility).toBe("public");
+    await drain(team);
+    expect((await recentlyVerified(anonymous, 100)).map((b) => b.slug)).toContain(slug);
+    await archiveBlock(team.maintainer, slug);
+    expect((await lastEvent("block.archived", slug)).payload).toMatchObject({ slug, archived: true });
+    expect(await code(addVersion(team.author, slug, { params: { Rf: "24 kohm" }, baseVersion: 1 }))).toBe("conflict");
+    expect((await getBlock(team.viewer, slug)).archived).toBe(true);
+  });
+});
