@@ -27,7 +27,7 @@ function compose(subject: string, paragraphs: string[], action?: { label: string
 }
 
 const blockUrl = (slug: string, version?: number) =>
-  link(`/blocks/${encodeURIComponent(slug)}${version ? `?version=${version}` : ""}`);
+  link(`/blocks/${encodeURIComponent(slug)}${version ? `/versions/${version}` : ""}`);
 
 export function signInLinkMessage(token: string, minutes: number): Message {
   return compose(

@@ -32,8 +32,8 @@ describe("mail notifications from the outbox", () => {
       const [m] = mailsTo(reviewer.email);
       expect(m.subject).toMatch(/^Review requested: .* v1$/);
       expect(m.text).toContain(`Person 0 ${tag} asked for a review of version 1`);
-      expect(m.text).toContain(`/blocks/${slug}?version=1`);
-      expect(m.html).toContain(`/blocks/${slug}?version=1`);
+      expect(m.text).toContain(`/blocks/${slug}/versions/1`);
+      expect(m.html).toContain(`/blocks/${slug}/versions/1`);
     }
     expect(mailsTo(people[0].email)).toHaveLength(0);
     expect(mailsTo(people[2].email)).toHaveLength(0);
