@@ -1,0 +1,41 @@
+import { readdirSync, readFileSync } from "node:fs";
+import { afterAll, describe, expect, it } from "vitest";
+import { BlockSchema, BlockVersionSchema, CheckRunSchema, ReviewSchema, TeamSchema } from "@/entities";
+import { closeOrm, getEm } from "@/lib/db/orm";
+import { seedLibrary } from "@/lib/seed/seed-library";
+import { seedPeople } from "@/lib/seed/seed-people";
+
+afterAll(closeOrm);
+
+describe("demo library seed", () => {
+  it("imports every content block into fenwick with a fork, a second version and an approval; a second run creates nothing", { timeout: 120_000 }, async () => {
+    await seedPeople(await getEm());
+    const files = readdirSync("content/blocks").filter((f) => f.endsWith(".md"));
+    // Other test files may add fenwick blocks of their own: look only at the seeded slugs.
+    const slugs = [...files.map((f) => /^slug:\s*([a-z0-9-]+)/m.exec(readFileSync(`content/blocks/${f}`, "utf8"))![1]), "rc-lowpass-antialias-5k1"];
+    const first = await seedLibrary(await getEm());
+    const em = await getEm();
+    const fenwick = await em.findOneOrFail(TeamSchema, { slug: "fenwick" });
+    const blocks = await em.find(BlockSchema, { team: fenwick, slug: { $in: slugs } }, { populate: ["head", "head.author"] });
+    // Every file is a block (none refused), plus the fork.
+    expect(blocks.length).toBe(files.length + 1);
+    expect(first.created).toBe(files.length + 1);
+    expect(blocks.every((b) => b.head)).toBe(true);
+    expect(new Set(blocks.filter((b) => b.slug !== "diode-clamp-adc-input").map((b) => b.head!.author.email))).toEqual(new Set(["nadia.okafor@fenwick.test"]));
+    expect(blocks.filter((b) => b.visibility === "public").length).toBeGreaterThanOrEqual(3);
+    const fork = blocks.find((b) => b.forkedFrom)!;
+    expect(fork.slug).toBe("rc-lowpass-antialias-5k1");
+    expect(fork.head!.params.find((p) => p.name === "R")?.value).toBe("5.1 kohm");
+    expect(await em.count(BlockVersionSchema, { block: { slug: "diode-clamp-adc-input" } } as never)).toBe(2);
+    expect(await em.count(ReviewSchema, { decision: "approved", version: { block: { slug: "wien-bridge-sine-1k" } } } as never)).toBe(1);
+    const runs = await em.count(CheckRunSchema, { version: { block: { slug: { $in: slugs } } } } as never);
+    expect(runs).toBe(files.length + 2);
+
+    const second = await seedLibrary(await getEm());
+    expect(second.created).toBe(0);
+    const em2 = await getEm();
+    expect(await em2.count(BlockSchema, { team: fenwick, slug: { $in: slugs } })).toBe(files.length + 1);
+    expect(await em2.count(CheckRunSchema, { version: { block: { slug: { $in: slugs } } } } as never)).toBe(runs);
+    expect(await em2.count(ReviewSchema, { version: { block: { slug: { $in: slugs } } } } as never)).toBe(1);
+  });
+});
