@@ -1,0 +1,165 @@
+import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+import type { Browser, BrowserContext, Page } from "playwright-core";
+import { BlockPage } from "./pages/block-page";
+import { ImportPage } from "./pages/import-page";
+import { LibraryPage } from "./pages/library-page";
+import { RetunePage } from "./pages/retune-page";
+import { ReviewsPage } from "./pages/reviews-page";
+import { SignInPage } from "./pages/sign-in-page";
+import { assertNoFrameworkError, launch, newContext, shot, watchErrors } from "./support/browser";
+
+// One story through the library, in order: each step builds on the block the one before made.
+const FORK = "opamp-soft-limiter-e2e";
+let browser: Browser;
+let close: () => Promise<void>;
+let author: BrowserContext;
+let page: Page;
+let errors: string[];
+
+async function settle(p: Page, name: string, errs: string[]) {
+  await p.waitForLoadState("networkidle").catch(() => undefined);
+  await assertNoFrameworkError(p);
+  await shot(p, name);
+  expect(errs, `console errors on ${name}`).toEqual([]);
+}
+
+beforeAll(async () => {
+  ({ browser, close } = await launch());
+  author = await newContext(browser, inject("appUrl"));
+  page = await author.newPage();
+  errors = watchErrors(page);
+});
+
+afterAll(async () => {
+  await close?.();
+});
+
+describe("the library in a browser", () => {
+  it("signs in as an author", async () => {
+    await new SignInPage(page).signIn("nadia.okafor@fenwick.test");
+    await settle(page, "01-library-signed-in", errors);
+  });
+
+  it("finds the limiter despite a typo and opens the verified block", async () => {
+    const library = new LibraryPage(page);
+    await library.open();
+    await library.search("limitr");
+    const link = library.resultLink(/Soft limiter/);
+    await link.waitFor({ timeout: 30_000 });
+    await expect(page.locator("mark").first().isVisible()).resolves.toBe(true);
+    await settle(page, "02-library-search-typo", errors);
+    await link.click();
+    await page.waitForURL("**/blocks/opamp-soft-limiter");
+    const block = new BlockPage(page);
+    await block.waitForBadge("verified");
+    // KaTeX rendered the note's math; the checks read as sentences; uPlot drew the stored waveforms.
+    expect(await page.getByTestId("note").locator(".katex").count()).toBeGreaterThan(2);
+    expect(await block.checks().count()).toBe(6);
+    await expect(block.checks().first().textContent()).resolves.toMatch(/passes/);
+    await page.getByTestId("plot").first().locator("canvas").waitFor({ timeout: 15_000 });
+    await settle(page, "03-block-verified", errors);
+  });
+
+  it("forks with a higher gain: the live preview shows the failing check before saving, the badge turns failing", async () => {
+    const block = new BlockPage(page);
+    await block.fork();
+    const retune = new RetunePage(page);
+    await retune.setParam("Rf", "150 kohm");
+    await retune.waitForPreviewCheck("fail", "small-signal gain 10 +/- 3% at every corner");
+    await settle(page, "04-fork-preview-failing", errors);
+    await retune.saveAsFork(FORK);
+    expect(["pending", "failing"]).toContain(await block.badge());
+    await settle(page, "05-fork-pending", errors);
+    await block.waitForBadge("failing");
+    await settle(page, "06-fork-failing", errors);
+  });
+
+  it("retunes with the assistant back to passing", async () => {
+    const block = new BlockPage(page);
+    await block.fork();
+    const retune = new RetunePage(page);
+    // G_ss = -Rf/Ri with Ri = 10 kohm: the gain of -10 asks for Rf = 100 kohm, an E24 value.
+    const used = await retune.retune("Rf", "G_ss", "-10", "E24");
+    expect(used).toMatch(/100 kohm|100 kΩ|100000/);
+    await retune.waitForPreviewCheck("pass", "small-signal gain 10 +/- 3% at every corner");
+    await settle(page, "07-retune-assistant", errors);
+    await retune.saveAsVersion(FORK, "gain back to 10 with the retune assistant");
+    await block.waitForBadge("verified");
+    await page.getByRole("button", { name: "Ask for review" }).click();
+    await page.getByText("Review requested from the team's maintainers.").waitFor();
+    await settle(page, "08-fork-retuned-verified", errors);
+  });
+
+  it("approves the retuned version as a maintainer", async () => {
+    const ctx = await newContext(browser, inject("appUrl"));
+    const reviewer = await ctx.newPage();
+    const reviewerErrors = watchErrors(reviewer);
+    await new SignInPage(reviewer).signIn("tomas.reyes@fenwick.test");
+    const reviews = new ReviewsPage(reviewer);
+    await reviews.open();
+    await settle(reviewer, "09-review-queue", reviewerErrors);
+    await reviews.approve(FORK, 2, "Gain and limiting agree with the hand analysis.");
+    await new BlockPage(reviewer).open(FORK);
+    await expect(reviewer.getByTestId("block-badge").locator("svg").getAttribute("aria-label")).resolves.toMatch(/approved/);
+    await settle(reviewer, "10-block-approved", reviewerErrors);
+    await ctx.close();
+  });
+
+  it("compares the two versions and lists the runs", async () => {
+    await page.goto(`/blocks/${FORK}/compare?a=1&b=2`);
+    await page.getByRole("cell", { name: "Rf" }).or(page.getByRole("rowheader", { name: "Rf" })).first().waitFor();
+    await settle(page, "11-compare", errors);
+    await page.goto(`/blocks/${FORK}/runs`);
+    expect(await page.getByTestId("run-history").locator("tbody tr").count()).toBeGreaterThanOrEqual(2);
+    await settle(page, "12-runs", errors);
+  });
+
+  it("imports a SPICE netlist, listing the dropped lines", async () => {
+    const imp = new ImportPage(page);
+    await imp.open();
+    const netlist = "* RC divider from the bench\n.param R1v=4.7k\n.param C1v=10n\nV1 in 0 AC 1\nR1 in out {R1v}\nC1 out 0 {C1v}\n.ac dec 10 10 1meg\n.control\nrun\n.endc\n.end\n";
+    await imp.read({ name: "rc-divider-e2e.cir", mimeType: "text/plain", buffer: Buffer.from(netlist) });
+    await expect(imp.droppedLines().textContent()).resolves.toContain(".control");
+    await settle(page, "13-import-netlist", errors);
+    await imp.create("rc-divider-e2e");
+    await expect(page.getByTestId("param-table").textContent()).resolves.toContain("R1v");
+    await settle(page, "14-imported-block", errors);
+  });
+
+  it("renders neither a script tag nor a javascript: link from a note", async () => {
+    const imp = new ImportPage(page);
+    await imp.open();
+    const file = [
+      "---", "slug: note-injection-e2e", "title: A note that tries to run script", "category: other", "tags: [test]",
+      "summary: Checks that notes are sanitised.", "params:", "  - { name: R, value: 1 kohm, tol: 1% }", "---",
+      "Plain words and $R = 1\\,\\mathrm{k\\Omega}$.", "", "<script>window.__noteScriptRan = true</script>", "",
+      "A [dangerous link](javascript:window.__noteLinkRan=true) and <img src=x onerror=\"window.__noteImgRan=true\">.", "",
+      "```spice", "R1 a 0 {R}", "V1 a 0 1", "```", "", "```check", "I = 1 V / R", "check(\"current is 1 mA\", near(I, 1 mA, 2%))", "```", "",
+    ].join("\n");
+    await imp.read({ name: "note-injection-e2e.md", mimeType: "text/markdown", buffer: Buffer.from(file) });
+    await imp.create("note-injection-e2e");
+    const note = page.getByTestId("note");
+    await note.locator(".katex").first().waitFor();
+    expect(await note.locator("script").count()).toBe(0);
+    expect(await note.locator('a[href^="javascript:"]').count()).toBe(0);
+    expect(await note.locator("[onerror]").count()).toBe(0);
+    expect(await note.getByText("dangerous link").count()).toBe(1);
+    const ran = await page.evaluate(() => {
+      const w = window as unknown as Record<string, unknown>;
+      return [w.__noteScriptRan, w.__noteLinkRan, w.__noteImgRan];
+    });
+    expect(ran).toEqual([undefined, undefined, undefined]);
+    await settle(page, "15-note-sanitised", errors);
+  });
+
+  it("holds up on a narrow screen", async () => {
+    const ctx = await browser.newContext({ baseURL: inject("appUrl"), viewport: { width: 390, height: 844 } });
+    const phone = await ctx.newPage();
+    const phoneErrors = watchErrors(phone);
+    await phone.goto("/blocks/opamp-soft-limiter");
+    const overflow = await phone.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+    expect(overflow).toBeLessThanOrEqual(1);
+    await settle(phone, "16-block-narrow", phoneErrors);
+    await ctx.close();
+  });
+});

@@ -1,0 +1,23 @@
+import type { Page } from "playwright-core";
+
+export class ImportPage {
+  constructor(private readonly page: Page) {}
+
+  async open(): Promise<void> {
+    await this.page.goto("/import");
+  }
+
+  async read(file: { name: string; mimeType: string; buffer: Buffer }): Promise<void> {
+    await this.page.getByLabel("Block file or SPICE netlist").setInputFiles(file);
+    await this.page.getByRole("button", { name: "Read the file" }).click();
+    await this.page.waitForFunction(() => (document.querySelector("#import-text") as HTMLTextAreaElement | null)?.value.includes("---"), null, { timeout: 30_000 });
+  }
+
+  droppedLines() {
+    return this.page.getByTestId("dropped-lines");
+  }
+
+  async create(slug: string): Promise<void> {
+    await Promise.all([this.page.waitForURL(`**/blocks/${slug}`, { timeout: 60_000 }), this.page.getByRole("button", { name: "Create the block" }).click()]);
+  }
+}

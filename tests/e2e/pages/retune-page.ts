@@ -1,0 +1,45 @@
+import type { Page } from "playwright-core";
+
+export class RetunePage {
+  constructor(private readonly page: Page) {}
+
+  async setParam(name: string, value: string): Promise<void> {
+    const input = this.page.locator(`input[data-param="${name}"]`);
+    await input.fill(value);
+  }
+
+  preview() {
+    return this.page.getByTestId("live-preview");
+  }
+
+  async waitForPreviewCheck(status: "pass" | "fail", label: string): Promise<void> {
+    await this.preview().locator(`li[data-status="${status}"]`, { hasText: label }).waitFor({ timeout: 30_000 });
+  }
+
+  async retune(param: string, quantity: string, target: string, series = "E24"): Promise<string> {
+    const box = this.page.getByTestId("retune-assistant");
+    await box.getByLabel("Parameter").selectOption(param);
+    await box.getByLabel("Quantity").selectOption(quantity);
+    await box.getByLabel("Series").selectOption(series);
+    await box.getByLabel("Target").fill(target);
+    await box.getByRole("button", { name: "Solve" }).click();
+    const result = this.page.getByTestId("retune-result");
+    await result.waitFor({ timeout: 30_000 });
+    const use = result.getByRole("button", { name: /^Use / });
+    const text = (await use.textContent()) ?? "";
+    await use.click();
+    return text;
+  }
+
+  async saveAsFork(slug: string): Promise<void> {
+    await this.page.getByLabel(/a fork/).check();
+    await this.page.getByLabel(/Slug of the fork/).fill(slug);
+    await Promise.all([this.page.waitForURL(`**/blocks/${slug}`, { timeout: 60_000 }), this.page.getByRole("button", { name: "Save the fork" }).click()]);
+  }
+
+  async saveAsVersion(slug: string, message: string): Promise<void> {
+    await this.page.getByLabel(/the next version of this block/).check();
+    await this.page.getByLabel("Message").fill(message);
+    await Promise.all([this.page.waitForURL(`**/blocks/${slug}`, { timeout: 60_000 }), this.page.getByRole("button", { name: "Save the version" }).click()]);
+  }
+}
