@@ -1,4 +1,7 @@
+import type { BlockError } from "../block/types";
 import { toleranceCorners } from "../corners";
+import { defaultModelsDir } from "../spice/paths";
+import { sanitizeNetlist } from "../spice/sanitize";
 import type { Analysis, SimHooks } from "../script/builtins";
 import { runScript } from "../script/evaluate";
 import { nominalValues, noSimulation, prepare, scopeFor } from "./prepare";
@@ -18,7 +21,10 @@ export function evaluateBlock(text: string, opts: EvaluateOptions = {}): { repor
     report.status = reportStatus(report);
     return { report, waveforms: [] };
   }
-  const simulate = Boolean(opts.simulate && opts.backend);
+  // A refused netlist is reported at once, in previews too, on its line in the block file.
+  const refused = netlistRefusal(block.netlist, block.netlistLine);
+  if (refused) report.errors.push(refused);
+  const simulate = Boolean(opts.simulate && opts.backend && !refused);
   const sims: { analysis: Analysis; result: unknown; windows: Waveform["windows"]; marks: Waveform["marks"]; nodes: Set<string> }[] = [];
   const hooks: SimHooks = simulate
     ? {
@@ -72,4 +78,15 @@ export function evaluateBlock(text: string, opts: EvaluateOptions = {}): { repor
 function pushOnce<T>(list: T[], item: T) {
   const key = JSON.stringify(item);
   if (!list.some((x) => JSON.stringify(x) === key)) list.push(item);
+}
+
+function netlistRefusal(netlist: string, firstLine: number): BlockError | null {
+  if (!netlist.trim()) return null;
+  try {
+    sanitizeNetlist(netlist, defaultModelsDir());
+    return null;
+  } catch (e) {
+    const line = (e as { line?: number }).line;
+    return { message: `netlist: ${(e as Error).message}`, ...(line !== undefined ? { line: firstLine + line - 1 } : {}) };
+  }
 }

@@ -75,7 +75,7 @@ export class SandboxLane {
     if (this.pending.size === 0 && this.child) {
       this.child.unref();
       (this.child.channel as unknown as { unref?: () => void } | undefined)?.unref?.();
-      this.child.stderr?.unref?.();
+      (this.child.stderr as unknown as { unref?: () => void } | null)?.unref?.();
     }
   }
 

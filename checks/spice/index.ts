@@ -23,9 +23,10 @@ export function writeDeck(req: SimRequest, modelsDir?: string): string {
  * or none when the content-addressed cache already holds the raw file.
  */
 export function simulate(req: SimRequest, opts: SimOptions = {}): SimResult {
+  const deck = writeDeck(req, opts.modelsDir); // refusals come before anything runs
+  const version = ngspiceVersion(); // once per process, outside the timed part
   const t0 = performance.now();
-  const deck = writeDeck(req, opts.modelsDir);
-  const key = cacheKey(deck, ngspiceVersion(), `${opts.engineVersion ?? ENGINE_VERSION}/${SPICE_RUNNER_VERSION}`);
+  const key = cacheKey(deck, version, `${opts.engineVersion ?? ENGINE_VERSION}/${SPICE_RUNNER_VERSION}`);
   const dir = opts.cacheDir ?? defaultCacheDir();
   const hit = opts.noCache ? null : readCached(dir, key);
   const raw = hit ?? runNgspice(deck, { timeoutMs: opts.timeoutMs, circuitOffset: circuitOffset(req), circuit: req.circuit }).raw;

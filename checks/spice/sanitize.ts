@@ -1,5 +1,6 @@
 import fs from "node:fs";
 import path from "node:path";
+import { defaultModelsDir } from "./paths";
 import { SpiceError } from "./types";
 
 // DESIGN.md "Block file format": what a block circuit may hold. Everything else is refused
@@ -35,7 +36,7 @@ function code(line: string): string {
  * Check a block circuit line by line and return it with `.include NAME.lib` resolved to the
  * model library's absolute path. Line count is kept, so ngspice's line numbers map back.
  */
-export function sanitizeNetlist(circuit: string, modelsDir: string): string {
+export function sanitizeNetlist(circuit: string, modelsDir = defaultModelsDir()): string {
   const lines = circuit.replace(/\r\n?/g, "\n").split("\n");
   const out: string[] = [];
   let card = ""; // the card a `+` continuation belongs to
