@@ -1,9 +1,5 @@
-import os from "node:os";
-
 // Reader for ngspice's binary raw files (`ngspice -b -r FILE`): a text header, then the
 // points as little-endian float64, one per variable (two, re and im, for complex plots).
-
-const BIG_ENDIAN = os.endianness() === "BE";
 
 export type RawVariable = { index: number; name: string; type: string };
 export type RawPlot = {
@@ -18,8 +14,9 @@ export type RawPlot = {
 export function parseRawFile(buf: Buffer): RawPlot[] {
   const plots: RawPlot[] = [];
   let pos = 0;
-  while (pos < buf.length) {
-    if (buf.subarray(pos).toString("latin1").trim() === "") break;
+  for (;;) {
+    while (pos < buf.length && (buf[pos] === 0x0a || buf[pos] === 0x0d || buf[pos] === 0x20)) pos++;
+    if (pos >= buf.length) break;
     const { plot, end } = parsePlot(buf, pos);
     plots.push(plot);
     pos = end;
@@ -62,16 +59,15 @@ function parsePlot(buf: Buffer, start: number): { plot: RawPlot; end: number } {
   if (pos + bytes > buf.length) throw new Error(`raw file is truncated: ${points} points declared, ${buf.length - pos} data bytes present`);
   const real = variables.map(() => new Float64Array(points));
   const imag = complex ? variables.map(() => new Float64Array(points)) : undefined;
-  // One aligned copy, then de-interleave: much faster than a readDoubleLE per value.
-  const data = new Float64Array(buf.buffer.slice(buf.byteOffset + pos, buf.byteOffset + pos + bytes));
-  if (BIG_ENDIAN) for (let b = 0; b < bytes; b += 8) data[b / 8] = buf.readDoubleLE(pos + b);
-  const stride = nVars * width;
+  // A DataView reads the doubles in place: no alignment copy, little-endian on any host.
+  const data = new DataView(buf.buffer, buf.byteOffset + pos, bytes);
+  const stride = nVars * width * 8;
   for (let v = 0; v < nVars; v++) {
     const re = real[v];
     const im = imag?.[v];
-    for (let k = 0, j = v * width; k < points; k++, j += stride) {
-      re[k] = data[j];
-      if (im) im[k] = data[j + 1];
+    for (let k = 0, j = v * width * 8; k < points; k++, j += stride) {
+      re[k] = data.getFloat64(j, true);
+      if (im) im[k] = data.getFloat64(j + 8, true);
     }
   }
   const p = pos + bytes;
