@@ -5,6 +5,7 @@ import { Store } from "./store";
 import { isoDuration, newTask, summary, type PendingTask, type TaskPayload, type TaskRecord, type TaskType } from "./tasks";
 
 const KEEP_FINISHED = 2000;
+const MAX_BATCH = 100;
 
 interface TaskFile {
   nextUid: number;
@@ -75,28 +76,62 @@ export class Engine {
     });
   }
 
+  // Runs the queued tasks as one batch, like Meilisearch's autobatching: each
+  // is applied in memory in order, then every touched index is saved once, and
+  // only then are the tasks marked finished.
   private async drain() {
     while (this.queue.length) {
-      const { task, payload } = this.queue[0];
+      const batch = this.queue.slice(0, MAX_BATCH);
+      const touched = new Set<string>();
       const started = Date.now();
-      task.status = "processing";
-      task.startedAt = new Date(started).toISOString();
-      task.batchUid = task.uid;
-      try {
-        Object.assign(task.details, await this.apply(task.indexUid!, payload));
-        task.status = "succeeded";
-      } catch (e) {
-        const err = e instanceof MeiliError ? e : errors.internal(String((e as Error)?.message ?? e));
-        task.status = "failed";
-        task.error = err.toJSON();
-        for (const k of ["indexedDocuments", "deletedDocuments"]) if (k in task.details) task.details[k] = 0;
+      const outcomes: ("succeeded" | "failed")[] = [];
+      for (const { task } of batch) {
+        task.status = "processing";
+        task.startedAt = new Date(started).toISOString();
+        task.batchUid = batch[0].task.uid;
       }
-      task.finishedAt = new Date().toISOString();
-      task.duration = isoDuration(Date.now() - started);
-      this.queue.shift();
+      for (const { task, payload } of batch) {
+        try {
+          Object.assign(task.details, this.apply(task.indexUid!, payload));
+          outcomes.push("succeeded");
+          touched.add(task.indexUid!);
+        } catch (e) {
+          const err = e instanceof MeiliError ? e : errors.internal(String((e as Error)?.message ?? e));
+          outcomes.push("failed");
+          task.error = err.toJSON();
+          for (const k of ["indexedDocuments", "deletedDocuments"]) if (k in task.details) task.details[k] = 0;
+        }
+      }
+      await this.persist(touched);
+      // The status is what the client waits on: set it after the writes.
+      const finished = new Date().toISOString();
+      batch.forEach(({ task }, i) => {
+        task.status = outcomes[i];
+        task.finishedAt = finished;
+        task.duration = isoDuration(Date.now() - started);
+      });
+      this.queue.splice(0, batch.length);
       this.trimTasks();
       await this.store.writeJson("tasks.json", { nextUid: this.nextUid, tasks: this.tasks } satisfies TaskFile);
-      await this.store.remove(`queue/${task.uid}.json`);
+      for (const { task } of batch) await this.store.remove(`queue/${task.uid}.json`);
+    }
+  }
+
+  // A failed write (a full disk) is retried: the tasks are already applied in
+  // memory and stay "processing" until their result is on disk.
+  private async persist(touched: Set<string>) {
+    for (;;) {
+      try {
+        for (const uid of touched) {
+          const idx = this.indexes.get(uid);
+          if (idx) await this.store.saveIndex(idx.snapshot());
+          else await this.store.deleteIndex(uid);
+        }
+        return;
+      } catch (e) {
+        console.error(`search server: could not save the index, retrying in 1 s: ${(e as Error).message}`);
+        await new Promise((r) => setTimeout(r, 1000));
+      }
     }
   }
 
@@ -113,65 +148,44 @@ export class Engine {
     return idx;
   }
 
-  private async apply(uid: string, p: TaskPayload): Promise<Record<string, unknown>> {
+  private apply(uid: string, p: TaskPayload): Record<string, unknown> {
     switch (p.kind) {
       case "createIndex": {
         if (this.indexes.has(uid)) throw errors.indexAlreadyExists(uid);
-        const idx = new IndexState(uid, p.primaryKey);
-        this.indexes.set(uid, idx);
-        await this.store.saveIndex(idx.snapshot());
+        this.indexes.set(uid, new IndexState(uid, p.primaryKey));
         return {};
       }
-      case "updateIndex": {
-        const idx = this.index(uid);
-        idx.setPrimaryKey(p.primaryKey);
-        await this.store.saveIndex(idx.snapshot());
+      case "updateIndex":
+        this.index(uid).setPrimaryKey(p.primaryKey);
         return {};
-      }
       case "deleteIndex": {
         const idx = this.index(uid);
         this.indexes.delete(uid);
-        await this.store.deleteIndex(uid);
         return { deletedDocuments: idx.docs.size };
       }
       case "addDocuments": {
         const existed = this.indexes.has(uid);
         const idx = this.orCreate(uid);
         try {
-          const n = idx.addDocuments(p.documents, p.mode, p.primaryKey);
-          await this.store.saveIndex(idx.snapshot());
-          return { indexedDocuments: n };
+          return { indexedDocuments: idx.addDocuments(p.documents, p.mode, p.primaryKey) };
         } catch (e) {
           if (!existed) this.indexes.delete(uid);
           throw e;
         }
       }
-      case "deleteDocuments": {
-        const idx = this.index(uid);
-        const n = idx.deleteDocuments(p.ids);
-        await this.store.saveIndex(idx.snapshot());
-        return { deletedDocuments: n };
-      }
+      case "deleteDocuments":
+        return { deletedDocuments: this.index(uid).deleteDocuments(p.ids) };
       case "deleteByFilter": {
         const idx = this.index(uid);
         const pred = filterPredicate(idx, p.filter);
         const keys = pred ? [...idx.flats].filter(([, f]) => pred(f)).map(([k]) => k) : [];
-        const n = idx.deleteDocuments(keys);
-        await this.store.saveIndex(idx.snapshot());
-        return { deletedDocuments: n };
+        return { deletedDocuments: idx.deleteDocuments(keys) };
       }
-      case "clearDocuments": {
-        const idx = this.index(uid);
-        const n = idx.clear();
-        await this.store.saveIndex(idx.snapshot());
-        return { deletedDocuments: n };
-      }
-      case "updateSettings": {
-        const idx = this.orCreate(uid);
-        idx.updateSettings(p.settings);
-        await this.store.saveIndex(idx.snapshot());
+      case "clearDocuments":
+        return { deletedDocuments: this.index(uid).clear() };
+      case "updateSettings":
+        this.orCreate(uid).updateSettings(p.settings);
         return {};
-      }
     }
   }
 

@@ -1,5 +1,5 @@
 import { mkdirSync, readdirSync, readFileSync, renameSync, rmSync, writeFileSync } from "node:fs";
-import { rename, rm, writeFile } from "node:fs/promises";
+import { open, rename, rm, writeFile } from "node:fs/promises";
 import path from "node:path";
 import type { IndexSnapshot } from "./index-state";
 
@@ -46,8 +46,25 @@ export class Store {
     await rm(path.join(this.dir, rel), { force: true });
   }
 
-  saveIndex(snapshot: IndexSnapshot) {
-    return this.writeJson(path.join("indexes", `${snapshot.uid}.json`), snapshot);
+  // Written a slice of documents at a time, yielding between slices, so a large
+  // index does not hold up searches while it is saved.
+  async saveIndex(snapshot: IndexSnapshot) {
+    const file = path.join(this.dir, "indexes", `${snapshot.uid}.json`);
+    const tmp = this.tmp(file);
+    const { documents, ...head } = snapshot;
+    const fh = await open(tmp, "w");
+    try {
+      await fh.write(`${JSON.stringify(head).slice(0, -1)},"documents":[`);
+      for (let i = 0; i < documents.length; i += 250) {
+        const slice = documents.slice(i, i + 250).map((d) => JSON.stringify(d)).join(",");
+        await fh.write(i === 0 ? slice : `,${slice}`);
+      }
+      await fh.write("]}");
+      await fh.sync();
+    } finally {
+      await fh.close();
+    }
+    await rename(tmp, file);
   }
 
   deleteIndex(uid: string) {

@@ -1,5 +1,5 @@
 import { spawn } from "node:child_process";
-import { mkdtempSync, readFileSync, rmSync, statSync } from "node:fs";
+import { mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from "node:fs";
 import { createServer } from "node:net";
 import { tmpdir } from "node:os";
 import path from "node:path";
@@ -7,6 +7,7 @@ import { afterEach, describe, expect, it } from "vitest";
 import { Meilisearch } from "meilisearch";
 import { startSearchServer } from "@/lib/search/server";
 import { ensureMasterKey } from "@/lib/search/server/key";
+import { newTask } from "@/lib/search/server/tasks";
 import { blockDocs, blockSettings } from "./fixtures";
 
 // What only the local stand-in promises beyond the shared contract: its index
@@ -43,6 +44,26 @@ describe("local search server", () => {
       expect((await client.tasks.getTask(added.uid)).status).toBe("succeeded");
       const next = await client.index("blocks").addDocuments([{ id: 7, title: "Twin-T notch" }]).waitTask();
       expect(next.uid).toBeGreaterThan(added.uid);
+    } finally {
+      await second.close();
+    }
+  });
+
+  it("runs the tasks it had accepted but not run when it stopped", async () => {
+    const dir = tempDir();
+    const first = await startSearchServer({ port: 0, key: "k2", dir });
+    await new Meilisearch({ host: first.url, apiKey: "k2" }).createIndex("blocks", { primaryKey: "id" }).waitTask();
+    await first.close();
+    // What an accepted, unprocessed addition leaves on disk (queue/<taskUid>.json).
+    mkdirSync(path.join(dir, "queue"), { recursive: true });
+    const task = newTask(1, "blocks", "documentAdditionOrUpdate", { receivedDocuments: 2, indexedDocuments: null });
+    writeFileSync(path.join(dir, "queue", "1.json"), JSON.stringify({ task, payload: { kind: "addDocuments", documents: blockDocs.slice(0, 2), mode: "replace" } }));
+    const second = await startSearchServer({ port: 0, key: "k2", dir });
+    try {
+      const client = new Meilisearch({ host: second.url, apiKey: "k2" });
+      expect(await client.tasks.waitForTask(1)).toMatchObject({ status: "succeeded", details: { indexedDocuments: 2 } });
+      expect((await client.index("blocks").getDocuments()).total).toBe(2);
+      expect(readdirSync(path.join(dir, "queue"))).toEqual([]);
     } finally {
       await second.close();
     }
