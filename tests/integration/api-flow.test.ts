@@ -140,8 +140,11 @@ describe("versions, forks and runs", () => {
     expect(child.forkedFrom).toEqual({ slug: pub, version: 1 });
     expect(child.badge).toBe("verified");
     expect(child.params.find((p) => p.name === "R")?.value).toBe("5.1 kohm");
-    const parent = blockSchema.parse((await w.client.GET("/api/v1/blocks/{slug}", { params: { path: { slug: pub } } })).data);
-    expect(parent.lineage.forks.map((f) => f.slug)).toContain(fork);
+    // The fork is a team block: its public parent lists it to members only.
+    const parent = blockSchema.parse((await w.client.GET("/api/v1/blocks/{slug}", { params: { path: { slug: pub } }, headers: bearer(w.people.viewer.read) })).data);
+    expect(parent.lineage.forks).toEqual([{ slug: fork, title: "RC anti-alias low-pass, 3.4 kHz (E24 values)", fromVersion: 1 }]);
+    const seenByAnyone = blockSchema.parse((await w.client.GET("/api/v1/blocks/{slug}", { params: { path: { slug: pub } } })).data);
+    expect(seenByAnyone.lineage.forks).toEqual([]);
   });
 
   it("adds a version from new values, then refuses a stale base with 409 and the head", async () => {
@@ -261,5 +264,15 @@ describe("badge, search and the document", () => {
     const res = await fetch(`${w.app.url}/api/v1/openapi.json`);
     expect(res.status).toBe(200);
     expect(await res.json()).toEqual(JSON.parse(JSON.stringify(openApiDocument())));
+  });
+
+  it("renders the API reference page from that document, with no external assets", async () => {
+    const res = await fetch(`${w.app.url}/api-docs`);
+    expect(res.status).toBe(200);
+    const html = await res.text();
+    for (const op of ["getVersion", "addVersion", "forkBlock", "getBadge"]) expect(html).toContain(`id="${op}"`);
+    expect(html).toContain("/api/v1/blocks/{slug}/versions/{n}");
+    expect(html).toContain('id="schema-Block"');
+    expect(html).not.toMatch(/<(script|link|img)[^>]+(src|href)="https?:\/\//i);
   });
 });

@@ -1,0 +1,69 @@
+import type { Metadata } from "next";
+import type { OperationObject, PathItemObject } from "openapi3-ts/oas31";
+import { PROBLEM_BASE, problemTypes, STALE_BASE_TYPE } from "@/lib/api/problem";
+import { openApiDocument } from "@/lib/openapi/document";
+import { OperationView } from "./operation-view";
+import { SchemaView } from "./schema-view";
+import type { AnySchema } from "./schema-type";
+
+export const metadata: Metadata = { title: "API reference · Assay" };
+
+const METHODS = ["get", "post", "put", "patch", "delete"] as const;
+
+// Rendered from the same OpenAPI document /api/v1/openapi.json serves, so the page cannot disagree with the API.
+export default function ApiDocsPage() {
+  const doc = openApiDocument();
+  const ops = Object.entries(doc.paths ?? {}).flatMap(([path, item]) =>
+    METHODS.filter((m) => (item as PathItemObject)[m]).map((m) => ({ path, method: m, op: (item as PathItemObject)[m] as OperationObject })),
+  );
+  const schemas = Object.entries((doc.components?.schemas ?? {}) as Record<string, AnySchema>);
+  return (
+    <div className="grid gap-8 lg:grid-cols-[14rem_minmax(0,1fr)]">
+      <nav aria-label="API sections" className="text-sm lg:sticky lg:top-20 lg:self-start">
+        {(doc.tags ?? []).map((t) => (
+          <div key={t.name} className="mb-3">
+            <p className="text-xs font-semibold uppercase tracking-wide text-graphite">{t.name}</p>
+            <ul>
+              {ops.filter((o) => o.op.tags?.includes(t.name)).map((o) => (
+                <li key={o.op.operationId}><a className="font-mono text-xs text-copper-dark hover:underline" href={`#${o.op.operationId}`}>{o.method.toUpperCase()} {o.path.replace("/api/v1", "")}</a></li>
+              ))}
+            </ul>
+          </div>
+        ))}
+        <a className="text-xs text-copper-dark underline" href="#schemas">Schemas</a>
+      </nav>
+      <div className="min-w-0 space-y-8">
+        <header className="max-w-[70ch] space-y-2">
+          <h1 className="font-serif text-2xl">{doc.info.title} <span className="font-mono text-base text-graphite">v{doc.info.version}</span></h1>
+          <p className="font-serif leading-relaxed">{doc.info.description}</p>
+          <p className="text-sm leading-relaxed">
+            Send an API token as <code className="font-mono">Authorization: Bearer $ASSAY_TOKEN</code> (an admin makes tokens in team settings, or
+            <code className="font-mono"> npm run -s token -- EMAIL --team SLUG</code>). A token is bound to one team; a read token cannot write.
+            Public blocks answer without credentials; team blocks answer 404 outside their team. The whole description is at{" "}
+            <a className="text-copper-dark underline" href="/api/v1/openapi.json">/api/v1/openapi.json</a>.
+          </p>
+          <p className="text-sm leading-relaxed">
+            Caching: Block JSON carries a strong ETag over the exact body with <code className="font-mono">no-cache</code> — send it back in
+            <code className="font-mono"> If-None-Match</code> and get 304 while nothing changed (the badge and approval of a version do change).
+            <code className="font-mono"> ?format=md</code> and <code className="font-mono">?format=spice</code> of a numbered version never change and are cached for a year.
+          </p>
+        </header>
+        <section aria-labelledby="problems" className="max-w-[70ch]">
+          <h2 id="problems" className="font-serif text-xl">Problem types</h2>
+          <p className="text-sm">Every error is <code className="font-mono">application/problem+json</code> (RFC 9457) with one of these <code className="font-mono">type</code>s:</p>
+          <ul className="mt-1 font-mono text-xs">
+            {[...Object.values(problemTypes), STALE_BASE_TYPE].sort().map((t) => <li key={t}>{t.replace(PROBLEM_BASE, "…/problems/")}{t === STALE_BASE_TYPE ? " — carries head" : ""}</li>)}
+          </ul>
+        </section>
+        <section aria-labelledby="operations" className="space-y-4">
+          <h2 id="operations" className="font-serif text-xl">Operations</h2>
+          {ops.map((o) => <OperationView key={o.op.operationId} method={o.method} path={o.path} op={o.op} />)}
+        </section>
+        <section id="schemas" aria-labelledby="schemas-h" className="space-y-3">
+          <h2 id="schemas-h" className="font-serif text-xl">Schemas</h2>
+          {schemas.map(([name, s]) => <SchemaView key={name} name={name} schema={s} />)}
+        </section>
+      </div>
+    </div>
+  );
+}
