@@ -18,9 +18,10 @@ export type NgspiceRun = { raw: Buffer; log: string; ms: number };
  */
 export function runNgspice(
   deck: string,
-  opts: { timeoutMs?: number; spinit?: string; circuitOffset?: number; circuit?: string } = {},
+  opts: { timeoutMs?: number; spinit?: string; circuitOffset?: number; circuit?: string; maxRawBytes?: number } = {},
 ): NgspiceRun {
   const timeoutMs = opts.timeoutMs ?? DEFAULT_TIMEOUT_MS;
+  const maxRaw = opts.maxRawBytes ?? MAX_RAW_BYTES;
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), "assay-spice-"));
   try {
     fs.mkdirSync(path.join(dir, "scripts"));
@@ -30,7 +31,7 @@ export function runNgspice(
     const t0 = performance.now();
     const r = spawnSync(
       "prlimit",
-      [`--as=${MAX_MEMORY_BYTES}`, `--cpu=${cpu}`, `--fsize=${MAX_RAW_BYTES}`, "--", "ngspice", "-b", "-r", "out.raw", "deck.cir"],
+      [`--as=${MAX_MEMORY_BYTES}`, `--cpu=${cpu}`, `--fsize=${maxRaw}`, "--", "ngspice", "-b", "-r", "out.raw", "deck.cir"],
       {
         cwd: dir, encoding: "utf8", timeout: timeoutMs, killSignal: "SIGKILL", maxBuffer: 8 * 1024 * 1024,
         // A minimal environment: nothing of the app (secrets, URLs) reaches the simulator.
@@ -43,8 +44,9 @@ export function runNgspice(
       throw new SpiceError(`ngspice did not finish within ${timeoutMs / 1000} s`);
     if (r.error && (r.error as NodeJS.ErrnoException).code === "ENOBUFS") throw new SpiceError("ngspice printed more than 8 MB of messages");
     if (r.error) throw new SpiceError(`cannot run ngspice: ${r.error.message}`);
-    if (r.signal === "SIGXCPU" || r.signal === "SIGKILL") throw new SpiceError(`ngspice used more than ${cpu} s of CPU`);
-    if (r.signal === "SIGXFSZ") throw new SpiceError(`simulation output exceeds ${MAX_RAW_BYTES / 2 ** 20} MB`);
+    if (r.signal === "SIGXCPU") throw new SpiceError(`ngspice used more than ${cpu} s of CPU`);
+    if (r.signal === "SIGXFSZ") throw new SpiceError(`simulation output exceeds ${+(maxRaw / 2 ** 20).toFixed(2)} MB`);
+    if (r.signal) throw new SpiceError(`ngspice was stopped by ${r.signal} (CPU limit ${cpu} s, memory limit ${MAX_MEMORY_BYTES / 2 ** 20} MB)`);
     const rawPath = path.join(dir, "out.raw");
     // ngspice warns on stderr and carries on; only a bad exit, no raw file or an aborted analysis fails.
     if (r.status !== 0 || !fs.existsSync(rawPath) || ABORTED.test(log))

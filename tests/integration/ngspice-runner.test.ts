@@ -2,7 +2,8 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
-import { simulate, SpiceError, type SimRequest } from "@/checks/spice";
+import { simulate, SpiceError, writeDeck, type SimRequest } from "@/checks/spice";
+import { runNgspice } from "@/checks/spice/run-ngspice";
 import { peak } from "@/checks/measures";
 
 const cacheDir = fs.mkdtempSync(path.join(os.tmpdir(), "assay-cache-"));
@@ -87,5 +88,11 @@ describe("simulate()", () => {
     const t0 = Date.now();
     expect(thrown(() => simulate(slow, { noCache: true, timeoutMs: 400 })).message).toMatch(/did not finish within 0.4 s/);
     expect(Date.now() - t0).toBeLessThan(5000);
+  });
+
+  it("stops ngspice when its raw file outgrows the size limit", () => {
+    // 1e5 points of 4 vectors is about 3 MB: over a 1 MB limit the kernel stops the writer (SIGXFSZ).
+    const deck = writeDeck({ ...rc, analysis: { kind: "tran", stop: 0.1, step: 1e-6 } });
+    expect(thrown(() => runNgspice(deck, { maxRawBytes: 2 ** 20 })).message).toMatch(/output exceeds 1 MB/);
   });
 });
