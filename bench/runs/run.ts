@@ -1,0 +1,110 @@
+// npm run bench:runs — how long from storing a version to its badge, and how many runs a second one or two
+// workers verify. Uses a throwaway PostgreSQL cluster and real worker processes; prints figures and ratios.
+import { spawn, type ChildProcess } from "node:child_process";
+import { mkdtempSync, rmSync } from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import { startCluster } from "../../tests/support/pg-cluster";
+import { dividerBlock, wienBlock } from "./blocks";
+
+const LATENCY_SAMPLES = 20;
+const QUEUED = 200;
+const PHASE_LIMIT_MS = 120_000; // keeps the bench bounded on a slow machine: the figure then covers what finished
+
+async function main() {
+  const cluster = await startCluster();
+  process.env.DATABASE_URL = cluster.url;
+  const cache = mkdtempSync(path.join(os.tmpdir(), "assay-bench-cache-"));
+  const workers: ChildProcess[] = [];
+  const { migrateUp } = await import("../../lib/db/migrate");
+  const { closeOrm, getEm } = await import("../../lib/db/orm");
+  const { loadCaller } = await import("../../lib/auth/load-caller");
+  const { createBlock } = await import("../../lib/blocks/create");
+  const { addVersion } = await import("../../lib/blocks/versions");
+  const { MembershipSchema, TeamSchema, UserSchema } = await import("../../entities");
+  try {
+    await migrateUp();
+    const em = await getEm();
+    const team = em.create(TeamSchema, { slug: "bench", name: "Bench", createdAt: new Date() });
+    const user = em.create(UserSchema, { email: "bench@bench.test", name: "Bench", passwordHash: null, createdAt: new Date() });
+    em.create(MembershipSchema, { user, team, role: "author", createdAt: new Date() });
+    await em.flush();
+    const caller = await loadCaller(await getEm(), user.id);
+
+    const startWorker = (id: string) => new Promise<ChildProcess>((resolve, reject) => {
+      const child = spawn(process.execPath, ["--import", "tsx", "scripts/worker.ts", "--team", "bench"], {
+        stdio: ["ignore", "pipe", "inherit"], detached: true,
+        env: { ...process.env, ASSAY_WORKER_ID: id, ASSAY_SIM_CACHE: cache },
+      });
+      workers.push(child);
+      child.stdout!.on("data", (d: Buffer) => { if (d.toString().includes("ready")) resolve(child); });
+      child.once("exit", (code) => reject(new Error(`worker ${id} exited (${code})`)));
+    });
+    const stopWorkers = async () => {
+      for (const w of workers.splice(0)) {
+        process.kill(-w.pid!, "SIGTERM");
+        await new Promise((r) => w.once("exit", r));
+      }
+    };
+    const runStatus = async (id: string) =>
+      ((await (await getEm()).getConnection().execute(`select status from check_runs where id = ?`, [id]))[0] as { status: string }).status;
+    const waitDone = async (id: string) => {
+      for (;;) {
+        if (["done", "error"].includes(await runStatus(id))) return;
+        await new Promise((r) => setTimeout(r, 5));
+      }
+    };
+    const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
+    const p90 = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length * 0.9)];
+
+    // 1. Store-to-badge latency, one worker idle and waiting (woken by NOTIFY on commit).
+    await startWorker("latency");
+    for (const [kind, make, values] of [
+      ["expression-only divider", (s: string, v: string) => dividerBlock(s, v), (i: number) => `${(10 + i * 0.01).toFixed(2)} kohm`],
+      ["simulated Wien oscillator (20 ms tran, no cache hits)", (s: string, v: string) => wienBlock(s, v), (i: number) => `${(22 + i * 0.01).toFixed(2)} kohm`],
+    ] as const) {
+      const slug = kind.startsWith("expr") ? "lat-divider" : "lat-wien";
+      const first = await createBlock(caller, { teamSlug: "bench", text: make(slug, values(0)) });
+      await waitDone(first.run.id);
+      const times: number[] = [];
+      for (let i = 1; i <= LATENCY_SAMPLES; i++) {
+        const t0 = performance.now();
+        const r = await addVersion(caller, slug, { params: kind.startsWith("expr") ? { R2: values(i) } : { Rf: values(i) }, baseVersion: i });
+        await waitDone(r.run.id);
+        times.push(performance.now() - t0);
+      }
+      console.log(`store → badge, ${kind}: median ${median(times).toFixed(0)} ms, p90 ${p90(times).toFixed(0)} ms (n=${LATENCY_SAMPLES})`);
+    }
+    await stopWorkers();
+
+    // 2. Throughput on a queue of 200 stored versions (expression-only), one worker, then two.
+    const rates: number[] = [];
+    for (const n of [1, 2]) {
+      for (let i = 0; i < QUEUED; i++) await createBlock(caller, { teamSlug: "bench", text: dividerBlock(`q${n}-${i}`, `${(9 + (i % 100) * 0.02).toFixed(2)} kohm`) });
+      await Promise.all(Array.from({ length: n }, (_, k) => startWorker(`tp-${n}-${k}`)));
+      const t0 = performance.now();
+      let done = 0;
+      while (performance.now() - t0 < PHASE_LIMIT_MS) {
+        const [row] = await (await getEm()).getConnection().execute(`select count(*) as n from check_runs where status in ('queued','running')`);
+        done = QUEUED - Number((row as { n: string }).n);
+        if (done >= QUEUED) break;
+        await new Promise((r) => setTimeout(r, 50));
+      }
+      const s = (performance.now() - t0) / 1000;
+      rates.push(done / s);
+      console.log(`throughput, ${n} worker${n > 1 ? "s" : ""}: ${done}/${QUEUED} runs in ${s.toFixed(1)} s = ${(done / s).toFixed(1)} runs/s (includes worker warm-up after "ready")`);
+      await stopWorkers();
+    }
+    console.log(`two workers / one worker: ${(rates[1] / rates[0]).toFixed(2)}x on ${os.cpus().length} CPU cores`);
+  } finally {
+    for (const w of workers) try { process.kill(-w.pid!, "SIGKILL"); } catch { /* gone */ }
+    await closeOrm();
+    cluster.stop();
+    rmSync(cache, { recursive: true, force: true });
+  }
+}
+
+main().catch((err: Error) => {
+  console.error(`bench failed: ${err.stack ?? err.message}`);
+  process.exitCode = 1;
+});
