@@ -1,0 +1,32 @@
+"use server";
+import { revalidatePath } from "next/cache";
+import { changePassword, updateName } from "@/lib/auth/profile";
+import { getCaller } from "@/lib/auth/session";
+import { withEm } from "@/lib/db/orm";
+import { firstIssue, passwordChange, profileName } from "@/lib/validation/accounts";
+import { failure, type FormState } from "../form-state";
+
+export async function updateNameAction(_prev: FormState, form: FormData): Promise<FormState> {
+  const parsed = profileName.safeParse({ name: form.get("name") });
+  if (!parsed.success) return { ok: false, message: firstIssue(parsed.error) };
+  const caller = await getCaller();
+  try {
+    await withEm((em) => updateName(em, caller, parsed.data.name));
+  } catch (err) {
+    return failure(err);
+  }
+  revalidatePath("/", "layout");
+  return { ok: true, message: "Name saved." };
+}
+
+export async function changePasswordAction(_prev: FormState, form: FormData): Promise<FormState> {
+  const parsed = passwordChange.safeParse(Object.fromEntries(form));
+  if (!parsed.success) return { ok: false, message: firstIssue(parsed.error) };
+  const caller = await getCaller();
+  try {
+    await withEm((em) => changePassword(em, caller, parsed.data.current, parsed.data.next));
+  } catch (err) {
+    return failure(err);
+  }
+  return { ok: true, message: "Password changed." };
+}
