@@ -2,7 +2,7 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
-import { f3db, gain_db, i, phase, v } from "@/checks/measures";
+import { f3db, freq, gain_db, i, phase, rms, thd, v } from "@/checks/measures";
 import { simulate, type SimRequest } from "@/checks/spice";
 
 const cacheDir = fs.mkdtempSync(path.join(os.tmpdir(), "assay-cache-"));
@@ -57,5 +57,23 @@ describe("operating point in ngspice", () => {
     expect(v(res, "mid")).toBeCloseTo((9 * 3.3) / 10.1, 9);
     expect(i(res, "V1")).toBeCloseTo(-9 / 10.1e3, 12);
     expect(res.scale).toHaveLength(0);
+  });
+});
+
+describe("transient measures on ngspice's own sources", () => {
+  // Two stacked SIN sources: 1.5 V at 1 kHz plus 0.12 V at 3 kHz, i.e. an 8 % third harmonic.
+  // 100 time steps per period: the documented resampling floor is π²/(2·100²) ≈ 5e-4.
+  const res = run({
+    title: "sine sources", params: {}, analysis: { kind: "tran", stop: 20e-3, step: 10e-6 },
+    circuit: "V1 a 0 SIN(0 1.5 1k)\nV2 b a SIN(0 0.12 3k)\nR1 b 0 1k\nR2 a 0 1k",
+  });
+  it("a pure sine: freq exact, rms = A/√2, THD near zero", () => {
+    expect(Math.abs(freq(res, "a", 2e-3, 20e-3) / 1e3 - 1)).toBeLessThan(1e-4);
+    expect(rms(res, "a", 0, 20e-3)).toBeCloseTo(1.5 / Math.SQRT2, 3);
+    expect(thd(res, "a", 2e-3, 20e-3)).toBeLessThan(1e-3);
+  });
+  it("sine plus a known third harmonic: THD is the amplitude ratio", () => {
+    // THD = V3/V1 = 0.12/1.5 = 0.08 by definition (common practice).
+    expect(thd(res, "b", 2e-3, 20e-3)).toBeCloseTo(0.08, 3);
   });
 });
