@@ -14,8 +14,9 @@ export const THD_HARMONICS = 10;
  *     the highest harmonic;
  *  4. a single-bin DFT gives the amplitude V_k of harmonics k = 1..10;
  *  5. THD = sqrt(V_2² + … + V_10²) / V_1.
- * Linear resampling puts a floor near (π/n)²/2 under the result for n samples per period of
- * the simulation: keep the transient step under a hundredth of the period for THD ≲ 0.1 %.
+ * Linear resampling errs by at most (π/n)²/2 of the amplitude for n simulation samples per
+ * period, which bounds the floor it adds (in practice far lower: 6e-8 seen at n = 100, where
+ * the error lands mostly above the 10th harmonic). A step under a hundredth of the period is ample.
  */
 export function thd(res: SimResult, node: string, from?: number, to?: number): number {
   const f = freq(res, node, from, to);
