@@ -115,7 +115,8 @@ describe("versions, lineage and comparison", () => {
     await createBlock(team.author, { teamSlug: team.slug, text: wienFixture(slug) });
     const count = async () => (await getEm()).count(CheckRunSchema, { version: { block: { slug } } } as never);
     const before = await count();
-    for (const bad of [{ params: { Rf: "22 parsecs" } }, { params: { Nope: "1 kohm" } }, { params: { Rf: "22 V" } }, { text: "---\nslug: x\n---\nno frontmatter fields" }]) {
+    const bads: { params?: Record<string, string>; text?: string }[] = [{ params: { Rf: "22 parsecs" } }, { params: { Nope: "1 kohm" } }, { params: { Rf: "22 V" } }, { text: "---\nslug: x\n---\nno frontmatter fields" }];
+    for (const bad of bads) {
       const err = await addVersion(team.author, slug, { ...bad, baseVersion: 1 }).catch((e) => e);
       expect(err).toBeInstanceOf(AppError);
       expect((err as AppError).code).toBe("validation");
