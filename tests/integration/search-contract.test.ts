@@ -235,6 +235,10 @@ describe("search", () => {
     expect(res.hits.map((h) => h.id)).toEqual([1, 6]);
     expect(typeof res.processingTimeMs).toBe("number");
     expect(res.facetDistribution).toBeUndefined();
+    expect(await blocks().search("", { limit: 0 })).toMatchObject({ hits: [], estimatedTotalHits: 6 });
+    expect(await blocks().search("oscillator", { offset: 10 })).toMatchObject({ hits: [], estimatedTotalHits: 2 });
+    const top = await blocks().search("", { sort: ["version:desc"], limit: 1 });
+    expect(top.hits.map((h) => h.id)).toEqual([3]);
   });
 
   it("sorts when asked, alone or after a filter", async () => {

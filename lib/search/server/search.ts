@@ -122,6 +122,27 @@ function matchWords(index: IndexState, q: string, strategy: string): Candidate[]
   });
 }
 
+// The first k candidates in rank order, without sorting the rest: a page of 20
+// out of thousands of matches costs n·log k comparisons, not n·log n.
+function firstRanked<T>(items: T[], k: number, cmp: (a: T, b: T) => number): T[] {
+  if (k <= 0) return [];
+  if (k >= items.length / 4) return [...items].sort(cmp).slice(0, k);
+  const top: T[] = [];
+  for (const item of items) {
+    if (top.length === k && cmp(item, top[k - 1]) >= 0) continue;
+    let lo = 0;
+    let hi = top.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (cmp(top[mid], item) <= 0) lo = mid + 1;
+      else hi = mid;
+    }
+    top.splice(lo, 0, item);
+    if (top.length > k) top.pop();
+  }
+  return top;
+}
+
 export function executeSearch(index: IndexState, p: SearchParams) {
   const started = performance.now();
   const predicate = filterPredicate(index, p.filter);
@@ -149,16 +170,15 @@ export function executeSearch(index: IndexState, p: SearchParams) {
     }
     return 0;
   };
-  candidates.sort(cmp);
-
   const maxTotal = index.settings.pagination.maxTotalHits;
-  const total = Math.min(candidates.length, maxTotal);
   const paged = p.page !== undefined || p.hitsPerPage !== undefined;
   const hitsPerPage = p.hitsPerPage ?? 20;
   const page = p.page ?? 1;
   const offset = paged ? (page - 1) * hitsPerPage : p.offset ?? 0;
   const limit = paged ? hitsPerPage : p.limit ?? 20;
-  const window = candidates.slice(Math.min(offset, total), Math.min(offset + limit, total));
+  const total = Math.min(candidates.length, maxTotal);
+  const ranked = firstRanked(candidates, Math.min(offset + limit, total), cmp);
+  const window = ranked.slice(Math.min(offset, total), Math.min(offset + limit, total));
 
   const facetResult = facets.length ? computeFacets(facets, candidates.map((c) => index.flats.get(c.key)!), index.settings) : null;
   const hits = window.map((c) => formatHit(index, index.docs.get(c.key)!, p, q));
