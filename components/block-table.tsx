@@ -1,20 +1,20 @@
 import Link from "next/link";
 import { Hallmark } from "./hallmark";
 import { when } from "./eng";
+import type { HighlightRun } from "@/lib/search/search";
 
 export interface BlockRow {
   slug: string; title: string; category: string; team: string; version: number; badge: string; approved: boolean;
-  updatedAt: string; summary: string; highlight?: { title: string; summary: string };
+  updatedAt: string; summary: string; highlight?: { title: HighlightRun[]; summary: HighlightRun[] };
 }
 
-/** Highlights come from the search server as text with <mark> tags; everything else is escaped. */
-function Marked({ html, fallback }: { html?: string; fallback: string }) {
-  if (!html) return <>{fallback}</>;
-  const parts = html.split(/(<mark>[\s\S]*?<\/mark>)/g);
+/** Search highlights arrive as plain and matched runs of text; React escapes every run. */
+function Marked({ runs, fallback }: { runs?: HighlightRun[]; fallback: string }) {
+  if (!runs?.length) return <>{fallback}</>;
   return (
     <>
-      {parts.map((p, i) =>
-        p.startsWith("<mark>") ? <mark key={i} className="rounded-sm bg-copper-pale px-0.5 text-ink">{p.slice(6, -7)}</mark> : <span key={i}>{p}</span>,
+      {runs.map((r, i) =>
+        r.match ? <mark key={i} className="rounded-sm bg-copper-pale px-0.5 text-ink">{r.text}</mark> : <span key={i}>{r.text}</span>,
       )}
     </>
   );
@@ -39,9 +39,9 @@ export function BlockTable({ rows, caption }: { rows: BlockRow[]; caption: strin
             <tr key={b.slug} className="border-b border-rule/60 last:border-0 hover:bg-paper/70">
               <td className="px-3 py-2 align-top">
                 <Link href={`/blocks/${b.slug}`} className="font-medium text-copper-dark hover:underline">
-                  <Marked html={b.highlight?.title} fallback={b.title} />
+                  <Marked runs={b.highlight?.title} fallback={b.title} />
                 </Link>
-                <p className="mt-0.5 line-clamp-2 text-xs text-graphite"><Marked html={b.highlight?.summary} fallback={b.summary} /></p>
+                <p className="mt-0.5 line-clamp-2 text-xs text-graphite"><Marked runs={b.highlight?.summary} fallback={b.summary} /></p>
               </td>
               <td className="px-3 py-2 align-top"><Hallmark badge={b.badge} version={b.version} approved={b.approved} id={`row-${b.slug}`} /></td>
               <td className="hidden px-3 py-2 align-top sm:table-cell">{b.category}</td>
