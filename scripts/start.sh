@@ -30,7 +30,8 @@ stop_all() {
   [ -n "$OWN_PG" ] && pg_stop "$OWN_PG"
   say "stopped; data kept in var/"
 }
-trap stop_all INT TERM EXIT
+trap stop_all EXIT
+trap "stop_all; exit 0" INT TERM
 
 if [ -z "${DATABASE_URL:-}" ]; then
   export ASSAY_DB_PORT="${ASSAY_DB_PORT:-54329}"
