@@ -1,4 +1,6 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+
+await vi.hoisted(async () => { await (await import("./blocks-db")).usePrivateDatabase(); });
 import { BlockVersionSchema, CheckRunSchema } from "@/entities";
 import { createBlock } from "@/lib/blocks/create";
 import { getBlock } from "@/lib/blocks/read";

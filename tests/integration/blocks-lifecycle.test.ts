@@ -1,4 +1,6 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+
+await vi.hoisted(async () => { await (await import("./blocks-db")).usePrivateDatabase(); });
 import { ENGINE_VERSION, modelLibraryHash, ngspiceVersion, withParams } from "@/checks";
 import { CheckRunSchema, OutboxEventSchema } from "@/entities";
 import { compareVersions } from "@/lib/blocks/compare";

@@ -1,5 +1,7 @@
 import { readdirSync, readFileSync } from "node:fs";
-import { afterAll, describe, expect, it } from "vitest";
+import { afterAll, describe, expect, it, vi } from "vitest";
+
+await vi.hoisted(async () => { await (await import("./blocks-db")).usePrivateDatabase(); });
 import { BlockSchema, BlockVersionSchema, CheckRunSchema, ReviewSchema, TeamSchema } from "@/entities";
 import { closeOrm, getEm } from "@/lib/db/orm";
 import { seedLibrary } from "@/lib/seed/seed-library";

@@ -1,5 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 
+await vi.hoisted(async () => { await (await import("./blocks-db")).usePrivateDatabase(); });
+
 // Short lease and engine time limit for this file only (each test file runs in its own process).
 vi.hoisted(() => {
   process.env.ASSAY_RUN_LEASE_SECONDS = "1";

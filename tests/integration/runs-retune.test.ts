@@ -1,4 +1,6 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+
+await vi.hoisted(async () => { await (await import("./blocks-db")).usePrivateDatabase(); });
 import { unit } from "mathjs";
 import { createBlock } from "@/lib/blocks/create";
 import { closeOrm } from "@/lib/db/orm";

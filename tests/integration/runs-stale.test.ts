@@ -1,5 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 
+await vi.hoisted(async () => { await (await import("./blocks-db")).usePrivateDatabase(); });
+
 // This file's engine reads a private copy of the model library, so changing it touches nobody else.
 const dirs = vi.hoisted(() => {
   const fs = require("node:fs") as typeof import("node:fs");

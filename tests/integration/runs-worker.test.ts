@@ -2,7 +2,9 @@ import { spawn, type ChildProcess } from "node:child_process";
 import { mkdtempSync, rmSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+
+await vi.hoisted(async () => { await (await import("./blocks-db")).usePrivateDatabase(); });
 import { CheckRunSchema, OutboxEventSchema } from "@/entities";
 import { createBlock } from "@/lib/blocks/create";
 import { getBlock } from "@/lib/blocks/read";
