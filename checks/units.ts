@@ -17,8 +17,25 @@ function dimsOf(unit: string): number[] {
 }
 const sameDims = (a: number[], b: number[]) => a.every((x, i) => Math.abs(x - (b[i] ?? 0)) < 1e-12);
 
+const names = new Map<string, string>();
+const templates = new Map<string, Unit>();
+
+/** 1 of a unit, parsed once: scaling by its SI value replaces mathjs's per-call unit parsing. */
+function template(unit: string): Unit {
+  let t = templates.get(unit);
+  if (!t) templates.set(unit, (t = math.unit(1, unit)));
+  return t;
+}
+
 /** The report's name for a mathjs unit's dimension: "Hz", "V/s", "" for plain. */
 export function unitName(u: Unit): string {
+  const key = u.dimensions.join(",");
+  let name = names.get(key);
+  if (name === undefined) names.set(key, (name = nameFor(u)));
+  return name;
+}
+
+function nameFor(u: Unit): string {
   const d = u.dimensions;
   if (d.every((x) => x === 0)) return "";
   for (const n of NAMED) if (sameDims(d, dimsOf(n))) return n;
@@ -37,16 +54,20 @@ export function toQuantity(x: unknown): Quantity | null {
   if (typeof x === "number") return { si: x, unit: "" };
   if (isUnit(x)) {
     const unit = unitName(x);
-    if (unit === "") return { si: x.value ?? 1, unit: "" };
-    const known = NAMED.includes(unit as (typeof NAMED)[number]) || unit.includes("/") || unit.endsWith("^2");
-    return { si: known ? x.toNumber(unit) : (x.value ?? 1), unit };
+    const value = x.value ?? 1;
+    if (unit === "") return { si: value, unit: "" };
+    return { si: value / template(unit).value!, unit };
   }
   return null;
 }
 
 /** A number in a report unit back to a mathjs value (a Unit, or a number for plain). */
 export function fromQuantity(si: number, unit: string): number | Unit {
-  return unit === "" ? si : math.unit(si, unit);
+  if (unit === "") return si;
+  const t = template(unit);
+  const u = t.clone();
+  u.value = si * t.value!;
+  return u;
 }
 
 const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)(e[+-]?\d+)?$/i;

@@ -3,7 +3,7 @@ import { toleranceCorners } from "../corners";
 import { defaultModelsDir } from "../spice/paths";
 import { sanitizeNetlist } from "../spice/sanitize";
 import type { Analysis, SimHooks } from "../script/builtins";
-import { runScript } from "../script/evaluate";
+import { runScript, type CheckOutcome } from "../script/evaluate";
 import { nominalValues, noSimulation, prepare, scopeFor } from "./prepare";
 import { quantitiesOf, reportStatus, withCorners } from "./report";
 import type { Report, SimBackend, Waveform } from "./types";
@@ -55,13 +55,21 @@ export function evaluateBlock(text: string, opts: EvaluateOptions = {}): { repor
   report.errors.push(...nominal.errors);
   report.quantities = quantitiesOf(nominal.scope, nominal.assigned);
 
+  // Corners run without detail text; the worst corner of each check is rerun with it.
   const { corners } = toleranceCorners(block.params);
   const cornerStatements = statements.filter((s) => !s.simulated);
-  const perCorner = corners.map((c) => runScript(cornerStatements, scopeFor(block, c.values, noSimulation), false).checks);
+  const cornerRun = (k: number, text: boolean) => runScript(cornerStatements, scopeFor(block, corners[k].values, noSimulation), false, text).checks;
+  const perCorner = corners.map((_, k) => cornerRun(k, false));
+  const withText = new Map<number, CheckOutcome[]>();
+  const detailAt = (corner: number, check: number) => {
+    if (!withText.has(corner)) withText.set(corner, cornerRun(corner, true));
+    return withText.get(corner)![check].detail;
+  };
   const plain = nominal.checks.filter((c) => !c.simulated);
   report.checks = nominal.checks.map((c) => {
     const k = plain.indexOf(c);
-    return withCorners(c, k < 0 ? [] : perCorner.map((checks) => checks[k]), k < 0 ? [] : corners);
+    if (k < 0) return withCorners(c, [], [], () => "");
+    return withCorners(c, perCorner.map((checks) => checks[k]), corners, (corner) => detailAt(corner, k));
   });
   report.status = reportStatus(report);
 

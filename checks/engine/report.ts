@@ -24,7 +24,12 @@ export function quantitiesOf(scope: Map<string, unknown>, assigned: { name: stri
 const siOf = (x: unknown) => toQuantity(x)?.si ?? NaN;
 
 /** Fold a check's outcomes at every tolerance corner into its nominal result. */
-export function withCorners(nominal: CheckOutcome, atCorners: CheckOutcome[], corners: Corner[]): CheckReport {
+export function withCorners(
+  nominal: CheckOutcome,
+  atCorners: CheckOutcome[],
+  corners: Corner[],
+  detailAt: (corner: number) => string,
+): CheckReport {
   const out: CheckReport = { label: nominal.label, status: nominal.status, detail: nominal.detail, line: nominal.line, simulated: nominal.simulated };
   if (nominal.simulated || nominal.status === "skipped" || corners.length === 0) return out;
   let worst = -1;
@@ -42,7 +47,7 @@ export function withCorners(nominal: CheckOutcome, atCorners: CheckOutcome[], co
   } else if (nominal.status === "fail" && failing < corners.length) {
     out.detail = `${nominal.detail}; fails at nominal and at ${failing} of ${corners.length} tolerance corners`;
   }
-  if (worst >= 0) out.worst = { corner: corners[worst].label, detail: atCorners[worst].detail };
+  if (worst >= 0) out.worst = { corner: corners[worst].label, detail: atCorners[worst].detail || detailAt(worst) };
   const p = nominal.primary;
   if (p && atCorners.every((c) => c.primary?.label === p.label)) {
     const unit = toQuantity(p.value)?.unit ?? "";

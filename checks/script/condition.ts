@@ -20,6 +20,10 @@ const RELATIONS: Record<string, { sym: string; test: (a: unknown, b: unknown) =>
   unequal: { sym: "!=", test: (a, b) => !math.equal(a as never, b as never), dir: 0 },
 };
 
+// Per parsed node, shared by every corner: compiling and classifying once keeps corners cheap.
+const compiled = new WeakMap<MathNode, { evaluate: (scope: Map<string, unknown>) => unknown }>();
+const operands = new WeakMap<MathNode, { literal: boolean; label: string }>();
+
 type Primary = Judged["primary"];
 /** Limits on the same quantity (fc > 1.5 kHz and fc < 3 kHz) belong on one plot. */
 const merge = (a: Primary, b: Primary): Primary =>
@@ -36,21 +40,30 @@ function si(x: unknown): number {
 /** Evaluates a check condition node by node, keeping each comparison's operands for the report. */
 export class ConditionJudge {
   private shown = new Set<string>();
-  constructor(private scope: Map<string, unknown>) {}
+  /** text=false skips the detail text (tolerance corners need only pass/fail and margins). */
+  constructor(private scope: Map<string, unknown>, private text = true) {}
 
   private value(n: MathNode): unknown {
-    return n.compile().evaluate(this.scope);
+    let c = compiled.get(n);
+    if (!c) compiled.set(n, (c = n.compile()));
+    return c.evaluate(this.scope);
   }
 
   /** A literal (only numbers and unit names) is shown as its value; anything else is named once. */
   private operand(n: MathNode, v: unknown): { text: string; label: string; literal: boolean } {
-    const inner = n.type === "ParenthesisNode" ? (n as unknown as { content: MathNode }).content : n;
-    let literal = true;
-    inner.traverse((c) => {
-      if (c.type === "SymbolNode" && this.scope.has((c as unknown as { name: string }).name)) literal = false;
-      if (c.type === "FunctionNode") literal = false;
-    });
-    const label = inner.type === "SymbolNode" ? (inner as unknown as { name: string }).name : inner.toString();
+    let o = operands.get(n);
+    if (!o) {
+      const inner = n.type === "ParenthesisNode" ? (n as unknown as { content: MathNode }).content : n;
+      let literal = true;
+      inner.traverse((c) => {
+        if (c.type === "SymbolNode" && this.scope.has((c as unknown as { name: string }).name)) literal = false;
+        if (c.type === "FunctionNode") literal = false;
+      });
+      const label = inner.type === "SymbolNode" ? (inner as unknown as { name: string }).name : inner.toString();
+      operands.set(n, (o = { literal, label }));
+    }
+    const { literal, label } = o;
+    if (!this.text) return { text: "", label, literal };
     if (literal || this.shown.has(label)) return { text: formatValue(v), label, literal };
     this.shown.add(label);
     return { text: `${label} = ${formatValue(v)}`, label, literal };
@@ -65,11 +78,11 @@ export class ConditionJudge {
         const b = this.judge(args[1]);
         const ok = fn === "and" ? a.ok && b.ok : a.ok || b.ok;
         const margin = fn === "and" ? Math.min(a.margin, b.margin) : Math.max(a.margin, b.margin);
-        return { ok, margin, text: `${a.text} ${fn} ${b.text}`, primary: merge(a.primary, b.primary) };
+        return { ok, margin, text: this.text ? `${a.text} ${fn} ${b.text}` : "", primary: merge(a.primary, b.primary) };
       }
       if (fn === "not") {
         const a = this.judge(args[0]);
-        return { ok: !a.ok, margin: -a.margin, text: `not (${a.text})`, primary: a.primary };
+        return { ok: !a.ok, margin: -a.margin, text: this.text ? `not (${a.text})` : "", primary: a.primary };
       }
       if (RELATIONS[fn]) return this.relation(fn, args[0], args[1]);
     }
@@ -79,7 +92,7 @@ export class ConditionJudge {
       return {
         ok: parts.every((p) => p.ok),
         margin: Math.min(...parts.map((p) => p.margin)),
-        text: parts.map((p) => p.text).join(" and "),
+        text: this.text ? parts.map((p) => p.text).join(" and ") : "",
         primary: parts.map((p) => p.primary).reduce(merge),
       };
     }
@@ -89,7 +102,7 @@ export class ConditionJudge {
     }
     const v = this.value(n);
     if (typeof v !== "boolean") throw new Error(`the condition ${n.toString()} gives ${formatValue(v)}, not true or false`);
-    return { ok: v, margin: v ? 1 : -1, text: `${n.toString()} ${mark(v)}` };
+    return { ok: v, margin: v ? 1 : -1, text: this.text ? `${n.toString()} ${mark(v)}` : "" };
   }
 
   private relation(fn: string, ln: MathNode, rn: MathNode): Judged {
@@ -103,7 +116,7 @@ export class ConditionJudge {
     const left = this.operand(ln, a);
     const right = this.operand(rn, b);
     const primary = left.literal && !right.literal ? { label: right.label, value: b, limits: [a] } : { label: left.label, value: a, limits: [b] };
-    return { ok, margin, text: `${left.text} ${rel.sym} ${right.text} ${mark(ok)}`, primary };
+    return { ok, margin, text: this.text ? `${left.text} ${rel.sym} ${right.text} ${mark(ok)}` : "", primary };
   }
 
   private near(xn: MathNode, tn: MathNode, toln: MathNode): Judged {
@@ -111,14 +124,12 @@ export class ConditionJudge {
     const r = nearTest(x, t, tol);
     const left = this.operand(xn, x);
     const right = this.operand(tn, t);
+    const margin = (r.tolAbs - Math.abs(r.x - r.target)) / (Math.abs(r.target) || r.tolAbs || 1);
+    const primary = { label: left.label, value: x, limits: [r.target - r.tolAbs, r.target + r.tolAbs] };
+    if (!this.text) return { ok: r.ok, margin, text: "", primary };
     const tolText = isUnit(tol) ? formatValue(tol) : `${formatValue((tol as number) * 100)}%`;
     const off = r.target !== 0 ? ` (off by ${formatValue((100 * (r.x - r.target)) / Math.abs(r.target), 2)}%)` : "";
-    return {
-      ok: r.ok,
-      margin: (r.tolAbs - Math.abs(r.x - r.target)) / (Math.abs(r.target) || r.tolAbs || 1),
-      text: `${left.text} ≈ ${right.text} ± ${tolText} ${mark(r.ok)}${off}`,
-      primary: { label: left.label, value: x, limits: [r.target - r.tolAbs, r.target + r.tolAbs] },
-    };
+    return { ok: r.ok, margin, text: `${left.text} ≈ ${right.text} ± ${tolText} ${mark(r.ok)}${off}`, primary };
   }
 }
 

@@ -31,7 +31,7 @@ function message(e: unknown): string {
  * Run the statements in order. With simulate=false, statements that need a simulation
  * are left out and their checks reported as skipped; nothing else can depend on them.
  */
-export function runScript(statements: Statement[], scope: Map<string, unknown>, simulate: boolean): ScriptRun {
+export function runScript(statements: Statement[], scope: Map<string, unknown>, simulate: boolean, text = true): ScriptRun {
   const run: ScriptRun = { scope, checks: [], errors: [], assigned: [] };
   const failed = new Map<string, number>();
   for (const st of statements) {
@@ -57,7 +57,7 @@ export function runScript(statements: Statement[], scope: Map<string, unknown>, 
         continue;
       }
       try {
-        const j = new ConditionJudge(scope).judge(condition);
+        const j = new ConditionJudge(scope, text).judge(condition);
         run.checks.push({ ...base, status: j.ok ? "pass" : "fail", detail: j.text, margin: j.margin, primary: j.primary });
       } catch (e) {
         run.checks.push({ ...base, status: "error", detail: message(e), margin: -Infinity });
