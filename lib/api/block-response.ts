@@ -12,6 +12,9 @@ export type BlockFormat = "json" | "md" | "spice";
  * and If-None-Match → 304. See lib/api/cache.ts for the cache policy.
  */
 export async function blockResponse(req: Request, caller: Caller, slug: string, version: number | undefined, format: BlockFormat) {
+  // Lineage only goes into the JSON; fetched beside the block rather than after it (each is a few queries).
+  const lineageP = format === "json" ? getLineage(caller, slug) : null;
+  lineageP?.catch(() => {});
   const view = await getBlock(caller, slug, version);
   const fixed = version !== undefined;
   const name = `${view.slug}-v${view.version}`;
@@ -29,7 +32,7 @@ export async function blockResponse(req: Request, caller: Caller, slug: string, 
       ...(fixed ? immutableHeaders(view.visibility) : revalidateHeaders(view.visibility)),
     });
   }
-  const lineage = await getLineage(caller, slug);
+  const lineage = await lineageP!;
   return conditional(req, JSON.stringify(toBlockJson(view, lineage)), {
     "Content-Type": "application/json",
     ...revalidateHeaders(view.visibility),

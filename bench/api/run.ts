@@ -1,0 +1,111 @@
+// npm run bench:api — throughput and tail latency of the block read routes against a bare route handler.
+// Everything runs on loopback: a throwaway PostgreSQL, the local search server and `next start` on free ports.
+import { randomBytes } from "node:crypto";
+import { mkdtempSync, readdirSync, readFileSync, rmSync } from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import autocannon from "autocannon";
+import { startCluster } from "../../tests/support/pg-cluster";
+import { startApp } from "../../tests/support/app-server";
+
+const DURATION_S = Number(process.env.BENCH_DURATION ?? 8);
+const CONNECTIONS = Number(process.env.BENCH_CONNECTIONS ?? 8);
+const SLUG = "rc-lowpass-antialias";
+
+interface Figure {
+  rps: number;
+  p50: number;
+  p99: number;
+  non2xx: number;
+}
+
+async function measure(url: string, headers: Record<string, string>, expectStatus: number): Promise<Figure> {
+  // A short warm-up so the first compile of each route and the connection pool are not in the figures.
+  await autocannon({ url, headers, connections: 2, duration: 1 });
+  const r = await autocannon({ url, headers, connections: CONNECTIONS, duration: DURATION_S });
+  const wrong = expectStatus === 304 ? r["2xx"] + r["4xx"] + r["5xx"] : r.non2xx;
+  return { rps: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, non2xx: wrong + r.errors + r.timeouts };
+}
+
+async function seed(token: { set: (t: string) => void }) {
+  const { migrateUp } = await import("../../lib/db/migrate");
+  const { getEm } = await import("../../lib/db/orm");
+  const { TeamSchema, UserSchema, MembershipSchema } = await import("../../entities");
+  const { loadCaller } = await import("../../lib/auth/load-caller");
+  const { createBlock } = await import("../../lib/blocks/create");
+  const { createToken } = await import("../../lib/tokens/tokens");
+  const { reindexAll } = await import("../../lib/search/indexer");
+  await migrateUp();
+  const em = await getEm();
+  const team = em.create(TeamSchema, { slug: "fenwick", name: "Fenwick Analog Works" });
+  const user = em.create(UserSchema, { email: "nadia.okafor@fenwick.test", name: "Nadia Okafor", passwordHash: null });
+  await em.flush();
+  em.create(MembershipSchema, { user, team, role: "author" });
+  await em.flush();
+  const caller = await loadCaller(await getEm(), user.id);
+  const dir = path.resolve("content/blocks");
+  let stored = 0;
+  for (const f of readdirSync(dir).filter((n) => n.endsWith(".md"))) {
+    try {
+      await createBlock(caller, { teamSlug: "fenwick", text: readFileSync(path.join(dir, f), "utf8"), visibility: "team" });
+      stored++;
+    } catch (err) {
+      console.warn(`skipped ${f}: ${(err as Error).message}`);
+    }
+  }
+  const { token: t } = await createToken(await getEm(), { userId: user.id, teamId: team.id, name: "bench", scope: "read", expiresAt: null });
+  token.set(t);
+  const indexed = await reindexAll(await getEm());
+  return { stored, indexed };
+}
+
+async function main() {
+  const cluster = await startCluster();
+  const tmp = mkdtempSync(path.join(os.tmpdir(), "assay-bench-api-"));
+  const key = randomBytes(16).toString("hex");
+  Object.assign(process.env, { DATABASE_URL: cluster.url, MEILI_MASTER_KEY: key });
+  const { startSearchServer } = await import("../../lib/search/server/index");
+  const search = await startSearchServer({ port: 0, key, dir: path.join(tmp, "search") });
+  process.env.MEILI_URL = search.url;
+  let app: Awaited<ReturnType<typeof startApp>> | undefined;
+  try {
+    let token = "";
+    const { stored, indexed } = await seed({ set: (t) => (token = t) });
+    const { closeOrm } = await import("../../lib/db/orm");
+    await closeOrm();
+    app = await startApp({ env: { DATABASE_URL: cluster.url, MEILI_URL: search.url, MEILI_MASTER_KEY: key, ASSAY_BENCH: "1" } });
+    const auth = { Authorization: `Bearer ${token}` };
+    const version = await fetch(`${app.url}/api/v1/blocks/${SLUG}/versions/1`, { headers: auth });
+    if (version.status !== 200) throw new Error(`version fetch answered ${version.status}: ${await version.text()}`);
+    const etag = version.headers.get("etag")!;
+
+    const targets: [string, string, Record<string, string>, number][] = [
+      ["bare handler (constant)", "/api/v1/bench/constant", {}, 200],
+      [`GET /blocks/{slug} (head)`, `/api/v1/blocks/${SLUG}`, auth, 200],
+      [`GET /blocks/{slug}/versions/1`, `/api/v1/blocks/${SLUG}/versions/1`, auth, 200],
+      [`same, If-None-Match → 304`, `/api/v1/blocks/${SLUG}/versions/1`, { ...auth, "If-None-Match": etag }, 304],
+      [`GET /blocks?q=low-pass`, `/api/v1/blocks?q=low-pass`, auth, 200],
+    ];
+    console.log(`${stored} demo blocks stored, ${indexed} indexed; ${CONNECTIONS} connections, ${DURATION_S} s per route, read token`);
+    console.log("route                              req/s    p50 ms   p99 ms   req/s ÷ bare   p99 × bare   bad");
+    let bare: Figure | undefined;
+    for (const [name, p, headers, status] of targets) {
+      const f = await measure(`${app.url}${p}`, headers, status);
+      bare ??= f;
+      console.log(
+        `${name.padEnd(32)} ${f.rps.toFixed(0).padStart(7)} ${f.p50.toFixed(1).padStart(9)} ${f.p99.toFixed(1).padStart(8)} ` +
+          `${(f.rps / bare.rps).toFixed(3).padStart(14)} ${(f.p99 / Math.max(bare.p99, 1)).toFixed(1).padStart(12)} ${String(f.non2xx).padStart(5)}`,
+      );
+    }
+  } finally {
+    await app?.stop();
+    await search.close();
+    cluster.stop();
+    rmSync(tmp, { recursive: true, force: true });
+  }
+}
+
+main().catch((err) => {
+  console.error(err);
+  process.exit(1);
+});
