@@ -15,7 +15,7 @@ const dirs = vi.hoisted(() => {
   return { models, cache };
 });
 
-import { execFileSync } from "node:child_process";
+import { execFileSync, spawn } from "node:child_process";
 import { appendFileSync, rmSync } from "node:fs";
 import path from "node:path";
 import { modelLibraryHash } from "@/checks";
@@ -65,5 +65,32 @@ describe("a model-library change", () => {
       expect(run).toMatchObject({ modelLibraryHash: after, trigger: "reverify" });
     }
     expect((await enqueueStaleHeads(await getEm(), { teamIds: [team.id] })).queued).toBe(0);
+
+    // Another revision; this time a worker process notices by itself when it starts.
+    appendFileSync(path.join(dirs.models, "diode-si.lib"), "* revised again\n");
+    const third = modelLibraryHash();
+    expect((await getBlock(team.viewer, div)).badge).toBe("stale");
+    const worker = spawn(process.execPath, ["--import", "tsx", "scripts/worker.ts", "--team", team.slug], {
+      env: { ...process.env, ASSAY_WORKER_ID: `stale-${team.tag}` }, stdio: ["ignore", "pipe", "pipe"], detached: true,
+    });
+    let log = "";
+    worker.stdout!.on("data", (d: Buffer) => (log += d.toString()));
+    try {
+      const end = Date.now() + 60_000;
+      while (Date.now() < end) {
+        const badges = await Promise.all([wien, div].map(async (s) => (await getBlock(team.viewer, s)).badge));
+        if (badges.every((b) => b === "verified")) break;
+        await new Promise((r) => setTimeout(r, 100));
+      }
+      expect(log).toMatch(/queued 2 stale or unchecked head\(s\)/);
+      for (const slug of [wien, div]) {
+        const b = await getBlock(team.viewer, slug);
+        expect(b.badge).toBe("verified");
+        expect((await (await getEm()).findOneOrFail(CheckRunSchema, { id: b.runId! })).modelLibraryHash).toBe(third);
+      }
+    } finally {
+      process.kill(-worker.pid!, "SIGTERM");
+      await new Promise((r) => worker.once("exit", r));
+    }
   });
 });
