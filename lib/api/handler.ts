@@ -1,6 +1,7 @@
 import { ZodError, type ZodType, type z } from "zod";
 import { AppError } from "@/lib/errors";
 import { problem } from "./problem";
+import { refuseCrossSiteCookieWrite } from "./same-origin";
 
 export interface RouteContext<P> {
   params: Promise<P>;
@@ -24,29 +25,6 @@ export function route<P = Record<string, never>>(fn: (req: Request, params: P) =
     }
   };
 }
-
-const SAFE = new Set(["GET", "HEAD", "OPTIONS"]);
-
-/**
- * A write carried by the session cookie must come from our own pages: a browser always sends Origin on a
- * cross-site POST, so a foreign one is refused (defence in depth beside the cookie's SameSite=Lax).
- * Token callers send no cookie and are not affected.
- */
-function refuseCrossSiteCookieWrite(req: Request): void {
-  if (SAFE.has(req.method) || req.headers.has("authorization") || !req.headers.has("cookie")) return;
-  const origin = req.headers.get("origin");
-  if (origin && origin !== new URL(req.url).origin && origin !== appOrigin()) {
-    throw new AppError("forbidden", "cross-site request refused");
-  }
-}
-
-const appOrigin = () => {
-  try {
-    return new URL(process.env.APP_URL ?? "").origin;
-  } catch {
-    return null;
-  }
-};
 
 /** Path parameters that fail their schema cannot name anything: 404 like a missing resource. */
 export function pathParams<S extends ZodType>(schema: S, params: unknown): z.infer<S> {

@@ -58,3 +58,19 @@ describe("problem documents", () => {
     log.mockRestore();
   });
 });
+
+describe("cookie-carried writes from another site", () => {
+  const handler = route(async () => new Response("ok"));
+  const call = (headers: Record<string, string>, method = "POST") =>
+    handler(new Request("http://localhost:3000/api/v1/blocks/x/forks", { method, headers }), { params: Promise.resolve({}) });
+
+  it("are refused when the Origin is neither the Host nor APP_URL", async () => {
+    expect((await call({ cookie: "next-auth.session-token=x", origin: "https://elsewhere.test", host: "127.0.0.1:3000" })).status).toBe(403);
+  });
+  it("pass from the same host, for token callers, without a cookie, and for reads", async () => {
+    expect((await call({ cookie: "s=x", origin: "http://127.0.0.1:3000", host: "127.0.0.1:3000" })).status).toBe(200);
+    expect((await call({ cookie: "s=x", authorization: "Bearer t", origin: "https://elsewhere.test" })).status).toBe(200);
+    expect((await call({ origin: "https://elsewhere.test" })).status).toBe(200);
+    expect((await call({ cookie: "s=x", origin: "https://elsewhere.test" }, "GET")).status).toBe(200);
+  });
+});
