@@ -1,5 +1,6 @@
 import Link from "next/link";
 import type { Report, Waveform } from "@/checks";
+import { ApiPanel } from "@/components/api-panel";
 import { CheckList } from "@/components/check-list";
 import { CodePanel } from "@/components/code-panel";
 import { HazardCaution } from "@/components/hazard-caution";
@@ -91,14 +92,7 @@ export async function BlockView({ caller, slug, version }: { caller: Caller; slu
           <Panel title="Quantities"><QuantityList quantities={report.quantities} /></Panel>
           <Panel title="Lineage"><LineagePanel lineage={lineage} /></Panel>
           <HistoryPanel slug={slug} runs={runs} reviews={reviews.slice(0, 6)} />
-          <Panel title="API">
-            <p className="text-sm">This version as JSON, as the block file, or as a runnable SPICE deck:</p>
-            <ul className="mt-1 space-y-0.5 break-all font-mono text-xs">
-              <li><a className="text-copper-dark underline" href={`/api/v1/blocks/${slug}/versions/${block.version}`}>/api/v1/blocks/{slug}/versions/{block.version}</a></li>
-              <li><a className="text-copper-dark underline" href={`/api/v1/blocks/${slug}?format=md`}>…?format=md</a> · <a className="text-copper-dark underline" href={`/api/v1/blocks/${slug}?format=spice`}>…?format=spice</a></li>
-              <li><a className="text-copper-dark underline" href={`/api/v1/blocks/${slug}/badge.svg`}>/api/v1/blocks/{slug}/badge.svg</a></li>
-            </ul>
-          </Panel>
+          <ApiPanel slug={slug} version={block.version} isHead={isHead} visibility={block.visibility} />
         </aside>
       </div>
     </div>
