@@ -1,7 +1,8 @@
-// Word splitting close to Meilisearch's Latin-script tokenizer: runs of letters
-// and digits are words, everything else separates; words compare lowercased
-// with diacritics removed.
-const WORD = /[\p{L}\p{N}]+/gu;
+// Word splitting close to Meilisearch's Latin-script tokenizer (Unicode word
+// boundaries, UAX #29): runs of letters and digits are words, and so are
+// numbers with inner points or commas ("3.3", "1,000", "v2.1"); everything else
+// separates. Words compare lowercased with diacritics removed.
+const WORD = /[\p{L}\p{N}]*\p{N}(?:[.,]\p{N}+)+[\p{L}\p{N}]*|[\p{L}\p{N}]+/gu;
 const MARKS = /\p{M}+/gu;
 
 export interface Token {
