@@ -12,3 +12,8 @@ export async function beat(em: EntityManager, workerId: string, runId: string | 
 export async function forget(em: EntityManager, workerId: string): Promise<void> {
   await em.getConnection().execute(`delete from worker_heartbeats where id = ?`, [workerId]);
 }
+
+/** Rows of workers that died without saying goodbye, once they have been silent for a day. */
+export async function pruneSilent(em: EntityManager): Promise<void> {
+  await em.getConnection().execute(`delete from worker_heartbeats where seen_at < now() - interval '1 day'`);
+}

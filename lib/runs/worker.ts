@@ -5,7 +5,7 @@ import { databaseUrl } from "@/lib/db/database-url";
 import { getEm } from "@/lib/db/orm";
 import { RUN_CHANNEL } from "./enqueue";
 import { processNext } from "./execute";
-import { beat, forget } from "./heartbeat";
+import { beat, forget, pruneSilent } from "./heartbeat";
 import { reapExpired, releaseRun } from "./lease";
 import { enqueueStaleHeads } from "./reverify";
 
@@ -45,6 +45,7 @@ export function startWorker(opts: WorkerOptions = {}): { id: string; stop: () =>
     await listener.connect().then(() => listener.query(`LISTEN ${RUN_CHANNEL}`)).catch((err: Error) => log(`no LISTEN (${err.message}); polling only`));
     every(5000, async () => beat(await getEm(), id, current, startedAt));
     every(10_000, async () => { const n = await reapExpired(await getEm()); if (n) log(`${n} run(s) ended as error after their last attempt`); });
+    every(3_600_000, async () => pruneSilent(await getEm()));
     const stale = await enqueueStaleHeads(await getEm(), { teamIds: opts.teamIds });
     if (stale.queued) log(`queued ${stale.queued} stale or unchecked head(s) for verification`);
     log("ready");

@@ -18,7 +18,11 @@ const FORK = {
   from: "rc-lowpass-antialias", slug: "rc-lowpass-antialias-5k1", title: "First-order anti-alias low-pass, 5.1 k / 9.1 nF",
   params: { R: "5.1 kohm", C: "9.1 nF" },
 };
-const RETUNE = { slug: "diode-clamp-adc-input", params: { Rs: "1.2 kohm" }, message: "Rs raised to 1.2 kohm to halve the current injected into the rail" };
+// A second version of the fork's parent, so the fork shows that its parent moved on and compare has a change.
+const RETUNE = {
+  slug: "rc-lowpass-antialias", params: { R: "4.3 kohm", C: "11 nF" },
+  message: "11 nF C0G is the stocked value; R to 4.3 kohm keeps the corner at 3.4 kHz",
+};
 const APPROVE = { slug: "wien-bridge-sine-1k", version: 1, comment: "Start-up margin and amplitude agree with my bench notes." };
 
 const blocksDir = () => path.join(process.env.ASSAY_ROOT || process.cwd(), "content/blocks");

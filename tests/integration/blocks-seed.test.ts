@@ -2,7 +2,11 @@ import { readdirSync, readFileSync } from "node:fs";
 import { afterAll, describe, expect, it, vi } from "vitest";
 
 await vi.hoisted(async () => { await (await import("./blocks-db")).usePrivateDatabase(); });
-import { BlockSchema, BlockVersionSchema, CheckRunSchema, ReviewSchema, TeamSchema } from "@/entities";
+import { BlockSchema, BlockVersionSchema, CheckRunSchema, ReviewSchema, TeamSchema, UserSchema } from "@/entities";
+import { anonymous } from "@/lib/auth/caller";
+import { loadCaller } from "@/lib/auth/load-caller";
+import { compareVersions } from "@/lib/blocks/compare";
+import { getLineage } from "@/lib/blocks/read";
 import { closeOrm, getEm } from "@/lib/db/orm";
 import { seedLibrary } from "@/lib/seed/seed-library";
 import { seedPeople } from "@/lib/seed/seed-people";
@@ -23,12 +27,19 @@ describe("demo library seed", () => {
     expect(blocks.length).toBe(files.length + 1);
     expect(first.created).toBe(files.length + 1);
     expect(blocks.every((b) => b.head)).toBe(true);
-    expect(new Set(blocks.filter((b) => b.slug !== "diode-clamp-adc-input").map((b) => b.head!.author.email))).toEqual(new Set(["nadia.okafor@fenwick.test"]));
+    expect(new Set(blocks.map((b) => b.head!.author.email))).toEqual(new Set(["nadia.okafor@fenwick.test"]));
     expect(blocks.filter((b) => b.visibility === "public").length).toBeGreaterThanOrEqual(3);
     const fork = blocks.find((b) => b.forkedFrom)!;
     expect(fork.slug).toBe("rc-lowpass-antialias-5k1");
     expect(fork.head!.params.find((p) => p.name === "R")?.value).toBe("5.1 kohm");
-    expect(await em.count(BlockVersionSchema, { block: { slug: "diode-clamp-adc-input" } } as never)).toBe(2);
+    expect(await em.count(BlockVersionSchema, { block: { slug: "rc-lowpass-antialias" } } as never)).toBe(2);
+    const tomas = await em.findOneOrFail(UserSchema, { email: "tomas.reyes@fenwick.test" });
+    const fenwickCaller = await loadCaller(await getEm(), tomas.id);
+    // The fork is a team block: the team sees it in the parent's lineage, a signed-out reader of the public parent does not.
+    expect((await getLineage(fenwickCaller, "rc-lowpass-antialias")).forks.map((f) => f.slug)).toEqual(["rc-lowpass-antialias-5k1"]);
+    expect((await getLineage(anonymous, "rc-lowpass-antialias")).forks).toEqual([]);
+    expect((await getLineage(fenwickCaller, "rc-lowpass-antialias-5k1")).parentNewerVersions).toBe(1);
+    expect((await compareVersions(anonymous, "rc-lowpass-antialias", 1, 2)).params.map((p) => p.name)).toEqual(["R", "C"]);
     expect(await em.count(ReviewSchema, { decision: "approved", version: { block: { slug: "wien-bridge-sine-1k" } } } as never)).toBe(1);
     const runs = await em.count(CheckRunSchema, { version: { block: { slug: { $in: slugs } } } } as never);
     expect(runs).toBe(files.length + 2);
