@@ -20,7 +20,10 @@ function Marked({ runs, fallback }: { runs?: HighlightRun[]; fallback: string })
   );
 }
 
-export function BlockTable({ rows, caption }: { rows: BlockRow[]; caption: string }) {
+export function BlockTable({ rows, caption, compact = false }: { rows: BlockRow[]; caption: string; compact?: boolean }) {
+  // The short lists beside each other keep only the block and its mark; the full table shows everything.
+  const wide = compact ? "hidden" : "hidden sm:table-cell";
+  const wider = compact ? "hidden" : "hidden md:table-cell";
   return (
     <div className="overflow-x-auto rounded border border-rule bg-panel">
       <table className="w-full text-sm">
@@ -29,9 +32,9 @@ export function BlockTable({ rows, caption }: { rows: BlockRow[]; caption: strin
           <tr>
             <th scope="col" className="px-3 py-2 font-medium">Block</th>
             <th scope="col" className="px-3 py-2 font-medium">State</th>
-            <th scope="col" className="hidden px-3 py-2 font-medium sm:table-cell">Category</th>
-            <th scope="col" className="hidden px-3 py-2 font-medium md:table-cell">Team</th>
-            <th scope="col" className="hidden px-3 py-2 font-medium md:table-cell">Last change</th>
+            <th scope="col" className={`${wide} px-3 py-2 font-medium`}>Category</th>
+            <th scope="col" className={`${wider} px-3 py-2 font-medium`}>Team</th>
+            <th scope="col" className={`${wider} px-3 py-2 font-medium`}>Last change</th>
           </tr>
         </thead>
         <tbody>
@@ -41,12 +44,12 @@ export function BlockTable({ rows, caption }: { rows: BlockRow[]; caption: strin
                 <Link href={`/blocks/${b.slug}`} className="font-medium text-copper-dark hover:underline">
                   <Marked runs={b.highlight?.title} fallback={b.title} />
                 </Link>
-                <p className="mt-0.5 line-clamp-2 text-xs text-graphite"><Marked runs={b.highlight?.summary} fallback={b.summary} /></p>
+                <p className={`mt-0.5 line-clamp-2 text-xs text-graphite ${compact ? "hidden" : ""}`}><Marked runs={b.highlight?.summary} fallback={b.summary} /></p>
               </td>
               <td className="px-3 py-2 align-top"><Hallmark badge={b.badge} version={b.version} approved={b.approved} id={`row-${b.slug}`} /></td>
-              <td className="hidden px-3 py-2 align-top sm:table-cell">{b.category}</td>
-              <td className="hidden px-3 py-2 align-top md:table-cell">{b.team}</td>
-              <td className="hidden whitespace-nowrap px-3 py-2 align-top font-mono text-xs md:table-cell">{when(b.updatedAt)}</td>
+              <td className={`${wide} px-3 py-2 align-top`}>{b.category}</td>
+              <td className={`${wider} px-3 py-2 align-top`}>{b.team}</td>
+              <td className={`${wider} whitespace-nowrap px-3 py-2 align-top font-mono text-xs`}>{when(b.updatedAt)}</td>
             </tr>
           ))}
         </tbody>

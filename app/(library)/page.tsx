@@ -45,7 +45,7 @@ function ListSection({ title, rows, empty }: { title: string; rows: Awaited<Retu
   return (
     <section aria-label={title} className="min-w-0">
       <h2 className="mb-2 font-serif text-lg font-semibold">{title}</h2>
-      {rows.length ? <BlockTable rows={rows.slice(0, 8)} caption={title} /> : <EmptyState title={empty} />}
+      {rows.length ? <BlockTable rows={rows.slice(0, 8)} caption={title} compact /> : <EmptyState title={empty} />}
     </section>
   );
 }

@@ -55,6 +55,14 @@ function rehypeOnlyAttachmentImages() {
   };
 }
 
+/**
+ * Notes write display math as `$$…$$` spanning lines, with text right after the opening `$$`; remark-math reads
+ * that as a fence with an info string and swallows the rest of the note. Put such delimiters on lines of their own.
+ */
+export function normaliseDisplayMath(markdown: string): string {
+  return markdown.replace(/^\$\$(?!\s*$)([^$]+?)\$\$[ \t]*$/gm, (_m, body: string) => `$$\n${body.trim()}\n$$`);
+}
+
 /** A block's note (markdown, $math$) to safe HTML. Sanitising runs before KaTeX so KaTeX's own markup stays intact. */
 export async function renderNote(markdown: string, opts: { slug: string }): Promise<string> {
   const file = await unified()
@@ -67,6 +75,6 @@ export async function renderNote(markdown: string, opts: { slug: string }): Prom
     .use(rehypeOnlyAttachmentImages)
     .use(rehypeKatex)
     .use(rehypeStringify)
-    .process(markdown);
+    .process(normaliseDisplayMath(markdown));
   return String(file);
 }

@@ -1,18 +1,16 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import type { Browser, BrowserContext, Page } from "playwright-core";
+import type { Page } from "playwright-core";
 import { BlockPage } from "./pages/block-page";
 import { ImportPage } from "./pages/import-page";
 import { LibraryPage } from "./pages/library-page";
 import { RetunePage } from "./pages/retune-page";
 import { ReviewsPage } from "./pages/reviews-page";
 import { SignInPage } from "./pages/sign-in-page";
-import { assertNoFrameworkError, launch, newContext, shot, watchErrors } from "./support/browser";
+import { assertNoFrameworkError, launch, shot, watchErrors } from "./support/browser";
 
 // One story through the library, in order: each step builds on the block the one before made.
 const FORK = "opamp-soft-limiter-e2e";
-let browser: Browser;
 let close: () => Promise<void>;
-let author: BrowserContext;
 let page: Page;
 let errors: string[];
 
@@ -24,9 +22,7 @@ async function settle(p: Page, name: string, errs: string[]) {
 }
 
 beforeAll(async () => {
-  ({ browser, close } = await launch());
-  author = await newContext(browser, inject("appUrl"));
-  page = await author.newPage();
+  ({ page, close } = await launch(inject("appUrl")));
   errors = watchErrors(page);
 });
 
@@ -46,8 +42,10 @@ describe("the library in a browser", () => {
     await library.search("limitr");
     const link = library.resultLink(/Soft limiter/);
     await link.waitFor({ timeout: 30_000 });
-    await expect(page.locator("mark").first().isVisible()).resolves.toBe(true);
     await settle(page, "02-library-search-typo", errors);
+    // Matched words are highlighted in the results.
+    await library.search("limiter");
+    await page.getByRole("table", { name: "Search results" }).locator("mark", { hasText: /limiter/i }).first().waitFor({ timeout: 15_000 });
     await link.click();
     await page.waitForURL("**/blocks/opamp-soft-limiter");
     const block = new BlockPage(page);
@@ -62,6 +60,7 @@ describe("the library in a browser", () => {
 
   it("forks with a higher gain: the live preview shows the failing check before saving, the badge turns failing", async () => {
     const block = new BlockPage(page);
+    await block.open("opamp-soft-limiter");
     await block.fork();
     const retune = new RetunePage(page);
     await retune.setParam("Rf", "150 kohm");
@@ -76,6 +75,7 @@ describe("the library in a browser", () => {
 
   it("retunes with the assistant back to passing", async () => {
     const block = new BlockPage(page);
+    await block.open(FORK);
     await block.fork();
     const retune = new RetunePage(page);
     // G_ss = -Rf/Ri with Ri = 10 kohm: the gain of -10 asks for Rf = 100 kohm, an E24 value.
@@ -91,8 +91,7 @@ describe("the library in a browser", () => {
   });
 
   it("approves the retuned version as a maintainer", async () => {
-    const ctx = await newContext(browser, inject("appUrl"));
-    const reviewer = await ctx.newPage();
+    const { page: reviewer, close: closeReviewer } = await launch(inject("appUrl"));
     const reviewerErrors = watchErrors(reviewer);
     await new SignInPage(reviewer).signIn("tomas.reyes@fenwick.test");
     const reviews = new ReviewsPage(reviewer);
@@ -102,7 +101,7 @@ describe("the library in a browser", () => {
     await new BlockPage(reviewer).open(FORK);
     await expect(reviewer.getByTestId("block-badge").locator("svg").getAttribute("aria-label")).resolves.toMatch(/approved/);
     await settle(reviewer, "10-block-approved", reviewerErrors);
-    await ctx.close();
+    await closeReviewer();
   });
 
   it("compares the two versions and lists the runs", async () => {
@@ -153,13 +152,12 @@ describe("the library in a browser", () => {
   });
 
   it("holds up on a narrow screen", async () => {
-    const ctx = await browser.newContext({ baseURL: inject("appUrl"), viewport: { width: 390, height: 844 } });
-    const phone = await ctx.newPage();
+    const { page: phone, close: closePhone } = await launch(inject("appUrl"), 390);
     const phoneErrors = watchErrors(phone);
     await phone.goto("/blocks/opamp-soft-limiter");
     const overflow = await phone.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
     expect(overflow).toBeLessThanOrEqual(1);
     await settle(phone, "16-block-narrow", phoneErrors);
-    await ctx.close();
+    await closePhone();
   });
 });

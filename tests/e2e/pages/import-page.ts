@@ -17,7 +17,11 @@ export class ImportPage {
     return this.page.getByTestId("dropped-lines");
   }
 
+  /** Creates the block; if the server refuses, fail with its words rather than a bare timeout. */
   async create(slug: string): Promise<void> {
-    await Promise.all([this.page.waitForURL(`**/blocks/${slug}`, { timeout: 60_000 }), this.page.getByRole("button", { name: "Create the block" }).click()]);
+    await this.page.getByRole("button", { name: "Create the block" }).click();
+    const refused = this.page.locator("#create-status [role=alert]");
+    await Promise.race([this.page.waitForURL(`**/blocks/${slug}`, { timeout: 60_000 }), refused.waitFor({ timeout: 60_000 })]);
+    if (!this.page.url().includes(`/blocks/${slug}`)) throw new Error(`import refused: ${await this.page.locator("#create-status").innerText()}`);
   }
 }

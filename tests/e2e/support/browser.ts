@@ -1,25 +1,30 @@
 import { mkdirSync, mkdtempSync, rmSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
-import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
+import { chromium, type BrowserContext, type Page } from "playwright-core";
 
 export const SHOTS = path.resolve("test-results/e2e");
 
-/** Debian's Chromium, headless, with nothing reaching for the network, and a profile of its own. */
-export async function launch(): Promise<{ browser: Browser; close: () => Promise<void> }> {
+/**
+ * Debian's Chromium, headless, with nothing reaching for the network, and a fresh profile of its own.
+ * Each signed-in person gets a browser of their own, so cookies never mix.
+ */
+export async function launch(baseURL: string, width = 1366): Promise<{ context: BrowserContext; page: Page; close: () => Promise<void> }> {
   const profile = mkdtempSync(path.join(os.tmpdir(), "assay-chromium-"));
-  const browser = await chromium.launch({
+  const context = await chromium.launchPersistentContext(profile, {
     executablePath: "/usr/bin/chromium",
-    args: [
-      "--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking", "--disable-component-update",
-      "--disable-sync", "--no-first-run", `--user-data-dir=${profile}`,
-    ],
+    headless: true,
+    args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run"],
+    baseURL,
+    viewport: { width, height: 900 },
   });
   mkdirSync(SHOTS, { recursive: true });
+  const page = context.pages()[0] ?? (await context.newPage());
   return {
-    browser,
+    context,
+    page,
     close: async () => {
-      await browser.close();
+      await context.close();
       rmSync(profile, { recursive: true, force: true });
     },
   };
@@ -32,11 +37,11 @@ export function watchErrors(page: Page): string[] {
     if (m.type() === "error") errors.push(`console: ${m.text()}`);
   });
   page.on("pageerror", (e) => errors.push(`page: ${e.message}`));
+  // The console names a failed load without its address; record the address too.
+  page.on("response", (r) => {
+    if (r.status() >= 400) errors.push(`http ${r.status()}: ${r.url()}`);
+  });
   return errors;
-}
-
-export async function newContext(browser: Browser, baseURL: string, width = 1366): Promise<BrowserContext> {
-  return browser.newContext({ baseURL, viewport: { width, height: 900 } });
 }
 
 /** Next's error overlay or its default error page means the framework, not our page, is showing. */
