@@ -17,7 +17,8 @@ export type EvaluateOptions = { simulate?: boolean; params?: Record<string, stri
 export function evaluateBlock(text: string, opts: EvaluateOptions = {}): { report: Report; waveforms: Waveform[] } {
   const { block, statements, errors, slug } = prepare(text, opts.params);
   const report: Report = { slug, status: "error", quantities: {}, checks: [], simulations: [], errors };
-  if (!block || errors.length) {
+  // Frontmatter errors stop here; script syntax errors do not, so the other lines still evaluate.
+  if (!block) {
     report.status = reportStatus(report);
     return { report, waveforms: [] };
   }

@@ -1,6 +1,14 @@
 import { fork, type ChildProcess } from "node:child_process";
 import { assayRoot, childEntry } from "./root";
 
+// The child runs scripts from users: give it what it needs to run and no secrets (database URL, keys).
+const PASSED_ENV = /^(PATH|HOME|TMPDIR|TMP|TEMP|LANG|LC_ALL|NODE_ENV|TZ|ASSAY_(SIM_CACHE|MODELS_DIR)|SPICE_.*)$/;
+function childEnv(root: string): NodeJS.ProcessEnv {
+  const env: NodeJS.ProcessEnv = { ASSAY_ROOT: root };
+  for (const [k, v] of Object.entries(process.env)) if (PASSED_ENV.test(k) && v !== undefined) env[k] = v;
+  return env;
+}
+
 type Reply = { id: number; ok: boolean; value?: unknown; error?: string };
 type Pending = { resolve: (r: Reply) => void; timer: NodeJS.Timeout; timeoutMs: number };
 
@@ -37,7 +45,7 @@ export class SandboxLane {
       execPath: process.execPath,
       execArgv: ["--import", "tsx", `--max-old-space-size=${this.memoryMb}`],
       stdio: ["ignore", "ignore", "pipe", "ipc"],
-      env: { ...process.env, ASSAY_ROOT: root },
+      env: childEnv(root),
       serialization: "advanced",
     });
     this.child = child;

@@ -109,7 +109,12 @@ export class ConditionJudge {
     const rel = RELATIONS[fn];
     const a = this.value(ln);
     const b = this.value(rn);
-    const ok = rel.test(a, b);
+    let ok: boolean;
+    try {
+      ok = rel.test(a, b);
+    } catch (e) {
+      throw new Error(`cannot compare ${ln.toString()} = ${formatValue(a)} with ${formatValue(b)}: ${(e as Error).message}`);
+    }
     const [x, y] = [si(a), si(b)];
     const scale = Math.max(Math.abs(x), Math.abs(y)) || 1;
     const margin = rel.dir === 0 ? (ok ? 0 : -Math.abs(x - y) / scale) : (rel.dir * (x - y)) / scale;
