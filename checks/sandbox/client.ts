@@ -45,7 +45,7 @@ export class SandboxLane {
       execPath: process.execPath,
       execArgv: ["--import", "tsx", `--max-old-space-size=${this.memoryMb}`],
       stdio: ["ignore", "ignore", "pipe", "ipc"],
-      env: childEnv(root),
+      env: childEnv(root) as NodeJS.ProcessEnv,
       serialization: "advanced",
     });
     this.child = child;
