@@ -26,7 +26,7 @@ export function ApiPanel({ slug, version, isHead = true, visibility, baseUrl = a
         {lines.map((l) => (
           <li key={l.label}>
             <p className="text-xs text-graphite">{l.label}</p>
-            <pre className="overflow-x-auto whitespace-pre rounded border border-rule bg-paper px-2 py-1 font-mono text-xs select-all"><code>{l.cmd}</code></pre>
+            <pre className="whitespace-pre-wrap break-all rounded border border-rule bg-paper px-2 py-1 font-mono text-xs select-all"><code>{l.cmd}</code></pre>
           </li>
         ))}
       </ul>
