@@ -18,7 +18,7 @@ const dirs = vi.hoisted(() => {
 import { execFileSync, spawn } from "node:child_process";
 import { appendFileSync, rmSync } from "node:fs";
 import path from "node:path";
-import { modelLibraryHash } from "@/checks";
+import { ENGINE_VERSION, modelLibraryHash } from "@/checks";
 import { CheckRunSchema } from "@/entities";
 import { createBlock } from "@/lib/blocks/create";
 import { getBlock } from "@/lib/blocks/read";
@@ -92,5 +92,20 @@ describe("a model-library change", () => {
       process.kill(-worker.pid!, "SIGTERM");
       await new Promise((r) => worker.once("exit", r));
     }
+  });
+
+  it("a run made by an older engine version is stale too, and reverify replaces it", async () => {
+    const slug = `old-engine-${team.tag}`;
+    const { run } = await createBlock(team.author, { teamSlug: team.slug, text: dividerBlock(slug) });
+    await drain(team);
+    expect((await getBlock(team.viewer, slug)).badge).toBe("verified");
+    // As if an earlier engine release had made this run (the row is what a previous deployment left).
+    await (await getEm()).getConnection().execute(`update check_runs set engine_version = '0.9.0' where id = ?`, [run.id]);
+    expect((await getBlock(team.viewer, slug)).badge).toBe("stale");
+    expect((await enqueueStaleHeads(await getEm(), { teamIds: [team.id] })).slugs).toEqual([slug]);
+    await drain(team);
+    const b = await getBlock(team.viewer, slug);
+    expect(b.badge).toBe("verified");
+    expect((await (await getEm()).findOneOrFail(CheckRunSchema, { id: b.runId! })).engineVersion).toBe(ENGINE_VERSION);
   });
 });
