@@ -44,3 +44,8 @@ export function intParam(q: URLSearchParams, name: string, fallback: number, cod
   if (!/^\d+$/.test(v)) throw errors.badRequest(`Invalid value in parameter \`${name}\`: could not parse \`${v}\` as a positive integer`, code);
   return Number(v);
 }
+
+export function objectBody(value: unknown): Record<string, unknown> {
+  if (!value || typeof value !== "object" || Array.isArray(value)) throw errors.badRequest("Invalid value type: expected an object");
+  return value as Record<string, unknown>;
+}

@@ -1,8 +1,8 @@
 import { errors, MeiliError } from "./errors";
 import type { Engine } from "./engine";
-import { parseJson } from "./http-util";
-import { intParam } from "./http-util";
-import { executeSearch, filterPredicate, projectDocument } from "./search";
+import { intParam, objectBody, parseJson } from "./http-util";
+import { documents } from "./routes-documents";
+import { executeSearch } from "./search";
 import { parseSearchParams, searchParamsFromQuery } from "./search-params";
 import { applySettings, defaultSettings, settingRoutes } from "./settings";
 
@@ -24,15 +24,6 @@ function checkUid(uid: string) {
   return uid;
 }
 
-function fieldsParam(q: URLSearchParams) {
-  const f = q.get("fields");
-  return f ? f.split(",").map((s) => s.trim()) : undefined;
-}
-
-function objectBody(value: unknown): Record<string, unknown> {
-  if (!value || typeof value !== "object" || Array.isArray(value)) throw errors.badRequest("Invalid value type: expected an object");
-  return value as Record<string, unknown>;
-}
 
 export async function route(engine: Engine, r: Request): Promise<Reply> {
   const [head, uidRaw, sub, ...rest] = r.path;
@@ -102,77 +93,6 @@ async function settings(engine: Engine, uid: string, rest: string[], r: Request)
   } else throw errors.notFound();
   applySettings(defaultSettings(), patch); // refuse a malformed body now, as Meilisearch does
   return [202, engine.enqueue(uid, "settingsUpdate", { kind: "updateSettings", settings: patch }, { ...patch })];
-}
-
-async function documents(engine: Engine, uid: string, rest: string[], r: Request): Promise<Reply> {
-  const m = r.method;
-  if (rest.length === 0) {
-    if (m === "GET") {
-      const idx = engine.index(uid);
-      const offset = intParam(r.query, "offset", 0, "invalid_document_offset");
-      const limit = intParam(r.query, "limit", 20, "invalid_document_limit");
-      return [200, listDocuments(engine, uid, { offset, limit, fields: fieldsParam(r.query), filter: r.query.get("filter") ?? undefined, idx })];
-    }
-    if (m === "POST" || m === "PUT") {
-      const body = parseJson(await r.body(), "malformed_payload");
-      const docs = Array.isArray(body) ? body : [body];
-      if (docs.some((d) => !d || typeof d !== "object" || Array.isArray(d)))
-        throw new MeiliError(400, "malformed_payload", "The json payload provided is malformed. `Couldn't serialize document value: expected an object or an array of objects`.");
-      const primaryKey = r.query.get("primaryKey") ?? undefined;
-      const mode = m === "POST" ? "replace" : "update";
-      return [202, engine.enqueue(uid, "documentAdditionOrUpdate", { kind: "addDocuments", documents: docs, mode, primaryKey }, { receivedDocuments: docs.length, indexedDocuments: null })];
-    }
-    if (m === "DELETE")
-      return [202, engine.enqueue(uid, "documentDeletion", { kind: "clearDocuments" }, { providedIds: 0, deletedDocuments: null, originalFilter: null })];
-    throw errors.notFound();
-  }
-  const [action] = rest;
-  if (rest.length === 1 && m === "POST" && action === "fetch") {
-    const body = objectBody(parseJson(await r.body()));
-    const idx = engine.index(uid);
-    const num = (k: string, d: number) => (typeof body[k] === "number" ? (body[k] as number) : d);
-    return [200, listDocuments(engine, uid, { offset: num("offset", 0), limit: num("limit", 20), fields: body.fields as string[] | undefined, filter: body.filter, idx })];
-  }
-  if (rest.length === 1 && m === "POST" && action === "delete-batch") {
-    const body = parseJson(await r.body());
-    if (!Array.isArray(body)) throw errors.badRequest("Invalid value type: expected an array of document ids", "bad_request");
-    const ids = body.map(String);
-    return [202, engine.enqueue(uid, "documentDeletion", { kind: "deleteDocuments", ids }, { providedIds: ids.length, deletedDocuments: null, originalFilter: null })];
-  }
-  if (rest.length === 1 && m === "POST" && action === "delete") {
-    const body = objectBody(parseJson(await r.body()));
-    if (body.filter === undefined) throw new MeiliError(400, "missing_document_filter", "Missing field `filter`");
-    const idx = engine.indexes.get(uid);
-    if (idx) documentFilter(idx, body.filter); // refuse an invalid filter now
-    return [202, engine.enqueue(uid, "documentDeletion", { kind: "deleteByFilter", filter: body.filter }, { providedIds: 0, deletedDocuments: null, originalFilter: JSON.stringify(body.filter) })];
-  }
-  if (rest.length === 1) {
-    const id = decodeURIComponent(action);
-    if (m === "GET") {
-      const idx = engine.index(uid);
-      return [200, projectDocument(idx, idx.getDocument(id), fieldsParam(r.query))];
-    }
-    if (m === "DELETE")
-      return [202, engine.enqueue(uid, "documentDeletion", { kind: "deleteDocuments", ids: [id] }, { providedIds: 1, deletedDocuments: null, originalFilter: null })];
-  }
-  throw errors.notFound();
-}
-
-// The documents routes report filter mistakes under their own error code.
-function documentFilter(idx: ReturnType<Engine["index"]>, filter: unknown) {
-  try {
-    return filterPredicate(idx, filter);
-  } catch (e) {
-    if (e instanceof MeiliError && e.code === "invalid_search_filter") throw new MeiliError(400, "invalid_document_filter", e.message);
-    throw e;
-  }
-}
-
-function listDocuments(engine: Engine, uid: string, o: { offset: number; limit: number; fields?: string[]; filter?: unknown; idx: ReturnType<Engine["index"]> }) {
-  const pred = documentFilter(o.idx, o.filter);
-  const keys = pred ? [...o.idx.flats].filter(([, f]) => pred(f)).map(([k]) => k) : [...o.idx.docs.keys()];
-  const results = keys.slice(o.offset, o.offset + o.limit).map((k) => projectDocument(o.idx, o.idx.docs.get(k)!, o.fields));
-  return { results, offset: o.offset, limit: o.limit, total: keys.length };
 }
 
 function tasks(engine: Engine, r: Request): Reply {
