@@ -113,16 +113,27 @@ describe("the library in a browser", () => {
     await settle(page, "12-runs", errors);
   });
 
+  it("edits the block file with the engine's errors shown at their lines before saving", async () => {
+    await page.goto(`/blocks/${FORK}/edit`);
+    const editor = page.getByLabel("Block file");
+    const text = await editor.inputValue();
+    await editor.fill(text.replace(/^category: .*$/m, "category: teapot"));
+    const shown = page.getByTestId("editor-errors");
+    await shown.waitFor({ timeout: 30_000 });
+    await expect(shown.textContent()).resolves.toMatch(/line 4/);
+    await settle(page, "13-edit-line-errors", errors);
+  });
+
   it("imports a SPICE netlist, listing the dropped lines", async () => {
     const imp = new ImportPage(page);
     await imp.open();
     const netlist = "* RC divider from the bench\n.param R1v=4.7k\n.param C1v=10n\nV1 in 0 AC 1\nR1 in out {R1v}\nC1 out 0 {C1v}\n.ac dec 10 10 1meg\n.control\nrun\n.endc\n.end\n";
     await imp.read({ name: "rc-divider-e2e.cir", mimeType: "text/plain", buffer: Buffer.from(netlist) });
     await expect(imp.droppedLines().textContent()).resolves.toContain(".control");
-    await settle(page, "13-import-netlist", errors);
+    await settle(page, "14-import-netlist", errors);
     await imp.create("rc-divider-e2e");
     await expect(page.getByTestId("param-table").textContent()).resolves.toContain("R1v");
-    await settle(page, "14-imported-block", errors);
+    await settle(page, "15-imported-block", errors);
   });
 
   it("renders neither a script tag nor a javascript: link from a note", async () => {
@@ -148,7 +159,7 @@ describe("the library in a browser", () => {
       return [w.__noteScriptRan, w.__noteLinkRan, w.__noteImgRan];
     });
     expect(ran).toEqual([undefined, undefined, undefined]);
-    await settle(page, "15-note-sanitised", errors);
+    await settle(page, "16-note-sanitised", errors);
   });
 
   it("holds up on a narrow screen", async () => {
@@ -157,7 +168,7 @@ describe("the library in a browser", () => {
     await phone.goto("/blocks/opamp-soft-limiter");
     const overflow = await phone.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
     expect(overflow).toBeLessThanOrEqual(1);
-    await settle(phone, "16-block-narrow", phoneErrors);
+    await settle(phone, "17-block-narrow", phoneErrors);
     await closePhone();
   });
 });

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import type { OperationObject, PathItemObject } from "openapi3-ts/oas31";
-import { PROBLEM_BASE, problemTypes, STALE_BASE_TYPE } from "@/lib/api/problem";
+import { FINER_PROBLEM_TYPES, PROBLEM_BASE, problemTypes } from "@/lib/api/problem";
 import { openApiDocument } from "@/lib/openapi/document";
 import { OperationView } from "./operation-view";
 import { SchemaView } from "./schema-view";
@@ -52,7 +52,9 @@ export default function ApiDocsPage() {
           <h2 id="problems" className="font-serif text-xl">Problem types</h2>
           <p className="text-sm">Every error is <code className="font-mono">application/problem+json</code> (RFC 9457) with one of these <code className="font-mono">type</code>s:</p>
           <ul className="mt-1 font-mono text-xs">
-            {[...Object.values(problemTypes), STALE_BASE_TYPE].sort().map((t) => <li key={t}>{t.replace(PROBLEM_BASE, "…/problems/")}{t === STALE_BASE_TYPE ? " — carries head" : ""}</li>)}
+            {[...Object.values(problemTypes), ...Object.keys(FINER_PROBLEM_TYPES)].sort().map((t) => (
+              <li key={t}>{t.replace(PROBLEM_BASE, "…/problems/")}{FINER_PROBLEM_TYPES[t] ? <span className="font-sans text-graphite"> {FINER_PROBLEM_TYPES[t]}</span> : null}</li>
+            ))}
           </ul>
         </section>
         <section aria-labelledby="operations" className="space-y-4">

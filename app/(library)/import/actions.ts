@@ -21,7 +21,7 @@ export async function convertNetlistAction(_prev: FormState, form: FormData): Pr
   const file = form.get("file");
   if (!isFile(file)) return { ok: false, message: "Choose a file.", errors: { file: ["Choose a block file (.md) or a SPICE netlist (.cir, .sp, .net)."] } };
   if (file.size > MAX_FILE) return { ok: false, message: "That file is too large.", errors: { file: [`Files are at most 256 KiB; this one is ${Math.ceil(file.size / 1024)} KiB.`] } };
-  const text = await file.text();
+  const text = (await file.text()).replace(/\r\n?/g, "\n");
   if (/\.md$/i.test(file.name)) return { ok: true, data: { blockText: text, dropped: [], fileName: file.name } };
   if (!NETLIST.test(file.name)) return { ok: false, message: "Unsupported file type.", errors: { file: [`"${file.name}" is neither a block file (.md) nor a SPICE netlist (.cir, .sp, .net).`] } };
   const res = importNetlist(text, file.name);
@@ -32,7 +32,8 @@ export async function convertNetlistAction(_prev: FormState, form: FormData): Pr
 const createForm = z.object({
   team: z.string().trim().min(1, "choose a team"),
   visibility: z.enum(["team", "public"]),
-  text: z.string().min(1, "the block file is empty").max(MAX_FILE, "the block file is larger than 256 KiB"),
+  // Browsers send a textarea's line ends as CRLF; block files use LF.
+  text: z.string().transform((t) => t.replace(/\r\n?/g, "\n")).pipe(z.string().min(1, "the block file is empty").max(MAX_FILE, "the block file is larger than 256 KiB")),
 });
 
 /** Step two: create the block from the (possibly edited) file, then attach the schematic images. */

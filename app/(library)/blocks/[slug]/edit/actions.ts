@@ -27,7 +27,8 @@ export async function checkDraftAction(text: string): Promise<{ errors: BlockErr
 const editForm = z.object({
   slug: z.string().regex(/^[a-z0-9-]{1,100}$/),
   baseVersion: z.coerce.number().int().min(1),
-  text: z.string().min(1, "the block file is empty").max(MAX_FILE, "the block file is larger than 256 KiB"),
+  // Browsers send a textarea's line ends as CRLF; block files use LF.
+  text: z.string().transform((t) => t.replace(/\r\n?/g, "\n")).pipe(z.string().min(1, "the block file is empty").max(MAX_FILE, "the block file is larger than 256 KiB")),
   message: z.string().trim().max(2000).optional(),
 });
 
