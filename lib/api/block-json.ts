@@ -24,6 +24,7 @@ export function toBlockJson(v: BlockView, lineage: Lineage): z.infer<typeof bloc
     visibility: v.visibility,
     version: v.version,
     headVersion: v.headVersion,
+    archived: v.archived,
     badge: v.badge,
     approved: v.approved,
     params: v.params,

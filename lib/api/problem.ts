@@ -24,6 +24,11 @@ export const problemTypes = Object.fromEntries(
 ) as Record<ErrorCode | "internal", string>;
 /** A conflict that carries the current head is a stale base: its own type so clients can rebase on it. */
 export const STALE_BASE_TYPE = PROBLEM_BASE + "stale-base";
+/** Finer kinds in use (services name them with `type` in AppError's extra), listed on the API reference page. */
+export const FINER_PROBLEM_TYPES: Record<string, string> = {
+  [STALE_BASE_TYPE]: "409 — the base version is not the head; carries `head`",
+  [PROBLEM_BASE + "archived"]: "409 — the block is archived and takes no new versions",
+};
 
 export interface ProblemDocument {
   type: string;
@@ -49,10 +54,12 @@ export function problemDocument(err: unknown): ProblemDocument {
     return { type: problemTypes.validation, title: TITLES.validation.title, status: 422, detail: "the request did not validate", errors: zodIssues(err) };
   }
   if (err instanceof AppError) {
-    const stale = err.code === "conflict" && err.extra.head !== undefined;
-    const { type: _t, title: _ti, status: _s, detail: _d, ...extra } = err.extra;
+    const { type: subtype, title: _ti, status: _s, detail: _d, ...extra } = err.extra;
+    // A service may name a finer kind (e.g. "archived"); it stays under our base, never a URI of its own.
+    const named = typeof subtype === "string" && /^[a-z]+(-[a-z]+)*$/.test(subtype) ? PROBLEM_BASE + subtype : null;
+    const stale = !named && err.code === "conflict" && typeof err.extra.head === "number";
     const doc: ProblemDocument = {
-      type: stale ? STALE_BASE_TYPE : problemTypes[err.code],
+      type: named ?? (stale ? STALE_BASE_TYPE : problemTypes[err.code]),
       title: stale ? "The base version is not the head" : TITLES[err.code].title,
       status: STATUS[err.code],
       detail: err.message,

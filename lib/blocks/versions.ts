@@ -26,7 +26,7 @@ export async function addVersion(caller: Caller, slug: string, input: NewVersion
   const user = requireUser(caller);
   const em = await getEm();
   const block = await loadBlock(em, caller, slug, "block.edit");
-  if (block.archived) throw new AppError("conflict", "the block is archived", { head: block.head?.number ?? 0 });
+  if (block.archived) throw new AppError("conflict", "the block is archived", { type: "archived", head: block.head?.number ?? 0 });
   const base = Number(input.baseVersion);
   if (!Number.isInteger(base) || base < 1) throw new AppError("validation", "baseVersion must be a version number");
   if (input.text === undefined && !input.params) throw new AppError("validation", "send a block file or new parameter values");

@@ -76,6 +76,7 @@ export const blockSchema = z.object({
   visibility: z.enum(["team", "public"]),
   version: z.number().int(),
   headVersion: z.number().int(),
+  archived: z.boolean().meta({ description: "Archived blocks stay readable but take no new versions" }),
   badge: badgeSchema,
   approved: z.boolean(),
   params: z.array(paramSchema),

@@ -212,6 +212,8 @@ export interface components {
         Badge: "unchecked" | "pending" | "verified" | "failing" | "error" | "stale";
         Block: {
             approved: boolean;
+            /** @description Archived blocks stay readable but take no new versions */
+            archived: boolean;
             /** @description Name of the version's author */
             author: string;
             badge: components["schemas"]["Badge"];

@@ -36,8 +36,8 @@ describe("problem documents", () => {
   });
 
   it("keeps extra members but never lets them overwrite type, title, status or detail", () => {
-    const doc = problemDocument(new AppError("validation", "bad file", { errors: [{ message: "x", line: 3 }], status: 200, type: "evil" }));
-    expect(doc).toMatchObject({ status: 422, type: PROBLEM_BASE + "validation", errors: [{ message: "x", line: 3 }] });
+    const doc = problemDocument(new AppError("validation", "bad file", { errors: [{ message: "x", line: 3 }], status: 200, type: "https://evil.test/", detail: "other" }));
+    expect(doc).toMatchObject({ status: 422, type: PROBLEM_BASE + "validation", detail: "bad file", errors: [{ message: "x", line: 3 }] });
   });
 
   it("answers 401 with a Bearer challenge (RFC 6750 §3)", () => {
@@ -72,5 +72,15 @@ describe("cookie-carried writes from another site", () => {
     expect((await call({ cookie: "s=x", authorization: "Bearer t", origin: "https://elsewhere.test" })).status).toBe(200);
     expect((await call({ origin: "https://elsewhere.test" })).status).toBe(200);
     expect((await call({ cookie: "s=x", origin: "https://elsewhere.test" }, "GET")).status).toBe(200);
+  });
+});
+
+describe("finer problem types named by a service", () => {
+  it("stay under our base and are not mistaken for a stale base", () => {
+    const doc = problemDocument(new AppError("conflict", "the block is archived", { type: "archived", head: 3 }));
+    expect(doc).toMatchObject({ type: PROBLEM_BASE + "archived", status: 409, head: 3 });
+  });
+  it("cannot point outside our base", () => {
+    expect(problemDocument(new AppError("conflict", "x", { type: "https://evil.test/x" })).type).toBe(PROBLEM_BASE + "conflict");
   });
 });
