@@ -393,6 +393,38 @@ describe("facets", () => {
   });
 });
 
+describe("the calls Assay's library search makes", () => {
+  // The request shape of lib/search/search.ts: rights and picked facets in the
+  // filter, five facets, a page, highlight tags that cannot occur in text.
+  const assaySearch = (q: string, extra: string[], sort?: string[]) =>
+    blocks().search(q, {
+      filter: ["(visibility = public OR teamId IN [2])", ...extra],
+      facets: ["category", "badge", "tags", "team", "approved"],
+      limit: 2,
+      offset: 0,
+      sort,
+      attributesToHighlight: ["title", "summary"],
+      highlightPreTag: "\u0002",
+      highlightPostTag: "\u0003",
+    });
+
+  it("browses newest first with facet counts over every readable block", async () => {
+    const res = await assaySearch("", [], ["updatedAt:desc"]);
+    expect(res.hits.map((h) => h.id)).toEqual([4, 6]);
+    expect(res.estimatedTotalHits).toBe(5);
+    expect(res.facetDistribution?.team).toEqual({ fenwick: 2, larkspur: 3 });
+    expect(res.facetDistribution?.approved).toEqual({ false: 2, true: 3 });
+    expect(res.hits[0]._formatted?.title).toBe("Bandgap voltage reference");
+  });
+
+  it("narrows by picked facets and marks matches in title and summary", async () => {
+    const res = await assaySearch("limiter", ['category = "limiter"', "approved = true"]);
+    expect(ids(res.hits)).toEqual([6]);
+    expect(res.hits[0]._formatted?.title).toBe("Soft zener \u0002limiter\u0003");
+    expect(res.facetDistribution?.category).toEqual({ limiter: 1 });
+  });
+});
+
 describe("highlighting", () => {
   it("wraps matched words of the asked attributes in _formatted", async () => {
     const res = await blocks().search("diode", { attributesToHighlight: ["title"] });
