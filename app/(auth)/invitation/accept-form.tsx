@@ -1,6 +1,6 @@
 "use client";
 import { signIn } from "next-auth/react";
-import { useState } from "react";
+import { useState, type FormEvent } from "react";
 
 const input = "mt-1 w-full rounded border border-rule bg-panel px-3 py-2 text-sm focus:border-copper";
 
@@ -8,7 +8,10 @@ const input = "mt-1 w-full rounded border border-rule bg-panel px-3 py-2 text-sm
 export function AcceptForm({ token, hasAccount, teamName }: { token: string; hasAccount: boolean; teamName: string }) {
   const [error, setError] = useState("");
   const [busy, setBusy] = useState(false);
-  async function accept(form: FormData) {
+  // onSubmit rather than a form action, so a refusal keeps what was typed.
+  async function accept(e: FormEvent<HTMLFormElement>) {
+    e.preventDefault();
+    const form = new FormData(e.currentTarget);
     setError("");
     const name = String(form.get("name") ?? "");
     const password = String(form.get("password") ?? "");
@@ -20,7 +23,7 @@ export function AcceptForm({ token, hasAccount, teamName }: { token: string; has
     window.location.assign("/");
   }
   return (
-    <form action={accept} className="space-y-4">
+    <form onSubmit={accept} className="space-y-4">
       {hasAccount ? null : (
         <>
           <label className="block text-sm font-medium">

@@ -1,6 +1,6 @@
 "use client";
 import { signIn } from "next-auth/react";
-import { useActionState, useState } from "react";
+import { useActionState, useState, type FormEvent } from "react";
 import { requestLinkAction } from "./actions";
 
 const input = "mt-1 w-full rounded border border-rule bg-panel px-3 py-2 text-sm focus:border-copper";
@@ -12,7 +12,10 @@ export function SignInForms({ callbackUrl, initialError }: { callbackUrl: string
   const [busy, setBusy] = useState(false);
   const [link, linkAction, linkPending] = useActionState(requestLinkAction, {});
 
-  async function withPassword(form: FormData) {
+  // onSubmit rather than a form action: a failed attempt must keep what was typed (actions reset the form).
+  async function withPassword(e: FormEvent<HTMLFormElement>) {
+    e.preventDefault();
+    const form = new FormData(e.currentTarget);
     setBusy(true);
     setError("");
     const res = await signIn("password", {
@@ -31,7 +34,7 @@ export function SignInForms({ callbackUrl, initialError }: { callbackUrl: string
 
   return (
     <div className="space-y-8">
-      <form action={withPassword} className="space-y-4" aria-labelledby="pw-heading">
+      <form onSubmit={withPassword} className="space-y-4" aria-labelledby="pw-heading">
         <h1 id="pw-heading" className="font-serif text-2xl font-semibold">Sign in</h1>
         <label className="block text-sm font-medium">
           E-mail
