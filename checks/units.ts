@@ -86,7 +86,8 @@ export function readQuantity(text: string): Quantity {
   if (u.value === null || !Number.isFinite(u.value)) throw new Error(`"${s}" has no number in it`);
   const q = toQuantity(u)!;
   if (!Number.isFinite(q.si)) throw new Error(`"${s}" is not a finite quantity`);
-  return q;
+  // 22 nF is 22 × 1e-9 = 2.2000000000000002e-8 in binary; 15 digits give the written value back.
+  return { si: Number(q.si.toPrecision(15)), unit: q.unit };
 }
 
 /** A number with `sig` significant digits, trailing zeros dropped; exponent form outside 1e-4..1e6. */

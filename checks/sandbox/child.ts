@@ -42,3 +42,5 @@ process.on("message", (req: Request) => {
   process.send!(reply);
 });
 process.send!({ id: 0, ok: true, value: "ready" });
+// The parent is gone (exited or killed): nothing will ask for more work.
+process.on("disconnect", () => process.exit(0));
