@@ -44,7 +44,11 @@ export async function forgive(name: LimitName, key: string): Promise<void> {
   await limits[name]().delete(key.toLowerCase());
 }
 
-/** The client address as Next's server reports it (x-forwarded-for is set by Next itself when serving directly). */
+/**
+ * The client address for per-IP limits. Next fills x-forwarded-for with the socket address only when the request
+ * has none, and a proxy in front appends the address it saw, so the last entry is the one a client cannot choose
+ * behind one appending proxy. Served directly, a client can send its own header: the per-address limit still holds.
+ */
 export function clientIp(headers: Headers | Record<string, string | string[] | undefined> | undefined): string {
   const get = (n: string): string | undefined => {
     if (!headers) return undefined;
@@ -52,5 +56,6 @@ export function clientIp(headers: Headers | Record<string, string | string[] | u
     const v = headers[n];
     return Array.isArray(v) ? v[0] : v;
   };
-  return (get("x-forwarded-for")?.split(",")[0].trim() || get("x-real-ip") || "unknown").toLowerCase();
+  const hops = (get("x-forwarded-for") ?? "").split(",").map((h) => h.trim()).filter(Boolean);
+  return (hops.at(-1) || get("x-real-ip") || "unknown").toLowerCase();
 }

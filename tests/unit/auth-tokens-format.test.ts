@@ -32,3 +32,13 @@ describe("cookie header parsing", () => {
     expect(parseCookies(null)).toEqual({});
   });
 });
+
+describe("client address for per-IP limits", () => {
+  it("takes the hop the nearest proxy appended, then x-real-ip", async () => {
+    const { clientIp } = await import("@/lib/auth/rate-limit");
+    expect(clientIp({ "x-forwarded-for": "203.0.113.9, 10.0.0.5" })).toBe("10.0.0.5");
+    expect(clientIp(new Headers({ "x-forwarded-for": "127.0.0.1" }))).toBe("127.0.0.1");
+    expect(clientIp({ "x-real-ip": "192.0.2.1" })).toBe("192.0.2.1");
+    expect(clientIp(undefined)).toBe("unknown");
+  });
+});
