@@ -24,7 +24,7 @@ export function BlockActions({ slug, version, role, signedIn, watching, isHead, 
       {maintainer && isHead ? (
         <details className="max-w-md rounded border border-rule bg-panel px-3 py-2">
           <summary className="cursor-pointer text-sm font-medium">Review this version</summary>
-          <div className="mt-2"><ReviewDecision slug={slug} version={version} /></div>
+          <div className="mt-2"><ReviewDecision slug={slug} version={version} refresh /></div>
         </details>
       ) : null}
     </div>

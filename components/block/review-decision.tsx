@@ -1,11 +1,16 @@
 "use client";
-import { useActionState, useId } from "react";
+import { useRouter } from "next/navigation";
+import { useActionState, useEffect, useId } from "react";
 import { decideAction } from "@/app/(library)/blocks/[slug]/actions";
 
 /** Approve a version, or ask for changes with a comment saying which. */
-export function ReviewDecision({ slug, version }: { slug: string; version: number }) {
+export function ReviewDecision({ slug, version, refresh = false }: { slug: string; version: number; refresh?: boolean }) {
   const [state, action, pending] = useActionState(decideAction, {});
   const id = useId();
+  const router = useRouter();
+  useEffect(() => {
+    if (refresh && state.ok) router.refresh();
+  }, [refresh, state, router]);
   return (
     <form action={action} className="space-y-2" aria-label={`Review v${version} of ${slug}`}>
       <input type="hidden" name="slug" value={slug} />

@@ -10,6 +10,8 @@ import { assertNoFrameworkError, launch, shot, watchErrors } from "./support/bro
 
 // One story through the library, in order: each step builds on the block the one before made.
 const FORK = "opamp-soft-limiter-e2e";
+// A 1 x 1 PNG, the smallest schematic there is.
+const PNG_1PX = Buffer.from("iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==", "base64");
 let close: () => Promise<void>;
 let page: Page;
 let errors: string[];
@@ -144,9 +146,11 @@ describe("the library in a browser", () => {
       "summary: Checks that notes are sanitised.", "params:", "  - { name: R, value: 1 kohm, tol: 1% }", "---",
       "Plain words and $R = 1\\,\\mathrm{k\\Omega}$.", "", "<script>window.__noteScriptRan = true</script>", "",
       "A [dangerous link](javascript:window.__noteLinkRan=true) and <img src=x onerror=\"window.__noteImgRan=true\">.", "",
+      "![the test resistor](schematic.png)", "",
       "```spice", "R1 a 0 {R}", "V1 a 0 1", "```", "", "```check", "I = 1 V / R", "check(\"current is 1 mA\", near(I, 1 mA, 2%))", "```", "",
     ].join("\n");
     await imp.read({ name: "note-injection-e2e.md", mimeType: "text/markdown", buffer: Buffer.from(file) });
+    await page.getByLabel(/Schematic images/).setInputFiles({ name: "schematic.png", mimeType: "image/png", buffer: PNG_1PX });
     await imp.create("note-injection-e2e");
     const note = page.getByTestId("note");
     await note.locator(".katex").first().waitFor();
@@ -159,7 +163,19 @@ describe("the library in a browser", () => {
       return [w.__noteScriptRan, w.__noteLinkRan, w.__noteImgRan];
     });
     expect(ran).toEqual([undefined, undefined, undefined]);
+    // The one image the note may show is its own attachment, served by the app.
+    const img = note.locator("img");
+    expect(await img.count()).toBe(1);
+    await expect(img.getAttribute("src")).resolves.toBe("/blocks/note-injection-e2e/attachments/schematic.png");
+    await page.waitForFunction(() => (document.querySelector("[data-testid=note] img") as HTMLImageElement | null)?.naturalWidth === 1);
     await settle(page, "16-note-sanitised", errors);
+  });
+
+  it("shows cautions on a block that works from the mains", async () => {
+    await new BlockPage(page).open("mains-bias-rail-5v1");
+    const caution = page.getByTestId("hazard");
+    await expect(caution.textContent()).resolves.toMatch(/local electrical codes/);
+    await settle(page, "17-hazard-cautions", errors);
   });
 
   it("holds up on a narrow screen", async () => {
@@ -168,7 +184,7 @@ describe("the library in a browser", () => {
     await phone.goto("/blocks/opamp-soft-limiter");
     const overflow = await phone.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
     expect(overflow).toBeLessThanOrEqual(1);
-    await settle(phone, "17-block-narrow", phoneErrors);
+    await settle(phone, "18-block-narrow", phoneErrors);
     await closePhone();
   });
 });

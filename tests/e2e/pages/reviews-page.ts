@@ -11,6 +11,9 @@ export class ReviewsPage {
     const form = this.page.getByRole("form", { name: `Review v${version} of ${slug}` });
     await form.getByLabel("Comment").fill(comment);
     await form.getByRole("button", { name: "Approve" }).click();
-    await form.getByText(`Approved v${version}.`).waitFor({ timeout: 30_000 });
+    const said = form.locator("p[aria-live]");
+    await this.page.waitForFunction((el) => Boolean(el?.textContent?.trim()), await said.elementHandle(), { timeout: 30_000 });
+    const text = (await said.textContent())?.trim();
+    if (text !== `Approved v${version}.`) throw new Error(`approval refused: ${text}`);
   }
 }

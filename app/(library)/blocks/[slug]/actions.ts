@@ -54,7 +54,7 @@ export async function decideAction(_prev: FormState, form: FormData): Promise<Fo
   } catch (err) {
     return failure(err);
   }
-  // The review queue is left as it is, so the reviewer sees the confirmation beside the item; it drops out on the next visit.
-  revalidatePath(`/blocks/${parsed.data.slug}`);
+  // No revalidatePath here: it would re-render the review queue at once and take the item, and this confirmation,
+  // off the screen. Both pages are dynamic; the block page refreshes itself (see ReviewDecision).
   return { ok: true, message: parsed.data.decision === "approved" ? `Approved v${parsed.data.version}.` : `Changes requested on v${parsed.data.version}.` };
 }
