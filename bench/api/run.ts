@@ -8,7 +8,8 @@ import autocannon from "autocannon";
 import { startCluster } from "../../tests/support/pg-cluster";
 import { startApp } from "../../tests/support/app-server";
 
-const DURATION_S = Number(process.env.BENCH_DURATION ?? 8);
+const DURATION_S = Number(process.env.BENCH_DURATION ?? 4);
+const ROUNDS = Number(process.env.BENCH_ROUNDS ?? 3);
 const CONNECTIONS = Number(process.env.BENCH_CONNECTIONS ?? 8);
 const SLUG = "rc-lowpass-antialias";
 
@@ -20,8 +21,6 @@ interface Figure {
 }
 
 async function measure(url: string, headers: Record<string, string>, expectStatus: number): Promise<Figure> {
-  // A short warm-up so the first compile of each route and the connection pool are not in the figures.
-  await autocannon({ url, headers, connections: 2, duration: 1 });
   const r = await autocannon({ url, headers, connections: CONNECTIONS, duration: DURATION_S });
   const wrong = expectStatus === 304 ? r["2xx"] + r["4xx"] + r["5xx"] : r.non2xx;
   return { rps: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, non2xx: wrong + r.errors + r.timeouts };
@@ -86,17 +85,31 @@ async function main() {
       [`same, If-None-Match → 304`, `/api/v1/blocks/${SLUG}/versions/1`, { ...auth, "If-None-Match": etag }, 304],
       [`GET /blocks?q=low-pass`, `/api/v1/blocks?q=low-pass`, auth, 200],
     ];
-    console.log(`${stored} demo blocks stored, ${indexed} indexed; ${CONNECTIONS} connections, ${DURATION_S} s per route, read token`);
+    console.log(`${stored} demo blocks stored, ${indexed} indexed; read token; ${CONNECTIONS} connections, ${DURATION_S} s per route per round, ${ROUNDS} interleaved rounds, medians`);
+    // A warm-up pass so first requests (route code loading, the pool, the sandbox) are not in the figures.
+    for (const [, p, headers] of targets) await autocannon({ url: `${app.url}${p}`, headers, connections: 2, duration: 1 });
+    // Rounds interleave the routes, so load from elsewhere on the machine falls on all of them alike.
+    const runs: Figure[][] = targets.map(() => []);
+    for (let round = 0; round < ROUNDS; round++) {
+      for (const [i, [, p, headers, status]] of targets.entries()) runs[i].push(await measure(`${app.url}${p}`, headers, status));
+    }
+    const median = (xs: number[]) => xs.slice().sort((a, b) => a - b)[Math.floor(xs.length / 2)];
+    const figures = runs.map((fs) => ({
+      rps: median(fs.map((f) => f.rps)),
+      p50: median(fs.map((f) => f.p50)),
+      p99: median(fs.map((f) => f.p99)),
+      non2xx: fs.reduce((a, f) => a + f.non2xx, 0),
+    }));
+    const bare = figures[0];
     console.log("route                              req/s    p50 ms   p99 ms   req/s ÷ bare   p99 × bare   bad");
-    let bare: Figure | undefined;
-    for (const [name, p, headers, status] of targets) {
-      const f = await measure(`${app.url}${p}`, headers, status);
-      bare ??= f;
+    for (const [i, [name]] of targets.entries()) {
+      const f = figures[i];
       console.log(
         `${name.padEnd(32)} ${f.rps.toFixed(0).padStart(7)} ${f.p50.toFixed(1).padStart(9)} ${f.p99.toFixed(1).padStart(8)} ` +
           `${(f.rps / bare.rps).toFixed(3).padStart(14)} ${(f.p99 / Math.max(bare.p99, 1)).toFixed(1).padStart(12)} ${String(f.non2xx).padStart(5)}`,
       );
     }
+    console.log(`load average during the run: ${os.loadavg().map((x) => x.toFixed(1)).join(" ")} on ${os.cpus().length} cores`);
   } finally {
     await app?.stop();
     await search.close();

@@ -32,7 +32,3 @@ export function pathParams<S extends ZodType>(schema: S, params: unknown): z.inf
   if (!r.success) throw new AppError("not_found", "no such resource");
   return r.data;
 }
-
-export function parseWith<S extends ZodType>(schema: S, value: unknown): z.infer<S> {
-  return schema.parse(value);
-}

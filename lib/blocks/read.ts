@@ -25,7 +25,7 @@ export async function getBlock(caller: Caller, slug: string, version?: number): 
   await em.populate(v, ["author"]);
   const { badge, run } = (await badgesFor(em, [v.id])).get(v.id)!;
   const approved = (await approvedVersionIds(em, [v.id])).has(v.id);
-  const parsed = parseBlock(v.text).block;
+  const parsed = parsedOf(v);
   return {
     slug: block.slug,
     title: parsed?.title ?? block.title,
@@ -55,6 +55,18 @@ export async function getBlock(caller: Caller, slug: string, version?: number): 
     runId: run?.id ?? null,
     runStatus: run?.status ?? null,
   };
+}
+
+// A version's text never changes: parse it once per process (keyed by content hash), not on every read.
+const parsedCache = new Map<string, ReturnType<typeof parseBlock>["block"]>();
+function parsedOf(v: BlockVersion): ReturnType<typeof parseBlock>["block"] {
+  let parsed = parsedCache.get(v.contentHash);
+  if (parsed === undefined) {
+    parsed = parseBlock(v.text).block;
+    if (parsedCache.size >= 500) parsedCache.delete(parsedCache.keys().next().value!);
+    parsedCache.set(v.contentHash, parsed);
+  }
+  return parsed;
 }
 
 async function forkedFromRef(caller: Caller, block: Block): Promise<{ slug: string; version: number; title: string } | null> {
