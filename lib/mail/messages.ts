@@ -62,6 +62,15 @@ export function reviewRequestedMessage(b: BlockRef, requestedBy: string): Messag
   );
 }
 
+export function newVersionMessage(b: BlockRef, author: string, message: string): Message {
+  return compose(
+    `New version: ${b.title} v${b.version}`,
+    [`${author} stored version ${b.version} of “${b.title}” (${b.slug}).`, ...(message ? [`Message: ${message}`] : []), "Its checks are running now."],
+    { label: "Open the version", url: blockUrl(b.slug, b.version) },
+    "You receive this because you watch this block. Unwatch it on its page to stop these mails.",
+  );
+}
+
 export function versionApprovedMessage(b: BlockRef, reviewer: string): Message {
   return compose(
     `Approved: ${b.title} v${b.version}`,

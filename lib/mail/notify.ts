@@ -2,10 +2,10 @@ import type { EntityManager } from "@mikro-orm/postgresql";
 import { MembershipSchema, UserSchema } from "@/entities";
 import { takeEvents, type PendingEvent } from "@/lib/outbox/outbox";
 import { sendMail } from "./mailer";
-import { nowFailingMessage, reviewRequestedMessage, versionApprovedMessage, type BlockRef, type Message } from "./messages";
+import { newVersionMessage, nowFailingMessage, reviewRequestedMessage, versionApprovedMessage, type BlockRef, type Message } from "./messages";
 
-// The outbox's mail consumer: review requested → the team's reviewers; version approved → its author and
-// watchers; a head whose checks turn failing or error → watchers. Other events are marked and skipped.
+// The outbox's mail consumer: a new version → watchers; review requested → the team's reviewers; version approved →
+// its author and watchers; a head whose checks turn failing or error → watchers. Other events are marked and skipped.
 type Payload = Record<string, unknown>;
 const s = (v: unknown): string => (typeof v === "string" ? v : "");
 const list = (v: unknown): string[] => (Array.isArray(v) ? v.filter((x): x is string => typeof x === "string") : []);
@@ -40,6 +40,11 @@ export async function mailFor(em: EntityManager, e: Pick<PendingEvent, "kind" | 
   const p = e.payload;
   const b = ref(p);
   if (!b || p.archived === true) return null;
+  if (e.kind === "version.created") {
+    const author = s(p.authorEmail).toLowerCase();
+    const to = (await readers(em, p, list(p.watchers))).filter((a) => a !== author);
+    return { to, message: newVersionMessage(b, s(p.authorName) || (await nameOf(em, author)), s(p.message)) };
+  }
   if (e.kind === "review.requested") {
     const requester = s(p.requestedBy).toLowerCase();
     const to = (await readers(em, p, list(p.reviewers))).filter((a) => a !== requester);

@@ -3,6 +3,7 @@ import { readFileSync } from "node:fs";
 import { BlockSchema, OutboxEventSchema } from "@/entities";
 import { loadCaller } from "@/lib/auth/load-caller";
 import { createBlock } from "@/lib/blocks/create";
+import { addVersion } from "@/lib/blocks/versions";
 import { blockEventBase } from "@/lib/blocks/events";
 import { closeOrm, getEm } from "@/lib/db/orm";
 import { processNotifications } from "@/lib/mail/notify";
@@ -56,6 +57,24 @@ describe("mail notifications from the outbox", () => {
     expect(failing).toHaveLength(1);
     expect(failing[0].text).toContain("are now failing");
     expect(await (await getEm()).count(OutboxEventSchema, { notifiedAt: null, payload: { slug } } as never)).toBe(0);
+  });
+
+  it("tells watchers of a new version, but not the author who stored it", async () => {
+    const { slug: team, people, tag } = await makeTeam(["author", "viewer"]);
+    const [author, watcher] = await Promise.all(people.map(async (p) => loadCaller(await getEm(), p.id)));
+    const text = readFileSync("content/blocks/rc-lowpass-antialias.md", "utf8").replace(/^slug: .*$/m, `slug: newver-${tag}`);
+    const { slug } = await createBlock(author, { teamSlug: team, text });
+    await watch(watcher, slug);
+    await watch(author, slug);
+    await drain();
+    await addVersion(author, slug, { params: { R: "5.1 kohm" }, baseVersion: 1, message: "lower corner for the new ADC" });
+    await drain();
+    const [m, ...more] = mailsTo(people[1].email).filter((x) => x.subject.startsWith("New version"));
+    expect(more).toHaveLength(0);
+    expect(m.subject).toMatch(/^New version: .* v2$/);
+    expect(m.text).toContain("lower corner for the new ADC");
+    expect(m.text).toContain(`/blocks/${slug}/versions/2`);
+    expect(mailsTo(people[0].email).filter((x) => x.subject.startsWith("New version"))).toHaveLength(0);
   });
 
   it("does not mail a watcher who has left the team of a team block", async () => {
