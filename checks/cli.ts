@@ -3,7 +3,8 @@
 // Exit 0 verified, 1 failing or unchecked, 2 error.
 import { readFileSync } from "node:fs";
 import path from "node:path";
-import { verifyBlock, type Report } from "./index";
+import type { Report } from "./engine/types";
+import { verifyBlock } from "./sandbox/api";
 
 const MARK: Record<string, string> = { pass: "✓", fail: "✗", error: "!", skipped: "-" };
 

@@ -1,8 +1,5 @@
 // The check engine's public API: block file text in, plain JSON-able objects out.
 // Everything outside checks/ imports from here only.
-import { previewLane, verifyLane } from "./sandbox/client";
-import type { Report, Waveform } from "./engine/types";
-import { reportStatus } from "./engine/report";
 
 export { ENGINE_VERSION, modelLibraryHash } from "./version";
 export { ngspiceVersion } from "./spice/version";
@@ -14,50 +11,4 @@ export { importNetlist } from "./import-netlist";
 export { formatQuantity, readQuantity } from "./units";
 export type { BlockError, ParamSpec, ParsedBlock } from "./block/types";
 export type { Report, Waveform } from "./engine/types";
-
-const PREVIEW_TIMEOUT_MS = 3_000;
-const VERIFY_TIMEOUT_MS = 120_000;
-
-function slugOf(text: string): string {
-  return /^slug:\s*["']?([a-z0-9-]+)/m.exec(String(text ?? ""))?.[1] ?? "";
-}
-
-function errorReport(text: string, message: string): Report {
-  const report: Report = { slug: slugOf(text), status: "error", quantities: {}, checks: [], simulations: [], errors: [{ message }] };
-  report.status = reportStatus(report);
-  return report;
-}
-
-/** Optional: start the sandbox children now so the first preview does not wait for them to load. */
-export function warmEngine(): void {
-  previewLane.warm();
-  verifyLane.warm();
-}
-
-/** Full verification in the sandbox child. Never throws for bad input: errors go in the report. */
-export async function verifyBlock(
-  text: string,
-  opts: { simulate?: boolean; params?: Record<string, string>; timeoutMs?: number; cacheDir?: string } = {},
-): Promise<{ report: Report; waveforms: Waveform[] }> {
-  const { timeoutMs = VERIFY_TIMEOUT_MS, ...rest } = opts;
-  const reply = await verifyLane.request("verify", String(text ?? ""), rest, timeoutMs);
-  if (!reply.ok) return { report: errorReport(text, reply.error ?? "the check run failed"), waveforms: [] };
-  return reply.value as { report: Report; waveforms: Waveform[] };
-}
-
-/** Live preview: quantities and every non-simulated check with its tolerance corners; no simulation. */
-export async function previewBlock(text: string, params?: Record<string, string>): Promise<Report> {
-  const reply = await previewLane.request("preview", String(text ?? ""), { params }, PREVIEW_TIMEOUT_MS);
-  if (!reply.ok) return errorReport(text, reply.error ?? "the preview failed");
-  return reply.value as Report;
-}
-
-/** Retune assistant: solve for `param` so that `target.quantity` reaches `target.value`, then snap to `series`. */
-export async function retune(
-  text: string,
-  req: { param: string; target: { quantity: string; value: string }; series: string },
-): Promise<{ value: string; snapped: string; report: Report }> {
-  const reply = await previewLane.request("retune", String(text ?? ""), req, PREVIEW_TIMEOUT_MS * 3);
-  if (!reply.ok) throw new Error(reply.error ?? "the retune failed");
-  return reply.value as { value: string; snapped: string; report: Report };
-}
+export { previewBlock, retune, verifyBlock, warmEngine } from "./sandbox/api";

@@ -3,12 +3,7 @@ import { formatQuantity, toQuantity } from "../units";
 import type { Corner } from "../corners";
 import type { CheckReport, Report } from "./types";
 
-export function reportStatus(r: Pick<Report, "checks" | "errors">): Report["status"] {
-  if (r.errors.length || r.checks.some((c) => c.status === "error")) return "error";
-  if (r.checks.some((c) => c.status === "fail")) return "failing";
-  if (r.checks.length === 0 || r.checks.some((c) => c.status === "skipped")) return "unchecked";
-  return "verified";
-}
+export { reportStatus } from "./status";
 
 export function quantitiesOf(scope: Map<string, unknown>, assigned: { name: string; simulated: boolean }[]): Report["quantities"] {
   const out: Report["quantities"] = {};
