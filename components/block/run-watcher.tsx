@@ -17,7 +17,7 @@ export function RunWatcher({ runId, runStatus, badge, version, approved }: {
   }, [open, settled, router]);
   const shown = open && run.data ? run.data.badge : badge;
   return (
-    <span className="inline-flex items-center gap-2" aria-live="polite" data-testid="block-badge" data-badge={shown}>
+    <span className="inline-flex items-center gap-2" aria-live="polite" data-testid="block-badge" data-badge={shown} data-run-open={String(open)}>
       <Hallmark badge={shown} version={version} approved={approved} id="block-mark" />
       {open && !settled ? <span className="ml-4 text-xs text-graphite">checks {run.data?.status ?? runStatus}…</span> : null}
     </span>

@@ -7,8 +7,10 @@ export class BlockPage {
     await this.page.goto(`/blocks/${slug}`);
   }
 
-  badge(): Promise<string | null> {
-    return this.page.getByTestId("block-badge").getAttribute("data-badge");
+  /** The badge the page shows once it holds the finished run's report (not only the polled state). */
+  async badge(): Promise<string | null> {
+    const mark = this.page.getByTestId("block-badge");
+    return (await mark.getAttribute("data-run-open")) === "true" ? "pending" : mark.getAttribute("data-badge");
   }
 
   /** The page polls a pending run and reloads itself; a fresh load every few seconds covers runs queued behind others. */
