@@ -33,7 +33,9 @@ export function CornerChart({ label, corners }: { label: string; corners: Corner
               ctx.moveTo(bbox.left, y);
               ctx.lineTo(bbox.left + bbox.width, y);
               ctx.stroke();
-              ctx.fillText(text, bbox.left + 4, y - 3 * devicePixelRatio);
+              // Right-aligned inside the plot, clear of the axis's own tick labels.
+              ctx.textAlign = "right";
+              ctx.fillText(text, bbox.left + bbox.width - 4, y - 3 * devicePixelRatio);
             };
             for (const l of corners.limits) line(l, "#a63d2f", [6, 4], `limit ${eng(l, corners.unit)}`);
             line(corners.nominal, COPPER, [2, 3], `nominal ${eng(corners.nominal, corners.unit)}`);

@@ -16,7 +16,9 @@ export function WaveformPlot({ wave }: { wave: Waveform }) {
             const { ctx, bbox } = u;
             ctx.save();
             ctx.fillStyle = COPPER_PALE;
-            for (const w of wave.windows) {
+            // Several checks often measure over the same window: shade each span once so the tint stays pale.
+            const spans = [...new Map(wave.windows.map((w) => [`${w.from}:${w.to}`, w])).values()];
+            for (const w of spans) {
               const x0 = u.valToPos(w.from, "x", true);
               const x1 = u.valToPos(w.to, "x", true);
               ctx.fillRect(x0, bbox.top, Math.max(1, x1 - x0), bbox.height);
