@@ -98,6 +98,11 @@ export function analyzeScript(script: string, firstLine: number, errors: BlockEr
         const object = (node as unknown as { object: MathNode }).object;
         if (object.type === "SymbolNode") [kind, name] = ["assign", (object as unknown as { name: string }).name];
       } else if (node.type === "FunctionAssignmentNode") [kind, name] = ["function", (node as unknown as { name: string }).name];
+      if (name && params.includes(name)) {
+        // Tolerance corners vary the parameters; a script that overwrote one would hide that.
+        errors.push({ message: `${name} is a parameter: change its value in the frontmatter, not in the script`, line });
+        continue;
+      }
       if (nestedCheck(node)) {
         errors.push({ message: "check() must stand on a line of its own", line });
         continue;

@@ -52,6 +52,12 @@ describe("check scripts", () => {
     expect(r.checks[1]).toMatchObject({ status: "error", detail: "cannot compare R = 2 kohm with 1 V: Cannot compare units with different base" });
   });
 
+  it("refuses an assignment to a parameter, which would hide it from the tolerance corners", () => {
+    const r = run("R = 5 kohm\nx = R");
+    expect(r.errors).toEqual([{ message: expect.stringMatching(/^R is a parameter/), line: first }]);
+    expect(r.quantities.x.value).toBe(2000);
+  });
+
   it("keeps check() a statement of its own, with a label and a condition", () => {
     const r = run('x = check("a", true)\ncheck("only a label")');
     expect(r.errors).toEqual([
