@@ -9,6 +9,7 @@ export interface PathValues {
   numbers: number[];
   hasNull: boolean;
   hasEmpty: boolean; // "", [] or {}
+  facetIds?: number[]; // numbered values, filled in when first counted as a facet
 }
 
 export type FlatDoc = Map<string, PathValues>;

@@ -1,6 +1,7 @@
 import { flatten, searchableText, type FlatDoc } from "./doc-values";
 import { tokenize } from "./tokenize";
 import { errors, MeiliError } from "./errors";
+import { FacetCounter } from "./facets";
 import { applySettings, defaultSettings, type IndexSettings } from "./settings";
 import { TermIndex, type TypoSettings } from "./term-index";
 
@@ -29,6 +30,7 @@ export class IndexState {
   private fieldOrder: string[] = [];
   private tokenCache = new Map<string, Map<string, string[]>>();
   terms: TermIndex;
+  readonly facets = new FacetCounter();
 
   constructor(readonly uid: string, primaryKey: string | null = null, now = new Date().toISOString()) {
     this.primaryKey = primaryKey;

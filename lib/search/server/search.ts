@@ -1,5 +1,4 @@
 import { errors } from "./errors";
-import { computeFacets } from "./facets";
 import { compileFilter } from "./filter-eval";
 import { filterAttributes, parseFilter } from "./filter-parser";
 import { formatValue } from "./highlight";
@@ -94,7 +93,7 @@ export function executeSearch(index: IndexState, p: SearchParams) {
   const ranked = firstRanked(candidates, Math.min(offset + limit, total), cmp);
   const window = ranked.slice(Math.min(offset, total), Math.min(offset + limit, total));
 
-  const facetResult = facets.length ? computeFacets(facets, candidates.map((c) => index.flats.get(c.key)!), index.settings) : null;
+  const facetResult = facets.length ? index.facets.count(facets, candidates.map((c) => index.flats.get(c.key)!), index.settings) : null;
   const hits = window.map((c) => formatHit(index, index.docs.get(c.key)!, p, q));
   const processingTimeMs = Math.round(performance.now() - started);
   const pageInfo = paged
