@@ -45,10 +45,13 @@ function condition(c: Condition): DocPredicate {
       return (f) => inOneValue(f.get(c.attr), range);
     }
     case "IN": {
-      const values = c.values.map((v) => [normalize(v), asNumber(v)] as const);
+      const norms = c.values.map(normalize);
+      const nums = c.values.map(asNumber);
       return (f) => {
         const pv = f.get(c.attr);
-        return values.some(([v, n]) => equals(pv, v, n));
+        if (!pv) return false;
+        for (let i = 0; i < norms.length; i++) if (equals(pv, norms[i], nums[i])) return true;
+        return false;
       };
     }
     case "EXISTS":
@@ -78,11 +81,17 @@ export function compileFilter(node: FilterNode): DocPredicate {
     }
     case "and": {
       const parts = node.nodes.map(compileFilter);
-      return (f) => parts.every((p) => p(f));
+      return (f) => {
+        for (const p of parts) if (!p(f)) return false;
+        return true;
+      };
     }
     case "or": {
       const parts = node.nodes.map(compileFilter);
-      return (f) => parts.some((p) => p(f));
+      return (f) => {
+        for (const p of parts) if (p(f)) return true;
+        return false;
+      };
     }
   }
 }

@@ -29,6 +29,7 @@ export class IndexState {
   readonly flats = new Map<string, FlatDoc>();
   private fieldOrder: string[] = [];
   private tokenCache = new Map<string, Map<string, string[]>>();
+  private sequence: Map<string, number> | null = null;
   terms: TermIndex;
   readonly facets = new FacetCounter();
 
@@ -128,6 +129,7 @@ export class IndexState {
       let newFields = false;
       for (const [key, doc] of keyed) {
         const stored = mode === "update" && this.docs.has(key) ? { ...this.docs.get(key), ...doc } : doc;
+        if (!this.docs.has(key)) this.sequence = null;
         this.docs.set(key, stored);
         this.tokenCache.delete(key);
         this.flats.set(key, flatten(stored));
@@ -147,6 +149,7 @@ export class IndexState {
     let n = 0;
     for (const key of keys) {
       if (!this.docs.delete(key)) continue;
+      this.sequence = null;
       this.tokenCache.delete(key);
       this.flats.delete(key);
       this.terms.remove(key);
@@ -159,6 +162,7 @@ export class IndexState {
   clear(): number {
     const n = this.docs.size;
     this.docs.clear();
+    this.sequence = null;
     this.tokenCache.clear();
     this.flats.clear();
     this.rebuild();
@@ -179,6 +183,16 @@ export class IndexState {
     if (this.docs.size > 0) throw new MeiliError(400, "index_primary_key_already_exists", `Index \`${this.uid}\`: Index already has a primary key: \`${this.primaryKey}\`.`);
     this.primaryKey = pk;
     this.touch();
+  }
+
+  // Each document's place in insertion order, the order of a placeholder search.
+  positions(): Map<string, number> {
+    if (!this.sequence) {
+      this.sequence = new Map();
+      let i = 0;
+      for (const key of this.docs.keys()) this.sequence.set(key, i++);
+    }
+    return this.sequence;
   }
 
   // Words of one attribute of one document, kept until the document changes.

@@ -47,9 +47,7 @@ function parseSort(index: IndexState, sort: string[]) {
 function matchWords(index: IndexState, q: string, strategy: string): Candidate[] | null {
   const words = queryWords(q);
   if (words.length === 0) return null;
-  const seqOf = new Map<string, number>();
-  let seq = 0;
-  for (const key of index.docs.keys()) seqOf.set(key, seq++);
+  const seqOf = index.positions();
   return matchQuery(index, words, strategy).flatMap((m) => {
     const s = seqOf.get(m.key);
     return s === undefined ? [] : [{ ...m, seq: s }];
