@@ -1,7 +1,6 @@
-import { readdirSync, readFileSync, statSync } from "node:fs";
-import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { bearer, makeWorld, rcBlockText, type ApiWorld } from "./api-fixtures";
+import { servedRoutes } from "./api-routes";
 
 // Who may call what: every route handler under app/api/v1 with every kind of caller, against a team block of
 // team A written by its author. The matrix must name every exported method of every route.ts, so a new route
@@ -70,25 +69,6 @@ const MATRIX: Record<string, Entry> = {
   "GET /api/v1/blocks/[slug]/badge.svg": { call: async () => ({ path: `/api/v1/blocks/${slug}/badge.svg`, method: "GET" }), expect: readTeamBlock },
   "GET /api/v1/runs/[id]": { call: async () => ({ path: `/api/v1/runs/${runId}`, method: "GET" }), expect: readTeamBlock },
 };
-
-/** Every `METHOD /api/v1/...` the app serves, read from the route files themselves. */
-function servedRoutes(): string[] {
-  const root = path.resolve("app/api/v1");
-  const out: string[] = [];
-  const walk = (dir: string) => {
-    for (const name of readdirSync(dir)) {
-      const full = path.join(dir, name);
-      if (statSync(full).isDirectory()) walk(full);
-      else if (/^route\.(ts|tsx|js)$/.test(name)) {
-        const src = readFileSync(full, "utf8");
-        const url = "/api/v1" + path.relative(root, dir).split(path.sep).map((s) => `/${s}`).join("").replace(/^\/$/, "");
-        for (const m of src.matchAll(/export\s+(?:const|async\s+function|function)\s+(GET|POST|PUT|PATCH|DELETE|HEAD|OPTIONS)\b/g)) out.push(`${m[1]} ${url}`);
-      }
-    }
-  };
-  walk(root);
-  return out.sort();
-}
 
 async function headersOf(who: Who): Promise<Record<string, string>> {
   switch (who) {

@@ -3,6 +3,7 @@ import SwaggerParser from "@apidevtools/swagger-parser";
 import { describe, expect, it } from "vitest";
 import { openApiDocument } from "@/lib/openapi/document";
 import { renderSchemaTypes, SCHEMA_TYPES_PATH } from "@/lib/openapi/generate-types";
+import { asOpenApi, servedRoutes } from "../integration/api-routes";
 
 const ROUTES = [
   "get /api/v1/health",
@@ -33,6 +34,11 @@ describe("the OpenAPI document", () => {
       Object.keys(item as object).filter((m) => ["get", "post", "put", "patch", "delete"].includes(m)).map((m) => `${m} ${p}`),
     );
     expect(ops.sort()).toEqual([...ROUTES].sort());
+  });
+
+  it("describes every route handler under app/api/v1 (the bench floor excepted), so a new route must be documented", () => {
+    const served = servedRoutes().filter((r) => !r.includes("/bench/")).map(asOpenApi).sort();
+    expect(served).toEqual([...ROUTES].sort());
   });
 
   it("gives every operation an operationId and problem documents for its error statuses", () => {
