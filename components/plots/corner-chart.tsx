@@ -47,6 +47,8 @@ export function CornerChart({ label, corners }: { label: string; corners: Corner
     const options: Omit<uPlot.Options, "width"> = {
       height: 200,
       plugins: [limits],
+      // The caption says what the points are; a hover legend of corner numbers would only add noise.
+      legend: { show: false },
       scales: { x: { time: false, range: [0, xs.length + 1] }, y: { range: [lo - pad, hi + pad] } },
       axes: [
         engAxis("", "corners, sorted", { values: (_u, s) => s.map((v) => (Number.isInteger(v) && v >= 1 && v <= xs.length ? String(v) : "")) }),
