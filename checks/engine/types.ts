@@ -36,7 +36,7 @@ export type SimBackend = {
     ms: number;
     cached?: boolean;
   };
-  measure: (name: string, result: unknown, node: string, args: number[]) => number;
+  measure: (name: string, result: unknown, node: string, args: (number | string)[]) => number;
   waveform: (result: unknown, analysis: Analysis, nodes: string[]) => Waveform | null;
   /** Block-file line for an error the simulator raised, given where the netlist starts. */
   errorLine: (error: unknown, netlistLine: number) => number | undefined;

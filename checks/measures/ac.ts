@@ -58,15 +58,51 @@ export function phase(res: SimResult, node: string, f: number): number {
   return atFrequency(res, phaseCurve(res, node), f, "phase");
 }
 
-/** First frequency where the gain falls 3.01 dB below its value at the sweep's lowest frequency. */
-export function f3db(res: SimResult, node: string): number {
+export type F3dbEdge = "lower" | "upper";
+
+/** Where the gain, scanned from index `from` one step at a time (`dir` ±1), first reaches `level`; log-f interpolated. */
+function crossing(s: Float64Array, g: Float64Array, from: number, dir: 1 | -1, level: number): number | null {
+  for (let k = from + dir; k >= 0 && k < g.length; k += dir)
+    if (g[k] <= level) {
+      const j = k - dir;
+      const u = (level - g[j]) / (g[k] - g[j]);
+      return 10 ** (Math.log10(s[j]) + u * Math.log10(s[k] / s[j]));
+    }
+  return null;
+}
+
+/**
+ * The -3.01 dB frequency. Without `edge` the response's shape picks the reference:
+ * - it does not rise (low-pass, or a notch whose low end is the higher): reference the gain at the
+ *   lowest swept frequency, scan upward (the original low-pass reading, unchanged);
+ * - it rises (high-pass, or a notch whose high end is the higher): reference the gain at the
+ *   highest swept frequency, scan downward;
+ * - it peaks more than 3 dB above both ends (band-pass): refused, because there are two edges.
+ * With `edge` ("lower" / "upper") the reference is the sweep's maximum and the scan runs from
+ * there downward / upward: a band-pass's two edges (also a peaking low-pass's corner measured from its peak).
+ */
+export function f3db(res: SimResult, node: string, edge?: F3dbEdge): number {
   const g = gainCurve(res, node, "f3db");
   const s = res.scale;
-  const level = g[0] + HALF_POWER_DB;
-  for (let k = 1; k < g.length; k++)
-    if (g[k] <= level) {
-      const u = (level - g[k - 1]) / (g[k] - g[k - 1]);
-      return 10 ** (Math.log10(s[k - 1]) + u * Math.log10(s[k] / s[k - 1]));
-    }
-  throw new MeasureError(`f3db(): the gain of "${node}" does not fall 3 dB below its low-frequency value within the sweep (to ${s[s.length - 1]} Hz)`);
+  const n = g.length;
+  if (edge !== undefined) {
+    if (edge !== "lower" && edge !== "upper") throw new MeasureError(`f3db(res, node, edge): edge is "lower" or "upper", not "${edge}"`);
+    let top = 0;
+    for (let k = 1; k < n; k++) if (g[k] > g[top]) top = k;
+    const f = crossing(s, g, top, edge === "lower" ? -1 : 1, g[top] + HALF_POWER_DB);
+    if (f !== null) return f;
+    throw new MeasureError(`f3db(): the gain of "${node}" does not fall 3 dB below its maximum (${g[top].toFixed(2)} dB at ${s[top]} Hz) ${edge === "lower" ? `down to ${s[0]} Hz` : `up to ${s[n - 1]} Hz`}`);
+  }
+  let max = -Infinity;
+  for (let k = 0; k < n; k++) max = Math.max(max, g[k]);
+  if (max + HALF_POWER_DB > Math.max(g[0], g[n - 1]))
+    throw new MeasureError(`f3db(): the gain of "${node}" peaks more than 3 dB above both ends of the sweep (a band-pass): ask for an edge, f3db(res, "${node}", "lower") or "upper"`);
+  if (g[n - 1] > g[0]) {
+    const f = crossing(s, g, n - 1, -1, g[n - 1] + HALF_POWER_DB);
+    if (f !== null) return f;
+    throw new MeasureError(`f3db(): the gain of "${node}" does not fall 3 dB below its high-frequency value within the sweep (down to ${s[0]} Hz)`);
+  }
+  const f = crossing(s, g, 0, 1, g[0] + HALF_POWER_DB);
+  if (f !== null) return f;
+  throw new MeasureError(`f3db(): the gain of "${node}" does not fall 3 dB below its low-frequency value within the sweep (to ${s[n - 1]} Hz)`);
 }

@@ -3,6 +3,23 @@ import { MeasureError, vectorOf } from "./signal";
 import type { SimResult } from "../spice/types";
 
 export const MAX_PLOT_POINTS = 2000;
+// checks/script/builtins.ts marks a measured corner with the same label, so it is drawn once.
+const F3DB_LABEL = "−3 dB";
+
+/** The -3 dB points to mark: the one f3db() reads, or a band-pass's two edges; none if the sweep holds none. */
+function cornerMarks(res: SimResult, node: string): { node: string; x: number; label: string }[] {
+  let bandPass = false;
+  const tryAt = (edge?: "lower" | "upper") => {
+    try {
+      return [{ node, x: f3db(res, node, edge), label: F3DB_LABEL }];
+    } catch (e) {
+      bandPass ||= /band-pass/.test((e as Error).message);
+      return []; // no -3 dB point inside this sweep: nothing to mark
+    }
+  };
+  const one = tryAt();
+  return bandPass ? [...tryAt("lower"), ...tryAt("upper")] : one;
+}
 
 export type PlotWindow = { node: string; from: number; to: number; measure: string };
 export type Waveform = {
@@ -55,13 +72,7 @@ export function waveformFor(res: SimResult, nodes: string[], windows: PlotWindow
   }
   const gains = nodes.map((n) => gainCurve(res, n, "waveform"));
   const idx = plotIndices(res.scale.length, gains[0]);
-  const marks = nodes.flatMap((node) => {
-    try {
-      return [{ node, x: f3db(res, node), label: "−3 dB" }];
-    } catch {
-      return []; // no -3 dB point inside this sweep: nothing to mark
-    }
-  });
+  const marks = nodes.flatMap((node) => cornerMarks(res, node));
   return {
     analysis: "ac",
     x: pick(res.scale, idx),

@@ -3,7 +3,7 @@ import { simulate, SpiceError, type SimResult } from "../spice";
 import type { SimBackend } from "../engine/types";
 import { ENGINE_VERSION } from "../version";
 
-type Measure = (res: SimResult, node: string, ...args: number[]) => number;
+type Measure = (res: SimResult, node: string, ...args: (number | string)[]) => number;
 
 /** ngspice and the waveform measures, as the engine's simulator side (loaded in the sandbox child only). */
 export function simBackend(opts: { cacheDir?: string } = {}): SimBackend {

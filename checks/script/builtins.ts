@@ -19,7 +19,7 @@ export class SimHandle {
 
 export type SimHooks = {
   simulate: (analysis: Analysis) => { result: unknown; index: number };
-  measure: (name: string, result: unknown, node: string, args: number[]) => number;
+  measure: (name: string, result: unknown, node: string, args: (number | string)[]) => number;
   window: (index: number, w: { node: string; from: number; to: number; measure: string }) => void;
   mark: (index: number, m: { node: string; x: number; label: string }) => void;
 };
@@ -34,6 +34,9 @@ function inUnit(x: unknown, unit: string, what: string): number {
   }
   throw new Error(`${what} must be a quantity in ${unit}, got ${formatValue(x)}`);
 }
+
+// The same label as the plot's own -3 dB mark, so a measured corner is drawn once.
+const F3DB_LABEL = "−3 dB";
 
 // What each measure reads after (res, node) and the unit of its result.
 const MEASURES: Record<string, { args: [string, string][]; unit: string; analysis: Analysis["kind"] }> = {
@@ -87,6 +90,14 @@ export function builtins(hooks: SimHooks): Map<string, unknown> {
       if (!(res instanceof SimHandle)) throw new Error(`${call}: the first argument must be a simulation result`);
       if (res.analysis.kind !== spec.analysis) throw new Error(`${call} needs a ${spec.analysis}() result, got ${res.analysis.kind}()`);
       if (typeof node !== "string") throw new Error(`${call}: the node is a string such as "out"`);
+      if (name === "f3db") {
+        // Optional edge for a band-pass: f3db(res, node, "lower" | "upper").
+        if (rest.length > 1 || (rest.length === 1 && rest[0] !== "lower" && rest[0] !== "upper"))
+          throw new Error('f3db(res, node) or f3db(res, node, "lower" | "upper")');
+        const value = hooks.measure(name, res.result, node, rest as string[]);
+        hooks.mark(res.index, { node, x: value, label: F3DB_LABEL });
+        return math.unit(value, "Hz") as Unit;
+      }
       if (rest.length !== spec.args.length) throw new Error(`${call} takes ${spec.args.length + 2} arguments`);
       const args = spec.args.map(([a, unit], k) => inUnit(rest[k], unit, `${name}() ${a}`));
       const value = hooks.measure(name, res.result, node, args);
