@@ -2,6 +2,7 @@ import type { MathNode } from "mathjs";
 import type { BlockError } from "../block/types";
 import type { Statement } from "./analyze";
 import { ConditionJudge, type Judged } from "./condition";
+import { isComplexValue, math } from "./math";
 
 export type CheckOutcome = {
   label: string;
@@ -23,8 +24,10 @@ export type ScriptRun = {
 
 function message(e: unknown): string {
   if (e instanceof RangeError && /call stack/i.test(e.message)) return `the script recursed too deep (${e.message})`;
-  const m = e instanceof Error ? e.message : String(e);
-  return m.replace(/^Error: /, "");
+  const m = (e instanceof Error ? e.message : String(e)).replace(/^Error: /, "");
+  // mathjs's own words when a complex value meets a function or comparison made for reals.
+  if (!/became complex/.test(m) && /complex/i.test(m)) return `the value became complex (${m})`;
+  return m;
 }
 
 /**
@@ -33,7 +36,8 @@ function message(e: unknown): string {
  */
 export function runScript(statements: Statement[], scope: Map<string, unknown>, simulate: boolean, text = true): ScriptRun {
   const run: ScriptRun = { scope, checks: [], errors: [], assigned: [] };
-  const failed = new Map<string, number>();
+  // Names whose statement failed: where, and why (a corner run keeps no error list of its own).
+  const failed = new Map<string, { line: number; why: string }>();
   for (const st of statements) {
     const broken = [...st.deps].find((d) => failed.has(d));
     if (st.kind === "check") {
@@ -53,7 +57,7 @@ export function runScript(statements: Statement[], scope: Map<string, unknown>, 
         continue;
       }
       if (broken) {
-        run.checks.push({ ...base, status: "error", detail: `${broken} (line ${failed.get(broken)}) could not be evaluated`, margin: -Infinity });
+        run.checks.push({ ...base, status: "error", detail: `${broken} (line ${failed.get(broken)!.line}) could not be evaluated: ${failed.get(broken)!.why}`, margin: -Infinity });
         continue;
       }
       try {
@@ -70,13 +74,17 @@ export function runScript(statements: Statement[], scope: Map<string, unknown>, 
       continue;
     }
     try {
-      st.evaluate(scope);
+      const value = st.evaluate(scope);
+      // A complex value the guarded functions let through. Complex on purpose (the script builds
+      // one with complex(), or from a complex variable) is left alone.
+      if (st.kind !== "function" && isComplexValue(value) && !/\bcomplex\s*\(/.test(st.source) && ![...st.deps].some((d) => isComplexValue(scope.get(d))))
+        throw new Error(`the value became complex: ${st.name ? `${st.name} = ` : ""}${math.format(value as never, { precision: 4 })}, where a real number or quantity was expected`);
       if (st.kind === "assign" && st.name) run.assigned.push({ name: st.name, simulated: st.simulated });
     } catch (e) {
       // A refused netlist points at its own line in the block file rather than the script's.
       const at = (e as { blockLine?: number }).blockLine;
       run.errors.push({ message: message(e), line: at ?? st.line });
-      if (st.name) failed.set(st.name, st.line);
+      if (st.name) failed.set(st.name, { line: st.line, why: message(e) });
     }
   }
   return run;
