@@ -65,4 +65,20 @@ describe("demo library", () => {
       expect(report.simulations.length, file).toBeGreaterThan(0);
     }, 120_000);
   }
+
+  // A fork of the Wien bridge that breaks the design must fail clearly, not stop with an error:
+  // below a loop gain of one there is no oscillation (Barkhausen criterion, Sedra & Smith,
+  // Microelectronic Circuits, 7th ed., op amp–RC oscillators, from memory); with A_on >= 3 the
+  // diodes cannot settle the amplitude (the block's own hand analysis).
+  for (const params of [{ Rf2: "1 kohm" }, { Rf1: "10 kohm" }, { Rg: "5 kohm" }]) {
+    it(`wien-bridge-sine-1k with ${JSON.stringify(params)} is failing, every check evaluated`, async () => {
+      const text = readFileSync(path.join(DIR, "wien-bridge-sine-1k.md"), "utf8");
+      const { report } = await verifyBlock(text, { simulate: true, cacheDir, timeoutMs: 60_000, params });
+      expect(report.errors).toEqual([]);
+      expect(report.status).toBe("failing");
+      expect(report.checks.filter((c) => c.status === "error")).toEqual([]);
+      const gainCheck = Object.keys(params)[0] === "Rg" ? "gain with diodes on below 3 at every corner" : "small-signal loop gain above 1 at every corner";
+      expect(report.checks.find((c) => c.label === gainCheck)?.status).toBe("fail");
+    }, 120_000);
+  }
 });
