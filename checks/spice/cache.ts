@@ -8,18 +8,35 @@ export function cacheKey(deck: string, ngspice: string, engine: string): string 
   return createHash("sha256").update(`${deck}\0${ngspice}\0${engine}`).digest("hex");
 }
 
+export const DEFAULT_CACHE_MB = 512;
+
+/** The cache's size bound in bytes: ASSAY_SIM_CACHE_MB (megabytes), else 512 MB. */
+export function cacheLimitBytes(): number {
+  const mb = Number(process.env.ASSAY_SIM_CACHE_MB);
+  return (Number.isFinite(mb) && mb > 0 ? mb : DEFAULT_CACHE_MB) * 1024 * 1024;
+}
+
 const fileFor = (dir: string, key: string) => path.join(dir, key.slice(0, 2), `${key}.raw`);
 
+/** A hit also touches the file: its mtime is the last use, which the pruning below goes by. */
 export function readCached(dir: string, key: string): Buffer | null {
+  const file = fileFor(dir, key);
   try {
-    return fs.readFileSync(fileFor(dir, key));
+    const raw = fs.readFileSync(file);
+    try {
+      const now = new Date();
+      fs.utimesSync(file, now, now);
+    } catch {
+      // Pruned or read-only meanwhile: the bytes are already read.
+    }
+    return raw;
   } catch {
     return null;
   }
 }
 
-/** Write through a temp name and rename, so a concurrent reader never sees half a file. */
-export function writeCached(dir: string, key: string, raw: Buffer): void {
+/** Write through a temp name and rename, so a concurrent reader never sees half a file; then keep the size bound. */
+export function writeCached(dir: string, key: string, raw: Buffer, maxBytes = cacheLimitBytes()): void {
   const file = fileFor(dir, key);
   try {
     fs.mkdirSync(path.dirname(file), { recursive: true });
@@ -27,6 +44,67 @@ export function writeCached(dir: string, key: string, raw: Buffer): void {
     fs.writeFileSync(tmp, raw);
     fs.renameSync(tmp, file);
   } catch {
-    // A cache that cannot be written only costs a rerun later.
+    return; // A cache that cannot be written only costs a rerun later.
   }
+  noteWrite(dir, raw.length, maxBytes);
+}
+
+// Each process keeps a running estimate of the cache's size and rescans the folder when the
+// estimate passes the bound or is old (other processes write too), so a write rarely walks it.
+const RESCAN_MS = 10 * 60_000;
+const estimates = new Map<string, { bytes: number; at: number }>();
+
+function noteWrite(dir: string, added: number, maxBytes: number) {
+  const e = estimates.get(dir);
+  if (e && Date.now() - e.at < RESCAN_MS) {
+    e.bytes += added;
+    if (e.bytes <= maxBytes) return;
+  }
+  estimates.set(dir, { bytes: pruneCache(dir, maxBytes), at: Date.now() });
+}
+
+/**
+ * Delete least-recently-used raw files (oldest of mtime and atime's later one) until the cache
+ * holds at most 90% of maxBytes, when it holds more than maxBytes; returns the bytes kept.
+ * The 10% headroom keeps the next few writes from pruning again at once.
+ */
+export function pruneCache(dir: string, maxBytes: number): number {
+  const files: { file: string; size: number; used: number }[] = [];
+  let shards: string[] = [];
+  try {
+    shards = fs.readdirSync(dir);
+  } catch {
+    return 0;
+  }
+  for (const shard of shards) {
+    let names: string[] = [];
+    try {
+      names = fs.readdirSync(path.join(dir, shard));
+    } catch {
+      continue; // not a folder
+    }
+    for (const name of names) {
+      if (!name.endsWith(".raw")) continue;
+      const file = path.join(dir, shard, name);
+      try {
+        const st = fs.statSync(file);
+        files.push({ file, size: st.size, used: Math.max(st.mtimeMs, st.atimeMs) });
+      } catch {
+        // removed by another process meanwhile
+      }
+    }
+  }
+  let total = files.reduce((s, f) => s + f.size, 0);
+  if (total <= maxBytes) return total;
+  files.sort((a, b) => a.used - b.used);
+  for (const f of files) {
+    if (total <= maxBytes * 0.9) break;
+    try {
+      fs.unlinkSync(f.file);
+      total -= f.size;
+    } catch {
+      // already gone
+    }
+  }
+  return total;
 }
