@@ -78,9 +78,16 @@ export function evaluateBlock(text: string, opts: EvaluateOptions = {}): { repor
   for (const s of sims) {
     if (s.analysis.kind === "op") continue;
     const w = opts.backend!.waveform(s.result, s.analysis, [...s.nodes]);
-    if (w) waveforms.push({ ...w, windows: [...w.windows, ...s.windows], marks: [...w.marks, ...s.marks] });
+    if (w) waveforms.push({ ...w, windows: union(w.windows, s.windows), marks: union(w.marks, s.marks) });
   }
   return { report, waveforms };
+}
+
+// The plot's own marks (its -3 dB point) and the script's measured ones, each drawn once.
+function union<T>(a: T[], b: T[]): T[] {
+  const out = [...a];
+  for (const x of b) pushOnce(out, x);
+  return out;
 }
 
 // The same window measured twice (peak for two checks) is drawn once.
