@@ -18,7 +18,7 @@ export function HistoryPanel({ slug, runs, reviews }: { slug: string; runs: RunV
               <li key={r.id} className="flex flex-wrap items-center gap-2">
                 <Hallmark badge={r.badge} version={r.version} id={`h-${r.id}`} />
                 <span className="font-mono text-xs">{duration(r.durationMs)}</span>
-                <span className="text-xs text-graphite">{r.trigger} · {when(r.createdAt)}</span>
+                <span className="text-xs text-graphite">{r.trigger.replace(/-/g, " ")} · {when(r.createdAt)}</span>
               </li>
             ))}
           </ul>

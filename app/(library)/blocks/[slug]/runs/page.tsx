@@ -29,7 +29,7 @@ export default async function RunsPage({ params }: { params: Promise<{ slug: str
                 <tr key={r.id} className="border-b border-rule/60 last:border-0">
                   <td className="px-3 py-2"><Link className="font-mono text-copper-dark underline" href={`/blocks/${slug}/versions/${r.version}`}>v{r.version}</Link></td>
                   <td className="px-3 py-2"><Hallmark badge={r.badge} version={r.version} id={`run-${r.id}`} /> <span className="ml-1 text-xs text-graphite">{r.status}{r.attempts > 1 ? ` · ${r.attempts} attempts` : ""}</span>{r.error ? <p className="text-xs text-plum">{r.error}</p> : null}</td>
-                  <td className="px-3 py-2">{r.trigger}</td>
+                  <td className="px-3 py-2">{r.trigger.replace(/-/g, " ")}</td>
                   <td className="whitespace-nowrap px-3 py-2 font-mono text-xs">{when(r.startedAt ?? r.createdAt)}</td>
                   <td className="px-3 py-2 text-right font-mono text-xs">{duration(r.durationMs)}</td>
                   <td className="hidden px-3 py-2 font-mono text-xs md:table-cell">{r.engineVersion ?? "—"} · {r.ngspiceVersion ?? "—"}</td>
