@@ -70,7 +70,7 @@ describe("demo library", () => {
   // below a loop gain of one there is no oscillation (Barkhausen criterion, Sedra & Smith,
   // Microelectronic Circuits, 7th ed., op amp–RC oscillators, from memory); with A_on >= 3 the
   // diodes cannot settle the amplitude (the block's own hand analysis).
-  for (const params of [{ Rf2: "1 kohm" }, { Rf1: "10 kohm" }, { Rg: "5 kohm" }]) {
+  for (const params of [{ Rf2: "1 kohm" }, { Rf1: "10 kohm" }, { Rg: "5 kohm" }] as Record<string, string>[]) {
     it(`wien-bridge-sine-1k with ${JSON.stringify(params)} is failing, every check evaluated`, async () => {
       const text = readFileSync(path.join(DIR, "wien-bridge-sine-1k.md"), "utf8");
       const { report } = await verifyBlock(text, { simulate: true, cacheDir, timeoutMs: 60_000, params });
