@@ -1,5 +1,7 @@
 import Link from "next/link";
 import { getCaller } from "@/lib/auth/session";
+import { sinkDir } from "@/lib/mail/mailbox";
+import { isMailboxViewer } from "@/lib/mail/mailbox-access";
 import { HeaderSearch } from "./header-search";
 import { Wordmark } from "./wordmark";
 
@@ -13,13 +15,15 @@ const NAV = [
 
 export async function SiteHeader() {
   const caller = await getCaller();
+  // The mailbox exists only while the local mail sink stands in for SMTP, and only team admins may read it.
+  const nav = sinkDir() && isMailboxViewer(caller) ? [...NAV, { href: "/mailbox", label: "Mailbox" }] : NAV;
   return (
     <header className="border-b border-rule bg-panel/80">
       <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-2 sm:px-6">
         <Link href="/" aria-label="Assay, the library" className="shrink-0"><Wordmark /></Link>
         <nav aria-label="Main" className="order-3 w-full sm:order-none sm:w-auto">
           <ul className="flex flex-wrap gap-x-4 gap-y-1 text-sm">
-            {NAV.map((n) => (
+            {nav.map((n) => (
               <li key={n.href}><Link href={n.href} className="text-graphite hover:text-copper-dark">{n.label}</Link></li>
             ))}
           </ul>
