@@ -6,8 +6,9 @@ import { useRetuneBlock } from "@/lib/queries/retune-block";
 const SERIES = ["E3", "E6", "E12", "E24", "E48", "E96", "E192"];
 
 /** Solve one parameter for a target quantity, snapped to a preferred-value series (IEC 60063). */
-export function RetuneAssistant({ slug, params, quantities, onUse }: {
+export function RetuneAssistant({ slug, params, quantities, onUse, values, head }: {
   slug: string; params: string[]; quantities: string[]; onUse: (param: string, value: string) => void;
+  values: Record<string, string>; head: { version: number; values: Record<string, string> };
 }) {
   const id = useId();
   const [param, setParam] = useState(params[0] ?? "");
@@ -16,6 +17,9 @@ export function RetuneAssistant({ slug, params, quantities, onUse }: {
   const [series, setSeries] = useState("E24");
   const retune = useRetuneBlock(slug);
   const field = "w-full rounded border border-rule bg-paper px-2 py-1 text-sm";
+  // The API solves against the head's saved file: other values on this form that differ from it are not seen.
+  const unseen = Object.keys(values).filter((k) => k !== param && head.values[k] !== undefined && head.values[k] !== values[k]);
+  const notInHead = Object.keys(values).filter((k) => head.values[k] === undefined);
   return (
     <section aria-label="Retune assistant" className="space-y-2 rounded border border-rule bg-panel p-3" data-testid="retune-assistant">
       <h2 className="text-xs font-semibold uppercase tracking-wide text-graphite">Retune assistant</h2>
@@ -40,6 +44,14 @@ export function RetuneAssistant({ slug, params, quantities, onUse }: {
           <input id={`${id}-v`} value={value} onChange={(e) => setValue(e.target.value)} placeholder="1.03 or 1 kHz" className={`${field} font-mono`} />
         </label>
       </div>
+      {unseen.length || notInHead.length ? (
+        <p className="text-xs text-brick" data-testid="retune-base-note">
+          The assistant solves with the saved values of v{head.version}, the head
+          {unseen.length ? <>, not the values here for <span className="font-mono">{unseen.join(", ")}</span></> : null}
+          {notInHead.length ? <>; v{head.version} has no <span className="font-mono">{notInHead.join(", ")}</span></> : null}.
+          Check its answer in the live preview after using it.
+        </p>
+      ) : null}
       <button type="button" disabled={!param || !quantity || !value.trim() || retune.isPending}
         onClick={() => retune.mutate({ param, target: { quantity, value: value.trim() }, series })}
         className="rounded bg-copper px-3 py-1 text-sm font-medium text-white hover:bg-copper-dark disabled:opacity-50">

@@ -8,14 +8,18 @@ import { LivePreview } from "./live-preview";
 import { ParamInput } from "./param-input";
 import { RetuneAssistant } from "./retune-assistant";
 
-export function RetuneForm({ slug, version, params, quantities, canEdit, teams, defaultTeam }: {
-  slug: string; version: number; params: ParamRow[]; quantities: string[]; canEdit: boolean; teams: string[]; defaultTeam?: string;
+/** preview: "exact" when the head's file with this version's values is this version; else the head the server computes from. */
+export function RetuneForm({ slug, version, params, baseValues, head, preview: previewBase, quantities, canEdit, teams, defaultTeam }: {
+  slug: string; version: number; params: ParamRow[]; baseValues: Record<string, string>; head: { version: number; values: Record<string, string> }; preview: "exact" | { headVersion: number };
+  quantities: string[]; canEdit: boolean; teams: string[]; defaultTeam?: string;
 }) {
   const [values, setValues] = useState<Record<string, string>>(() => Object.fromEntries(params.map((p) => [p.name, p.value])));
   const [saveAs, setSaveAs] = useState<"fork" | "version">("fork");
   const [state, action, pending] = useActionState(saveRetuneAction, {});
   const changed = useMemo(() => Object.fromEntries(Object.entries(values).filter(([k, v]) => params.find((p) => p.name === k)?.value !== v)), [values, params]);
-  const draft = useDebounced(changed, 250);
+  // The server evaluates the head's file; sending this version's values too makes an older base come out as itself.
+  const draftValues = useMemo(() => ({ ...baseValues, ...Object.fromEntries(Object.entries(changed).filter(([k]) => k in baseValues)) }), [baseValues, changed]);
+  const draft = useDebounced(draftValues, 250);
   const preview = useEvaluateBlock(slug, draft);
   const previewQuantities = Object.keys(preview.data?.quantities ?? {});
   const set = (name: string, v: string) => setValues((s) => ({ ...s, [name]: v }));
@@ -78,8 +82,16 @@ export function RetuneForm({ slug, version, params, quantities, canEdit, teams, 
         </div>
       </form>
       <div className="space-y-4">
+        {previewBase !== "exact" ? (
+          <p className="rounded border border-ochre bg-panel p-3 text-sm" data-testid="preview-base-note">
+            v{version} differs from the head (v{previewBase.headVersion}) in more than its values. The live preview
+            computes v{previewBase.headVersion}&apos;s netlist and expressions with v{version}&apos;s values; the saved fork is
+            built from v{version} and checked in full.
+          </p>
+        ) : null}
         <LivePreview query={preview} />
-        <RetuneAssistant slug={slug} params={params.map((p) => p.name)} quantities={previewQuantities.length ? previewQuantities : quantities} onUse={set} />
+        <RetuneAssistant slug={slug} params={params.map((p) => p.name)} quantities={previewQuantities.length ? previewQuantities : quantities} onUse={set}
+          values={values} head={head} />
       </div>
     </div>
   );

@@ -3,6 +3,7 @@ import { RetuneForm } from "@/components/retune/retune-form";
 import { requireUser } from "@/lib/auth/session";
 import { getBlock } from "@/lib/blocks/read";
 import { orNotFound } from "../../../or-not-found";
+import { sameFileUpToValues } from "./base-match";
 
 export const metadata: Metadata = { title: "Fork and retune" };
 export const dynamic = "force-dynamic";
@@ -16,6 +17,12 @@ export default async function ForkPage({ params, searchParams }: {
   const block = await orNotFound(getBlock(caller, slug, from));
   const role = caller.memberships.find((m) => m.teamSlug === block.team)?.role;
   const canEdit = (role === "author" || role === "maintainer" || role === "admin") && block.version === block.headVersion;
+  const values = Object.fromEntries(block.params.map((p) => [p.name, p.value]));
+  const head = block.version === block.headVersion ? block : await orNotFound(getBlock(caller, slug));
+  const headNames = new Set(head.params.map((p) => p.name));
+  // Values the head's file knows; the preview sends all of them so an older version's values are what it computes.
+  const baseValues = Object.fromEntries(Object.entries(values).filter(([k]) => headNames.has(k)));
+  const exactPreview = head === block || sameFileUpToValues(head.text, block.text, values, { slug: block.slug, title: block.title });
   const teams = caller.memberships.filter((m) => m.role !== "viewer").map((m) => m.teamSlug);
   return (
     <div className="space-y-4">
@@ -31,6 +38,9 @@ export default async function ForkPage({ params, searchParams }: {
         version={block.version}
         params={block.params}
         quantities={Object.keys((block.report as { quantities?: Record<string, unknown> } | null)?.quantities ?? {})}
+        baseValues={baseValues}
+        head={{ version: head.version, values: Object.fromEntries(head.params.map((p) => [p.name, p.value])) }}
+        preview={exactPreview ? "exact" : { headVersion: head.version }}
         canEdit={canEdit}
         teams={teams}
         defaultTeam={teams.includes(block.team) ? block.team : teams[0]}
