@@ -7,11 +7,13 @@ import { HazardCaution } from "@/components/hazard-caution";
 import { NoteView } from "@/components/note-view";
 import { ParamTable } from "@/components/param-table";
 import { QuantityList } from "@/components/quantity-list";
+import { listAttachments } from "@/lib/attachments/attachments";
 import type { Caller } from "@/lib/auth/caller";
 import { getBlock, getLineage, listVersions } from "@/lib/blocks/read";
 import { reviewsOf } from "@/lib/reviews/reviews";
 import { getWaveforms, listRuns } from "@/lib/runs/runs";
 import { isWatching } from "@/lib/watches/watches";
+import { AttachmentsPanel } from "./attachments-panel";
 import { BlockActions } from "./block-actions";
 import { HistoryPanel } from "./history-panel";
 import { LineagePanel } from "./lineage-panel";
@@ -25,13 +27,14 @@ const emptyReport: Report = { slug: "", status: "unchecked", quantities: {}, che
 /** One version of a block: the note in the reading column, what was proven beside it. */
 export async function BlockView({ caller, slug, version }: { caller: Caller; slug: string; version?: number }) {
   const block = await getBlock(caller, slug, version);
-  const [versions, lineage, watching, waveforms, runs, reviews] = await Promise.all([
+  const [versions, lineage, watching, waveforms, runs, reviews, attachments] = await Promise.all([
     listVersions(caller, slug),
     getLineage(caller, slug),
     caller.user ? isWatching(caller, slug) : Promise.resolve(false),
     block.runId && block.runStatus === "done" ? (getWaveforms(caller, block.runId) as Promise<Waveform[]>) : Promise.resolve([] as Waveform[]),
     listRuns(caller, slug, 6),
     reviewsOf(caller, slug),
+    listAttachments(caller, slug),
   ]);
   const report = (block.report as Report | null) ?? emptyReport;
   const role = caller.memberships.find((m) => m.teamSlug === block.team)?.role ?? null;
@@ -90,6 +93,8 @@ export async function BlockView({ caller, slug, version }: { caller: Caller; slu
             {block.report ? <CheckList checks={report.checks} /> : <p className="text-sm text-graphite">No finished run for this version yet.</p>}
           </Panel>
           <Panel title="Quantities"><QuantityList quantities={report.quantities} /></Panel>
+          <AttachmentsPanel slug={slug} attachments={attachments}
+            canAttach={!block.archived && (role === "author" || role === "maintainer" || role === "admin")} />
           <Panel title="Lineage"><LineagePanel lineage={lineage} /></Panel>
           <HistoryPanel slug={slug} runs={runs} reviews={reviews.slice(0, 6)} />
           <ApiPanel slug={slug} version={block.version} isHead={isHead} visibility={block.visibility} />

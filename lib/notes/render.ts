@@ -35,12 +35,13 @@ function walk(node: Root | Element, fn: (el: Element, parent: Root | Element, i:
   });
 }
 
-/** A bare file name in an image (`![](divider.png)`) points at the block's attachment of that name. */
+/** A bare file name in an image (`![](divider.png)`, or `attachments/divider.png`) points at the block's attachment of that name. */
 function rehypeAttachmentImages(slug: string) {
   return () => (tree: Root) =>
     walk(tree, (el) => {
       const src = el.tagName === "img" ? String(el.properties?.src ?? "") : "";
-      if (src && /^[A-Za-z0-9._-]+$/.test(src)) el.properties.src = attachmentUrl(slug, src);
+      const name = /^(?:attachments\/)?([A-Za-z0-9._-]+)$/.exec(src)?.[1];
+      if (name) el.properties.src = attachmentUrl(slug, name);
     });
 }
 
