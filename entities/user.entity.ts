@@ -5,6 +5,8 @@ export interface User {
   email: string;
   name: string;
   passwordHash: string | null;
+  /** Session cookies that signed in before this moment are refused (set by a password change). */
+  sessionsValidFrom: Date | null;
   createdAt: Opt<Date>;
 }
 
@@ -16,6 +18,7 @@ export const UserSchema = new EntitySchema<User>({
     email: { type: "string", length: 320, unique: true },
     name: { type: "string", length: 200 },
     passwordHash: { type: "string", nullable: true },
+    sessionsValidFrom: { type: "Date", nullable: true },
     createdAt: { type: "Date", onCreate: () => new Date() },
   },
 });
