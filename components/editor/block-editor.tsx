@@ -55,7 +55,7 @@ export function BlockEditor({ slug, baseVersion, initialText }: { slug: string; 
         {state.message ? <p role={state.ok === false ? "alert" : undefined} className={state.ok === false ? "text-brick" : "text-verdigris"}>{state.message}</p> : null}
         {state.head ? (
           <p className="mt-1">
-            <Link className="text-copper-dark underline" href={`/blocks/${slug}`}>Read v{state.head}</Link> ·{" "}
+            <Link className="text-copper-dark underline" href={`/blocks/${slug}/versions/${state.head}`}>Read v{state.head}</Link> ·{" "}
             <Link className="text-copper-dark underline" href={`/blocks/${slug}/compare?a=${baseVersion}&b=${state.head}`}>compare v{baseVersion} with v{state.head}</Link>
           </p>
         ) : null}

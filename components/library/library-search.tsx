@@ -1,6 +1,6 @@
 "use client";
 import { usePathname, useRouter } from "next/navigation";
-import { useEffect, useState } from "react";
+import { useEffect, useRef, useState, type KeyboardEvent } from "react";
 import { BlockTable } from "@/components/block-table";
 import { EmptyState } from "@/components/empty-state";
 import { useSearchBlocks, type SearchAnswer, type SearchFilters } from "@/lib/queries/search-blocks";
@@ -29,6 +29,25 @@ export function LibrarySearch({ initial, initialFilters }: { initial: SearchAnsw
     router.replace(qs ? `${pathname}?${qs}` : pathname, { scroll: false });
   }, [qs, pathname, router]);
 
+  // Arrow keys walk from the box down the result titles and back, so a search is opened without a mouse.
+  const results = useRef<HTMLDivElement>(null);
+  const resultLinks = () => [...(results.current?.querySelectorAll<HTMLAnchorElement>("tbody a[href^='/blocks/']") ?? [])];
+  const fromBox = (e: KeyboardEvent) => {
+    if (e.key !== "ArrowDown") return;
+    const first = resultLinks()[0];
+    if (first) { e.preventDefault(); first.focus(); }
+  };
+  const inResults = (e: KeyboardEvent) => {
+    if (e.key !== "ArrowDown" && e.key !== "ArrowUp") return;
+    const links = resultLinks();
+    const at = links.indexOf(document.activeElement as HTMLAnchorElement);
+    if (at < 0) return;
+    e.preventDefault();
+    const next = at + (e.key === "ArrowDown" ? 1 : -1);
+    if (next < 0) document.getElementById("library-q")?.focus();
+    else links[Math.min(next, links.length - 1)].focus();
+  };
+
   const set = (key: keyof SearchFilters) => (v: string | undefined) => setFilters((f) => ({ ...f, [key]: v }));
 
   return (
@@ -36,8 +55,8 @@ export function LibrarySearch({ initial, initialFilters }: { initial: SearchAnsw
       <div className="md:col-span-2">
         <label htmlFor="library-q" className="mb-1 block text-sm font-medium">Search blocks</label>
         <div className="flex flex-wrap gap-2">
-          <input id="library-q" type="search" value={q} onChange={(e) => setQ(e.target.value)} autoComplete="off"
-            placeholder="limiter, Wien bridge, 1 kHz low-pass…" aria-describedby="library-count"
+          <input id="library-q" type="search" value={q} onChange={(e) => setQ(e.target.value)} onKeyDown={fromBox} autoComplete="off"
+            placeholder="limiter, Wien bridge, 1 kHz low-pass…" aria-describedby="library-count library-keys"
             className="min-w-0 flex-1 rounded border border-rule bg-panel px-3 py-2 text-base shadow-sm" />
           <label htmlFor="library-sort" className="sr-only">Sort</label>
           <select id="library-sort" value={filters.sort ?? ""} onChange={(e) => set("sort")(e.target.value || undefined)}
@@ -47,6 +66,7 @@ export function LibrarySearch({ initial, initialFilters }: { initial: SearchAnsw
             <option value="title">Title</option>
           </select>
         </div>
+        <p id="library-keys" className="sr-only">Press the down arrow to move to the results.</p>
         <p id="library-count" className="mt-1 text-xs text-graphite" aria-live="polite">
           {query.isError ? `Search failed: ${query.error.message}` : data ? `${data.estimatedTotal} block${data.estimatedTotal === 1 ? "" : "s"}` : "Searching…"}
           {query.isFetching ? " · updating" : ""}
@@ -57,7 +77,7 @@ export function LibrarySearch({ initial, initialFilters }: { initial: SearchAnsw
           <FacetGroup key={facet} name={facet} counts={data?.facets?.[facet] ?? {}} value={filters[key]} onChange={set(key)} />
         ))}
       </aside>
-      <div className={query.isPlaceholderData ? "opacity-70 transition-opacity" : ""}>
+      <div ref={results} onKeyDown={inResults} className={query.isPlaceholderData ? "opacity-70 transition-opacity" : ""}>
         {data && data.items.length > 0 ? (
           <BlockTable rows={data.items} caption="Search results" />
         ) : data ? (

@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import type { Page } from "playwright-core";
 import { BlockPage } from "./pages/block-page";
+import { EditPage } from "./pages/edit-page";
 import { ImportPage } from "./pages/import-page";
 import { LibraryPage } from "./pages/library-page";
 import { RetunePage } from "./pages/retune-page";
@@ -124,6 +125,56 @@ describe("the library in a browser", () => {
     await shown.waitFor({ timeout: 30_000 });
     await expect(shown.textContent()).resolves.toMatch(/line 4/);
     await settle(page, "13-edit-line-errors", errors);
+  });
+
+  it("refuses the second of two edits from the same base and links to the newer version", async () => {
+    const first = new EditPage(page);
+    await first.open(FORK);
+    const base = Number((await page.getByRole("button", { name: /^Save as v\d+$/ }).textContent())!.replace(/\D/g, "")) - 1;
+    const otherTab = await page.context().newPage();
+    const otherErrors = watchErrors(otherTab);
+    const second = new EditPage(otherTab);
+    await second.open(FORK);
+    await first.changeSummary("A soft limiter, summary edited in the first tab.");
+    await second.changeSummary("A soft limiter, summary edited in the second tab.");
+    await first.save();
+    await page.waitForURL(`**/blocks/${FORK}`);
+    await second.save();
+    const status = second.status();
+    await status.getByRole("alert").waitFor({ timeout: 30_000 });
+    await expect(status.textContent()).resolves.toContain(`saved v${base + 1} while you were editing v${base}`);
+    const newer = status.getByRole("link", { name: `Read v${base + 1}` });
+    await expect(newer.getAttribute("href")).resolves.toBe(`/blocks/${FORK}/versions/${base + 1}`);
+    // The refused text stays in the editor, nothing lost.
+    await expect(otherTab.getByLabel("Block file").inputValue()).resolves.toContain("edited in the second tab");
+    await settle(otherTab, "13b-edit-stale-base", otherErrors);
+    await newer.click();
+    await otherTab.waitForURL(`**/blocks/${FORK}/versions/${base + 1}`);
+    await otherTab.getByText("summary edited in the first tab", { exact: false }).first().waitFor({ timeout: 30_000 });
+    await otherTab.close();
+  });
+
+  it("searches and opens a block with the keyboard alone", async () => {
+    await new BlockPage(page).open("mains-bias-rail-5v1");
+    await page.locator("body").focus();
+    const box = page.locator("#header-q");
+    for (let i = 0; i < 20 && !(await box.evaluate((el) => el === document.activeElement)); i++) await page.keyboard.press("Tab");
+    await expect(box.evaluate((el) => el === document.activeElement)).resolves.toBe(true);
+    await page.keyboard.type("wien");
+    await page.keyboard.press("Enter");
+    await page.waitForURL("**/?q=wien");
+    const library = page.locator("#library-q");
+    for (let i = 0; i < 20 && !(await library.evaluate((el) => el === document.activeElement)); i++) await page.keyboard.press("Tab");
+    await expect(library.inputValue()).resolves.toBe("wien");
+    const result = new LibraryPage(page).resultLink(/Wien/).first();
+    await result.waitFor({ timeout: 30_000 });
+    await page.keyboard.press("ArrowDown");
+    await expect(result.evaluate((el) => el === document.activeElement)).resolves.toBe(true);
+    const href = await result.getAttribute("href");
+    await settle(page, "13c-keyboard-search", errors);
+    await page.keyboard.press("Enter");
+    await page.waitForURL(`**${href}`);
+    await page.getByRole("heading", { level: 1, name: /Wien/ }).waitFor();
   });
 
   it("imports a SPICE netlist, listing the dropped lines", async () => {
