@@ -1,4 +1,5 @@
 import type { Report } from "@/checks";
+import { typesetUnits } from "./eng";
 
 type Check = Report["checks"][number];
 
@@ -9,7 +10,7 @@ const VERDICT: Record<Check["status"], { word: string; mark: string; tone: strin
   skipped: { word: "waits for a simulation", mark: "…", tone: "text-slate" },
 };
 
-const corner = (c: Record<string, string>) => Object.entries(c).map(([k, v]) => `${k} ${v}`).join(", ");
+const corner = (c: Record<string, string>) => Object.entries(c).map(([k, v]) => `${k} ${typesetUnits(v)}`).join(", ");
 
 /** Each check as a sentence: its label and verdict, the comparison with its numbers, the worst corner beneath. */
 export function CheckList({ checks, lines }: { checks: Check[]; lines?: boolean }) {
@@ -27,10 +28,10 @@ export function CheckList({ checks, lines }: { checks: Check[]; lines?: boolean 
               {c.simulated ? <span className="ml-1 text-xs text-graphite">(simulated)</span> : null}
               {lines && c.line ? <span className="ml-1 text-xs text-graphite">line {c.line}</span> : null}
             </p>
-            {c.detail ? <p className="mt-0.5 break-words font-mono text-xs text-graphite">{c.detail}</p> : null}
+            {c.detail ? <p className="mt-0.5 break-words font-mono text-xs text-graphite">{typesetUnits(c.detail)}</p> : null}
             {c.worst ? (
               <p className="mt-0.5 break-words text-xs text-graphite">
-                worst corner {corner(c.worst.corner)}: <span className="font-mono">{c.worst.detail}</span>
+                worst corner {corner(c.worst.corner)}: <span className="font-mono">{typesetUnits(c.worst.detail)}</span>
               </p>
             ) : null}
           </li>

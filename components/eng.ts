@@ -18,6 +18,16 @@ export function eng(value: number, unit = "", digits = 3): string {
 
 const trim = (s: string) => (s.includes("e") ? s : s.includes(".") ? s.replace(/0+$/, "").replace(/\.$/, "") : s);
 
+/**
+ * The engine writes values so mathjs can read them back (`98.73 kohm`, `4.7 uF`); on screen they are typeset
+ * (`98.73 kΩ`, `4.7 µF`). Only a unit right after a number changes, so expressions and names stay as written.
+ */
+export function typesetUnits(text: string): string {
+  return text
+    .replace(/(\d\s?)([TGMkmunpf]?)ohms?\b/g, (_m, n: string, p: string) => `${n}${p === "u" ? "µ" : p}Ω`)
+    .replace(/(\d\s?)u(?=(?:F|H|s|V|A|W|S|Hz)\b)/g, "$1µ");
+}
+
 /** Split a written value at its decimal point so a table can align a column of them. */
 export function splitDecimal(text: string): { int: string; frac: string } {
   const m = /^([-+−]?\d+)(.*)$/.exec(text.trim());

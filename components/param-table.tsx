@@ -1,8 +1,7 @@
 import { Decimal } from "./decimal";
+import { typesetUnits } from "./eng";
 
 export interface ParamRow { name: string; value: string; unit: string; tol: string | null; note: string | null }
-
-const pretty = (v: string) => v.replace(/\bkohm\b/g, "kΩ").replace(/\bMohm\b/g, "MΩ").replace(/\bohm\b/g, "Ω").replace(/\bu([A-Za-z])/g, "µ$1");
 
 export function ParamTable({ params }: { params: ParamRow[] }) {
   if (params.length === 0) return <p className="text-sm text-graphite">This block has no parameters.</p>;
@@ -17,10 +16,10 @@ export function ParamTable({ params }: { params: ParamRow[] }) {
           <tr key={p.name} className="border-t border-rule/70 align-top">
             <th scope="row" className="py-1 pr-2 text-left font-mono font-medium">{p.name}</th>
             <td className="py-1 pr-2">
-              <Decimal text={pretty(p.value)} />
+              <Decimal text={p.value} />
               {p.note ? <p className="text-xs text-graphite">{p.note}</p> : null}
             </td>
-            <td className="py-1 font-mono text-xs">{p.tol ? `± ${pretty(p.tol)}` : "—"}</td>
+            <td className="py-1 font-mono text-xs">{p.tol ? `± ${typesetUnits(p.tol)}` : "—"}</td>
           </tr>
         ))}
       </tbody>

@@ -1,5 +1,6 @@
 import type { OperationObject, ParameterObject, RequestBodyObject, ResponseObject } from "openapi3-ts/oas31";
 import { constraints, SchemaType, type AnySchema } from "./schema-type";
+import { InlineCode } from "./inline-code";
 
 function MediaList({ content }: { content: Record<string, { schema?: AnySchema }> | undefined }) {
   if (!content) return null;
@@ -24,7 +25,7 @@ export function OperationView({ method, path, op }: { method: string; path: stri
         <span className="break-all">{path}</span>
       </h3>
       <p className="mt-1 font-serif">{op.summary}</p>
-      {op.description ? <p className="mt-1 text-sm text-graphite">{op.description}</p> : null}
+      {op.description ? <p className="mt-1 text-sm text-graphite"><InlineCode text={op.description} /></p> : null}
       {anonymousOnly ? <p className="mt-1 text-xs text-graphite">No credentials needed.</p> : null}
       {params.length ? (
         <table className="mt-3 w-full text-left text-sm">
@@ -35,7 +36,7 @@ export function OperationView({ method, path, op }: { method: string; path: stri
                 <td className="py-1 pr-3 font-mono text-xs">{p.name}{p.required ? "" : "?"}</td>
                 <td className="py-1 pr-3 text-xs text-graphite">{p.in}</td>
                 <td className="py-1 pr-3 font-mono text-xs"><SchemaType schema={p.schema as AnySchema} /></td>
-                <td className="py-1 text-xs text-graphite">{[p.description, constraints(p.schema as AnySchema)].filter(Boolean).join(" · ")}</td>
+                <td className="py-1 text-xs text-graphite"><InlineCode text={[p.description, constraints(p.schema as AnySchema)].filter(Boolean).join(" · ")} /></td>
               </tr>
             ))}
           </tbody>
@@ -52,7 +53,7 @@ export function OperationView({ method, path, op }: { method: string; path: stri
         <ul className="mt-1 space-y-1">
           {Object.entries(op.responses as Record<string, ResponseObject>).map(([status, res]) => (
             <li key={status} className="text-sm">
-              <span className="font-mono font-semibold">{status}</span> {res.description}
+              <span className="font-mono font-semibold">{status}</span> <InlineCode text={res.description ?? ""} />
               <MediaList content={res.content as never} />
             </li>
           ))}

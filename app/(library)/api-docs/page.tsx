@@ -5,6 +5,7 @@ import { openApiDocument } from "@/lib/openapi/document";
 import { OperationView } from "./operation-view";
 import { SchemaView } from "./schema-view";
 import type { AnySchema } from "./schema-type";
+import { InlineCode } from "./inline-code";
 
 export const metadata: Metadata = { title: "API reference · Assay" };
 
@@ -35,7 +36,7 @@ export default function ApiDocsPage() {
       <div className="min-w-0 space-y-8">
         <header className="max-w-[70ch] space-y-2">
           <h1 className="font-serif text-2xl">{doc.info.title} <span className="font-mono text-base text-graphite">v{doc.info.version}</span></h1>
-          <p className="font-serif leading-relaxed">{doc.info.description}</p>
+          <p className="font-serif leading-relaxed"><InlineCode text={doc.info.description ?? ""} /></p>
           <p className="text-sm leading-relaxed">
             Send an API token as <code className="font-mono">Authorization: Bearer $ASSAY_TOKEN</code> (an admin makes tokens in team settings, or
             <code className="font-mono"> npm run -s token -- EMAIL --team SLUG</code>). A token is bound to one team; a read token cannot write.
@@ -49,11 +50,11 @@ export default function ApiDocsPage() {
           </p>
         </header>
         <section aria-labelledby="problems" className="max-w-[70ch]">
-          <h2 id="problems" className="font-serif text-xl">Problem types</h2>
+          <h2 id="problems" className="mb-1 font-serif text-xl">Problem types</h2>
           <p className="text-sm">Every error is <code className="font-mono">application/problem+json</code> (RFC 9457) with one of these <code className="font-mono">type</code>s:</p>
           <ul className="mt-1 font-mono text-xs">
             {[...Object.values(problemTypes), ...Object.keys(FINER_PROBLEM_TYPES)].sort().map((t) => (
-              <li key={t}>{t.replace(PROBLEM_BASE, "…/problems/")}{FINER_PROBLEM_TYPES[t] ? <span className="font-sans text-graphite"> {FINER_PROBLEM_TYPES[t]}</span> : null}</li>
+              <li key={t}>{t.replace(PROBLEM_BASE, "…/problems/")}{FINER_PROBLEM_TYPES[t] ? <span className="font-sans text-graphite"> <InlineCode text={FINER_PROBLEM_TYPES[t]} /></span> : null}</li>
             ))}
           </ul>
         </section>

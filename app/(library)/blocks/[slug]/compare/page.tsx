@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { DiffView } from "@/components/diff-view";
 import { EmptyState } from "@/components/empty-state";
+import { typesetUnits } from "@/components/eng";
 import { getCaller } from "@/lib/auth/session";
 import { compareVersions } from "@/lib/blocks/compare";
 import { listVersions } from "@/lib/blocks/read";
@@ -37,11 +38,11 @@ export default async function ComparePage({ params, searchParams }: {
         <h2 className="mb-2 font-serif text-lg font-semibold">Parameters</h2>
         {cmp.params.length ? (
           <table className="rounded border border-rule bg-panel text-sm">
-            <thead className="text-left text-xs uppercase text-graphite"><tr><th className="px-3 py-1">Name</th><th className="px-3 py-1">v{cmp.from}</th><th className="px-3 py-1">v{cmp.to}</th></tr></thead>
+            <thead className="text-left text-xs uppercase text-graphite"><tr><th className="px-3 py-1">Name</th><th className="px-3 py-1 normal-case">v{cmp.from}</th><th className="px-3 py-1 normal-case">v{cmp.to}</th></tr></thead>
             <tbody>{cmp.params.map((p) => (
               <tr key={p.name} className="border-t border-rule"><th scope="row" className="px-3 py-1 text-left font-mono">{p.name}</th>
-                <td className="px-3 py-1 font-mono text-brick line-through decoration-1">{p.from ?? "—"}</td>
-                <td className="px-3 py-1 font-mono text-verdigris">{p.to ?? "—"}</td></tr>))}
+                <td className="px-3 py-1 font-mono text-brick line-through decoration-1">{p.from ? typesetUnits(p.from) : "—"}</td>
+                <td className="px-3 py-1 font-mono text-verdigris">{p.to ? typesetUnits(p.to) : "—"}</td></tr>))}
             </tbody>
           </table>
         ) : <EmptyState title="No parameter changed." />}
