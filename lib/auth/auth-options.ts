@@ -3,6 +3,7 @@ import CredentialsProvider from "next-auth/providers/credentials";
 import { withEm } from "@/lib/db/orm";
 import { acceptInvitation } from "./invitations";
 import { clientIp } from "./rate-limit";
+import { claimsOf, sessionIsCurrent, signedInAt } from "./session-token";
 import { authorizePassword, redeemSignInLink } from "./sign-in";
 import { SESSION_MAX_AGE_S, appUrl, authSecret, useSecureCookies } from "./config";
 
@@ -46,8 +47,19 @@ export function authOptions(): NextAuthOptions {
       }),
     ],
     callbacks: {
-      jwt({ token, user }) {
-        if (user) token.sub = user.id;
+      async jwt({ token, user }) {
+        if (user) {
+          token.sub = user.id;
+          token.signedInAt = Date.now();
+          return token;
+        }
+        // Every later read of the cookie (next-auth's /session refreshes it): a sign-in from before the person's
+        // last password change is over. The throw makes next-auth clear the cookie and answer "no session".
+        token.signedInAt = signedInAt(token);
+        const claims = claimsOf(token);
+        if (!claims || !(await withEm((em) => sessionIsCurrent(em, claims)))) {
+          throw new Error("session ended: signed in before the last password change");
+        }
         return token;
       },
       session({ session, token }) {

@@ -1,6 +1,7 @@
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { MembershipSchema, UserSchema, type TokenScope } from "@/entities";
 import { anonymous, type Caller } from "./caller";
+import { stillValid, type SessionClaims } from "./session-token";
 
 export interface TokenBinding {
   id: number;
@@ -26,4 +27,11 @@ export async function loadCaller(em: EntityManager, userId: number, token?: Toke
     memberships: rows.map((m) => ({ teamId: m.team.id, teamSlug: m.team.slug, role: m.role })),
     token: token ? { id: token.id, teamId: token.teamId, scope: token.scope } : null,
   };
+}
+
+/** The caller behind a session cookie: anonymous when the person has changed their password since it signed in. */
+export async function loadSessionCaller(em: EntityManager, claims: SessionClaims): Promise<Caller> {
+  const user = await em.findOne(UserSchema, { id: claims.userId });
+  if (!user || !stillValid(user.sessionsValidFrom, claims.signedInAt)) return anonymous;
+  return loadCaller(em, claims.userId); // the user is in the identity map now: no second query
 }

@@ -16,11 +16,16 @@ export async function updateName(em: EntityManager, caller: Caller, name: string
   await em.nativeUpdate(UserSchema, { id: me.id }, { name: name.trim() });
 }
 
-export async function changePassword(em: EntityManager, caller: Caller, current: string, next: string): Promise<void> {
+/**
+ * Sets a new password and ends every session that signed in before now, in one update. Returns that moment:
+ * the browser that made the change signs in again at it (restartSession) and stays signed in.
+ */
+export async function changePassword(em: EntityManager, caller: Caller, current: string, next: string, now = new Date()): Promise<Date> {
   const me = signedIn(caller);
   const user = await em.findOneOrFail(UserSchema, { id: me.id });
   if (user.passwordHash && !(await verifyPassword(current, user.passwordHash))) {
     throw new AppError("validation", "The current password is not right.");
   }
-  await em.nativeUpdate(UserSchema, { id: me.id }, { passwordHash: await hashPassword(next) });
+  await em.nativeUpdate(UserSchema, { id: me.id }, { passwordHash: await hashPassword(next), sessionsValidFrom: now });
+  return now;
 }

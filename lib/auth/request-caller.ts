@@ -3,7 +3,8 @@ import { withEm } from "@/lib/db/orm";
 import { AppError } from "@/lib/errors";
 import { findTokenCaller } from "@/lib/tokens/tokens";
 import { anonymous, type Caller } from "./caller";
-import { loadCaller } from "./load-caller";
+import { loadSessionCaller } from "./load-caller";
+import { claimsOf, type SessionClaims } from "./session-token";
 import { authSecret, sessionCookieName, useSecureCookies } from "./config";
 
 /** Cookie header → { name: value }; values stay as sent (next-auth's JWT is base64url, nothing to unescape). */
@@ -18,8 +19,11 @@ export function parseCookies(header: string | null | undefined): Record<string, 
   return out;
 }
 
-/** The user id in a next-auth session cookie, or null when there is none or it does not decode with our secret. */
-export async function sessionUserId(cookieHeader: string | null | undefined): Promise<number | null> {
+/**
+ * The user id and sign-in time in a next-auth session cookie, or null when there is none or it does not decode
+ * with our secret. Whether that sign-in still counts is the database's answer (loadSessionCaller).
+ */
+export async function sessionClaims(cookieHeader: string | null | undefined): Promise<SessionClaims | null> {
   const cookies = parseCookies(cookieHeader);
   const name = sessionCookieName();
   if (!Object.keys(cookies).some((k) => k.startsWith(name))) return null;
@@ -29,8 +33,7 @@ export async function sessionUserId(cookieHeader: string | null | undefined): Pr
     secureCookie: useSecureCookies(),
     cookieName: name,
   });
-  const id = Number(jwt?.sub);
-  return Number.isInteger(id) && id > 0 ? id : null;
+  return claimsOf(jwt);
 }
 
 /**
@@ -49,7 +52,7 @@ export async function callerFromRequest(req: Request): Promise<Caller> {
 }
 
 export async function callerFromCookieHeader(cookieHeader: string | null | undefined): Promise<Caller> {
-  const userId = await sessionUserId(cookieHeader);
-  if (userId === null) return anonymous;
-  return withEm((em) => loadCaller(em, userId));
+  const claims = await sessionClaims(cookieHeader);
+  if (claims === null) return anonymous;
+  return withEm((em) => loadSessionCaller(em, claims));
 }

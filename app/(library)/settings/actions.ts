@@ -1,7 +1,7 @@
 "use server";
 import { revalidatePath } from "next/cache";
 import { changePassword, updateName } from "@/lib/auth/profile";
-import { getCaller } from "@/lib/auth/session";
+import { getCaller, restartSession } from "@/lib/auth/session";
 import { withEm } from "@/lib/db/orm";
 import { firstIssue, passwordChange, profileName } from "@/lib/validation/accounts";
 import { failure, type FormState } from "../form-state";
@@ -24,9 +24,11 @@ export async function changePasswordAction(_prev: FormState, form: FormData): Pr
   if (!parsed.success) return { ok: false, message: firstIssue(parsed.error) };
   const caller = await getCaller();
   try {
-    await withEm((em) => changePassword(em, caller, parsed.data.current, parsed.data.next));
+    const at = await withEm((em) => changePassword(em, caller, parsed.data.current, parsed.data.next));
+    // The change ended every session signed in before it, this browser's too: sign it in again here.
+    await restartSession(caller.user!, at);
   } catch (err) {
     return failure(err);
   }
-  return { ok: true, message: "Password changed." };
+  return { ok: true, message: "Password changed. Other browsers and devices are signed out." };
 }

@@ -40,6 +40,7 @@ export function PasswordForm({ hasPassword }: { hasPassword: boolean }) {
         New password again
         <input name="repeat" type="password" required minLength={10} autoComplete="new-password" className={input} />
       </label>
+      <p className="text-sm text-graphite">Changing it signs you out in every other browser and device; this one stays signed in.</p>
       <button type="submit" disabled={pending} className={button}>Change password</button>
       <p aria-live="polite" className={msg(state.ok)}>{state.message}</p>
     </form>
