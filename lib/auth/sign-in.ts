@@ -5,7 +5,7 @@ import { sendMail } from "@/lib/mail/mailer";
 import { signInLinkMessage } from "@/lib/mail/messages";
 import { randomSecret, sha256Hex } from "@/lib/tokens/secret";
 import { hashPassword, verifyPassword } from "./passwords";
-import { clientIp, consume, forgive } from "./rate-limit";
+import { clientIp, consume, forgive, network } from "./rate-limit";
 
 export const LINK_MINUTES = 15;
 
@@ -21,9 +21,10 @@ export const normaliseEmail = (email: string): string => email.trim().toLowerCas
 let decoyHash: Promise<string> | undefined;
 
 /** E-mail + password; the same refusal for an unknown address and a wrong password. */
-export async function authorizePassword(em: EntityManager, email: string, password: string, ip: string): Promise<SignedIn> {
+/** `ip` is the client's IP when a trusted proxy names it (clientIp), else null: then the route's shared bucket counts. */
+export async function authorizePassword(em: EntityManager, email: string, password: string, ip: string | null): Promise<SignedIn> {
   const address = normaliseEmail(email);
-  await consume([["sign-in:address", address], ["sign-in:ip", ip]]);
+  await consume([["sign-in:address", address], network("sign-in", ip)]);
   const user = await em.findOne(UserSchema, { email: address });
   decoyHash ??= hashPassword(randomSecret(16));
   const ok = await verifyPassword(password, user?.passwordHash ?? (await decoyHash));
@@ -36,9 +37,9 @@ export async function authorizePassword(em: EntityManager, email: string, passwo
  * Mails a one-time sign-in link when the address belongs to someone; says nothing either way,
  * so the form cannot be used to find out who has an account.
  */
-export async function requestSignInLink(em: EntityManager, email: string, ip: string, now = new Date()): Promise<void> {
+export async function requestSignInLink(em: EntityManager, email: string, ip: string | null, now = new Date()): Promise<void> {
   const address = normaliseEmail(email);
-  await consume([["link:address", address], ["link:ip", ip]]);
+  await consume([["link:address", address], network("link", ip)]);
   const user = await em.findOne(UserSchema, { email: address });
   if (!user) return;
   const token = randomSecret(32);
@@ -54,8 +55,8 @@ export async function requestSignInLink(em: EntityManager, email: string, ip: st
 }
 
 /** Redeems a link once: the conditional update is the single-use guarantee even when two tabs race. */
-export async function redeemSignInLink(em: EntityManager, token: string, ip: string, now = new Date()): Promise<SignedIn> {
-  await consume([["sign-in:ip", ip]]);
+export async function redeemSignInLink(em: EntityManager, token: string, ip: string | null, now = new Date()): Promise<SignedIn> {
+  await consume([network("sign-in", ip)]);
   const refused = new AppError("unauthenticated", "This sign-in link is not valid any more. Ask for a new one.");
   if (!/^[A-Za-z0-9_-]{20,100}$/.test(token)) throw refused;
   const hash = sha256Hex(token);

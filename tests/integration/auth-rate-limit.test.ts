@@ -35,4 +35,15 @@ describe("sign-in rate limits", () => {
     await expect(requestSignInLink(await getEm(), email, "10.3.2.9")).rejects.toMatchObject({ code: "rate_limited" });
     expect(mailsTo(email)).toHaveLength(3);
   });
+
+  it("counts link requests without a client IP to believe in one bucket for everybody", async () => {
+    // clientIp gives null unless ASSAY_TRUSTED_PROXY=1: fifty requests a quarter hour, whichever addresses they name.
+    for (let i = 0; i < 50; i++) await requestSignInLink(await getEm(), `nobody-${i}-${Date.now()}@fenwick.test`, null);
+    const { people } = await makeTeam(["viewer"]);
+    await expect(requestSignInLink(await getEm(), people[0].email, null)).rejects.toThrow(/Too many sign-in attempts just now/);
+    expect(mailsTo(people[0].email)).toHaveLength(0);
+    // A request from a known client IP is counted on its own.
+    await requestSignInLink(await getEm(), people[0].email, "10.3.3.1");
+    expect(mailsTo(people[0].email)).toHaveLength(1);
+  });
 });

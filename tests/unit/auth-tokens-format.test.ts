@@ -34,11 +34,22 @@ describe("cookie header parsing", () => {
 });
 
 describe("client address for per-IP limits", () => {
-  it("takes the hop the nearest proxy appended, then x-real-ip", async () => {
+  it("believes x-forwarded-for only behind a trusted proxy, and then the hop that proxy appended", async () => {
     const { clientIp } = await import("@/lib/auth/rate-limit");
-    expect(clientIp({ "x-forwarded-for": "203.0.113.9, 10.0.0.5" })).toBe("10.0.0.5");
-    expect(clientIp(new Headers({ "x-forwarded-for": "127.0.0.1" }))).toBe("127.0.0.1");
-    expect(clientIp({ "x-real-ip": "192.0.2.1" })).toBe("192.0.2.1");
-    expect(clientIp(undefined)).toBe("unknown");
+    const before = process.env.ASSAY_TRUSTED_PROXY;
+    try {
+      delete process.env.ASSAY_TRUSTED_PROXY;
+      // Served directly, a client writes its own x-forwarded-for (Next only fills it when absent): no address.
+      expect(clientIp({ "x-forwarded-for": "203.0.113.9" })).toBeNull();
+      expect(clientIp({ "x-real-ip": "192.0.2.1" })).toBeNull();
+      process.env.ASSAY_TRUSTED_PROXY = "1";
+      expect(clientIp({ "x-forwarded-for": "203.0.113.9, 10.0.0.5" })).toBe("10.0.0.5");
+      expect(clientIp(new Headers({ "x-forwarded-for": "127.0.0.1" }))).toBe("127.0.0.1");
+      expect(clientIp({ "x-real-ip": "192.0.2.1" })).toBeNull();
+      expect(clientIp(undefined)).toBeNull();
+    } finally {
+      if (before === undefined) delete process.env.ASSAY_TRUSTED_PROXY;
+      else process.env.ASSAY_TRUSTED_PROXY = before;
+    }
   });
 });
