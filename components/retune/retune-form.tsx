@@ -9,9 +9,9 @@ import { ParamInput } from "./param-input";
 import { RetuneAssistant } from "./retune-assistant";
 
 /** preview: "exact" when the head's file with this version's values is this version; else the head the server computes from. */
-export function RetuneForm({ slug, version, params, baseValues, head, preview: previewBase, quantities, canEdit, teams, defaultTeam }: {
+export function RetuneForm({ slug, version, params, baseValues, head, preview: previewBase, quantities, canEdit, whyNotVersion, teams, defaultTeam }: {
   slug: string; version: number; params: ParamRow[]; baseValues: Record<string, string>; head: { version: number; values: Record<string, string> }; preview: "exact" | { headVersion: number };
-  quantities: string[]; canEdit: boolean; teams: string[]; defaultTeam?: string;
+  quantities: string[]; canEdit: boolean; whyNotVersion?: string; teams: string[]; defaultTeam?: string;
 }) {
   const [values, setValues] = useState<Record<string, string>>(() => Object.fromEntries(params.map((p) => [p.name, p.value])));
   const [saveAs, setSaveAs] = useState<"fork" | "version">("fork");
@@ -47,7 +47,7 @@ export function RetuneForm({ slug, version, params, baseValues, head, preview: p
           </label>
           <label className={`flex items-center gap-2 text-sm ${canEdit ? "" : "opacity-50"}`}>
             <input type="radio" name="saveAs" value="version" checked={saveAs === "version"} disabled={!canEdit} onChange={() => setSaveAs("version")} className="accent-copper" />
-            the next version of this block{canEdit ? "" : " (you may not edit it)"}
+            the next version of this block{canEdit ? "" : ` (${whyNotVersion ?? "you may not edit it"})`}
           </label>
           {saveAs === "fork" ? (
             <div className="grid gap-2 sm:grid-cols-3">

@@ -43,7 +43,7 @@ export async function saveEditAction(_prev: FormState, form: FormData): Promise<
   } catch (err) {
     if (isAppError(err) && err.code === "conflict") {
       const head = (err.extra as { head?: number }).head;
-      return { ok: false, head, message: `Someone saved v${head} while you were editing v${baseVersion}. Your text is kept here; compare and merge before saving again.` };
+      return { ok: false, head, message: `Someone saved v${head} while you were editing v${baseVersion}. Your text is kept here: compare the two, then carry your change into v${head} and save that.` };
     }
     return failure(err);
   }

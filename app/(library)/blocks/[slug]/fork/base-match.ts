@@ -5,9 +5,9 @@ import { withParams } from "@/checks";
  * Forking an older version, the preview is still exact when that version is the head with other values:
  * then sending the older version's values reproduces it. Otherwise the netlist, expressions or checks differ.
  */
-export function sameFileUpToValues(headText: string, olderText: string, olderValues: Record<string, string>, meta: { slug: string; title: string }): boolean {
+export function sameFileUpToValues(headText: string, olderText: string, olderValues: Record<string, string>): boolean {
   try {
-    return withParams(headText, olderValues, meta) === olderText;
+    return withParams(headText, olderValues) === olderText;
   } catch {
     return false;
   }

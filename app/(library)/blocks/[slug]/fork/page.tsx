@@ -16,13 +16,15 @@ export default async function ForkPage({ params, searchParams }: {
   const from = Number((await searchParams).from) || undefined;
   const block = await orNotFound(getBlock(caller, slug, from));
   const role = caller.memberships.find((m) => m.teamSlug === block.team)?.role;
-  const canEdit = (role === "author" || role === "maintainer" || role === "admin") && block.version === block.headVersion;
+  const mayEdit = role === "author" || role === "maintainer" || role === "admin";
+  const canEdit = mayEdit && block.version === block.headVersion;
+  const whyNotVersion = !mayEdit ? "you may not edit it" : canEdit ? undefined : `new versions start from the head, v${block.headVersion}`;
   const values = Object.fromEntries(block.params.map((p) => [p.name, p.value]));
   const head = block.version === block.headVersion ? block : await orNotFound(getBlock(caller, slug));
   const headNames = new Set(head.params.map((p) => p.name));
   // Values the head's file knows; the preview sends all of them so an older version's values are what it computes.
   const baseValues = Object.fromEntries(Object.entries(values).filter(([k]) => headNames.has(k)));
-  const exactPreview = head === block || sameFileUpToValues(head.text, block.text, values, { slug: block.slug, title: block.title });
+  const exactPreview = head === block || sameFileUpToValues(head.text, block.text, values);
   const teams = caller.memberships.filter((m) => m.role !== "viewer").map((m) => m.teamSlug);
   return (
     <div className="space-y-4">
@@ -42,6 +44,7 @@ export default async function ForkPage({ params, searchParams }: {
         head={{ version: head.version, values: Object.fromEntries(head.params.map((p) => [p.name, p.value])) }}
         preview={exactPreview ? "exact" : { headVersion: head.version }}
         canEdit={canEdit}
+        whyNotVersion={whyNotVersion}
         teams={teams}
         defaultTeam={teams.includes(block.team) ? block.team : teams[0]}
       />
