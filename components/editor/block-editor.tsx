@@ -6,7 +6,7 @@ import { checkDraftAction, saveEditAction } from "@/app/(library)/blocks/[slug]/
 import { useDebounced } from "@/components/library/use-debounced";
 
 /** The block file in a monospace editor; the engine's errors sit beside the lines they name. */
-export function BlockEditor({ slug, baseVersion, initialText }: { slug: string; baseVersion: number; initialText: string }) {
+export function BlockEditor({ slug, baseVersion, initialText, readOnly }: { slug: string; baseVersion: number; initialText: string; readOnly?: string }) {
   const [text, setText] = useState(initialText);
   const [state, action, pending] = useActionState(saveEditAction, {});
   const gutter = useRef<HTMLDivElement>(null);
@@ -28,7 +28,7 @@ export function BlockEditor({ slug, baseVersion, initialText }: { slug: string; 
             <div key={i} className={`px-2 ${byLine.has(i + 1) ? "bg-brick/15 font-semibold text-brick" : ""}`} title={byLine.get(i + 1)?.join("; ")}>{i + 1}</div>
           ))}
         </div>
-        <textarea id="block-text" name="text" value={text} onChange={(e) => setText(e.target.value)} spellCheck={false} wrap="off"
+        <textarea id="block-text" name="text" value={text} readOnly={Boolean(readOnly)} onChange={(e) => setText(e.target.value)} spellCheck={false} wrap="off"
           onScroll={(e) => { if (gutter.current) gutter.current.scrollTop = e.currentTarget.scrollTop; }}
           rows={Math.min(40, Math.max(16, lines))} aria-invalid={errors.length > 0} aria-describedby="editor-errors"
           className="min-w-0 flex-1 resize-none overflow-auto bg-panel px-3 py-2 font-mono text-xs leading-5 outline-none" />
@@ -42,15 +42,23 @@ export function BlockEditor({ slug, baseVersion, initialText }: { slug: string; 
           <p className="text-verdigris">The engine reads the file{check.data.failing.length ? `; ${check.data.failing.length} expression check(s) fail: ${check.data.failing.join(", ")}` : ""}.</p>
         ) : <p className="text-graphite">Reading…</p>}
       </div>
-      <label htmlFor="edit-message" className="block text-sm">Message
-        <input id="edit-message" name="message" className="mt-0.5 w-full rounded border border-rule bg-panel px-2 py-1 text-sm" placeholder="What changed and why" />
-      </label>
-      <div className="flex flex-wrap items-center gap-3">
-        <button type="submit" disabled={pending || text === initialText} className="rounded bg-copper px-4 py-1.5 font-medium text-white hover:bg-copper-dark disabled:opacity-50">
-          {pending ? "Saving…" : `Save as v${baseVersion + 1}`}
-        </button>
-        <Link href={`/blocks/${slug}`} className="text-sm text-graphite underline">Cancel</Link>
-      </div>
+      {readOnly ? (
+        <p className="rounded border border-rule bg-panel px-3 py-2 text-sm" data-testid="editor-read-only">
+          {readOnly} <Link href={`/blocks/${slug}`} className="text-copper-dark underline">Back to the block</Link>
+        </p>
+      ) : (
+        <>
+          <label htmlFor="edit-message" className="block text-sm">Message
+            <input id="edit-message" name="message" className="mt-0.5 w-full rounded border border-rule bg-panel px-2 py-1 text-sm" placeholder="What changed and why" />
+          </label>
+          <div className="flex flex-wrap items-center gap-3">
+            <button type="submit" disabled={pending || text === initialText} className="rounded bg-copper px-4 py-1.5 font-medium text-white hover:bg-copper-dark disabled:opacity-50">
+              {pending ? "Saving…" : `Save as v${baseVersion + 1}`}
+            </button>
+            <Link href={`/blocks/${slug}`} className="text-sm text-graphite underline">Cancel</Link>
+          </div>
+        </>
+      )}
       <div id="editor-status" aria-live="polite" className="text-sm">
         {state.message ? <p role={state.ok === false ? "alert" : undefined} className={state.ok === false ? "text-brick" : "text-verdigris"}>{state.message}</p> : null}
         {state.head ? (

@@ -59,7 +59,7 @@ export function RetuneForm({ slug, version, params, baseValues, head, preview: p
                 <input id="fork-title" name="title" className={field} />
               </label>
               <label className="text-sm" htmlFor="fork-team">Team
-                <select id="fork-team" name="team" defaultValue={defaultTeam} className={field}>
+                <select id="fork-team" name="team" defaultValue={defaultTeam} disabled={teams.length === 0} className={field}>
                   {teams.map((t) => <option key={t}>{t}</option>)}
                 </select>
               </label>
@@ -71,9 +71,12 @@ export function RetuneForm({ slug, version, params, baseValues, head, preview: p
         </fieldset>
 
         <div className="flex flex-wrap items-center gap-3">
-          <button type="submit" disabled={pending} className="rounded bg-copper px-4 py-1.5 font-medium text-white hover:bg-copper-dark disabled:opacity-60">
+          <button type="submit" disabled={pending || (saveAs === "fork" && teams.length === 0)} className="rounded bg-copper px-4 py-1.5 font-medium text-white hover:bg-copper-dark disabled:opacity-60">
             {pending ? "Saving…" : saveAs === "fork" ? "Save the fork" : "Save the version"}
           </button>
+          {saveAs === "fork" && teams.length === 0 ? (
+            <span className="text-sm text-brick" data-testid="fork-no-team">You are a viewer in every team, so you can try values here but not save a fork.</span>
+          ) : null}
           <span className="text-xs text-graphite">{Object.keys(changed).length} value{Object.keys(changed).length === 1 ? "" : "s"} changed</span>
         </div>
         <div id="save-message" aria-live="polite" className="text-sm">

@@ -11,6 +11,13 @@ export default async function EditPage({ params }: { params: Promise<{ slug: str
   const { slug } = await params;
   const caller = await requireUser(`/blocks/${slug}/edit`);
   const block = await orNotFound(getBlock(caller, slug));
+  const role = caller.memberships.find((m) => m.teamSlug === block.team)?.role;
+  // The server refuses anyway; say so before someone types into a file they cannot save.
+  const readOnly = block.archived
+    ? "This block is archived: it takes no new versions."
+    : !role || role === "viewer"
+      ? `You ${role ? `are a viewer in ${block.team}` : `are not in ${block.team}`}, so you can read this file but not save it. Fork and retune makes a block of your own where you may create one.`
+      : undefined;
   return (
     <div className="space-y-4">
       <header>
@@ -18,7 +25,7 @@ export default async function EditPage({ params }: { params: Promise<{ slug: str
         <h1 className="font-serif text-2xl font-semibold">{block.title} <span className="font-mono text-lg text-graphite">from v{block.version}</span></h1>
         <p className="mt-1 max-w-prose text-sm text-graphite">Frontmatter, note, netlist and check script in one file. The engine reads it as you type and marks the lines it cannot read.</p>
       </header>
-      <BlockEditor slug={slug} baseVersion={block.version} initialText={block.text} />
+      <BlockEditor slug={slug} baseVersion={block.version} initialText={block.text} readOnly={readOnly} />
     </div>
   );
 }
