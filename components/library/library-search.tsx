@@ -48,6 +48,9 @@ export function LibrarySearch({ initial, initialFilters }: { initial: SearchAnsw
     else links[Math.min(next, links.length - 1)].focus();
   };
 
+  const [facetsOpen, setFacetsOpen] = useState(false);
+  const activeFilters = FACETS.filter(({ key }) => filters[key]).length;
+
   const set = (key: keyof SearchFilters) => (v: string | undefined) => setFilters((f) => ({ ...f, [key]: v }));
 
   return (
@@ -72,7 +75,12 @@ export function LibrarySearch({ initial, initialFilters }: { initial: SearchAnsw
           {query.isFetching ? " · updating" : ""}
         </p>
       </div>
-      <aside aria-label="Narrow the results" className="grid grid-cols-2 gap-4 md:block md:space-y-4">
+      {/* On a phone the filters fold away so the results come first. */}
+      <button type="button" onClick={() => setFacetsOpen((o) => !o)} aria-expanded={facetsOpen} aria-controls="library-facets"
+        className="justify-self-start rounded border border-rule bg-panel px-3 py-1 text-sm md:hidden">
+        {facetsOpen ? "Hide filters" : "Filters"}{activeFilters ? ` (${activeFilters} set)` : ""}
+      </button>
+      <aside id="library-facets" aria-label="Narrow the results" className={`${facetsOpen ? "grid" : "hidden"} grid-cols-2 gap-4 md:block md:space-y-4`}>
         {FACETS.map(({ facet, key }) => (
           <FacetGroup key={facet} name={facet} counts={data?.facets?.[facet] ?? {}} value={filters[key]} onChange={set(key)} />
         ))}

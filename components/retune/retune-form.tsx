@@ -52,7 +52,7 @@ export function RetuneForm({ slug, version, params, baseValues, head, preview: p
           {saveAs === "fork" ? (
             <div className="grid gap-2 sm:grid-cols-3">
               <label className="text-sm" htmlFor="fork-slug">Slug of the fork (optional)
-                <input id="fork-slug" name="newSlug" className={`${field} font-mono`} placeholder={`${slug}-2`} aria-invalid={Boolean(state.errors?.newSlug)} />
+                <input id="fork-slug" name="newSlug" className={`${field} font-mono`} placeholder={`${slug}-fork`} aria-invalid={Boolean(state.errors?.newSlug)} />
                 {state.errors?.newSlug ? <span className="text-xs text-brick">{state.errors.newSlug[0]}</span> : null}
               </label>
               <label className="text-sm" htmlFor="fork-title">Title (optional)
