@@ -1,13 +1,15 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { readFileSync } from "node:fs";
+import { ApiTokenSchema, InvitationSchema, MembershipSchema } from "@/entities";
 import { loadCaller } from "@/lib/auth/load-caller";
 import { createBlock } from "@/lib/blocks/create";
+import { createToken } from "@/lib/tokens/tokens";
 import { closeOrm, getEm } from "@/lib/db/orm";
 import { startApp, type AppServer } from "../support/app-server";
 import { PASSWORD, makeTeam } from "./auth-fixtures";
 
-// The built app over HTTP: two browsers signed in as one person; one changes the password on the settings page,
-// submitting the form as a browser without JavaScript does (React renders the action's hidden fields into it).
+// The built app over HTTP, with forms submitted as a browser without JavaScript does (React renders each server
+// action's hidden fields into its form). Anyone can post those fields: the action itself must check who is asking.
 let app: AppServer;
 beforeAll(async () => {
   app = await startApp();
@@ -53,19 +55,29 @@ class Browser {
 const unescape = (s: string) =>
   s.replace(/&quot;/g, '"').replace(/&#x27;/g, "'").replace(/&lt;/g, "<").replace(/&gt;/g, ">").replace(/&amp;/g, "&");
 
-/** Submits the settings page's password form with its hidden fields, as the browser would. */
-async function changePasswordOnPage(b: Browser, current: string, next: string): Promise<Response> {
-  const page = await (await b.get("/settings")).text();
-  const form = (page.match(/<form[\s\S]*?<\/form>/g) ?? []).find((f) => f.includes('name="current"'));
-  if (!form) throw new Error("no password form on /settings");
+/** The hidden fields of the first form on a page that contains `marker`, as a browser would submit them. */
+async function formOn(b: Browser, path: string, marker: string): Promise<FormData> {
+  const page = await (await b.get(path)).text();
+  const form = (page.match(/<form[\s\S]*?<\/form>/g) ?? []).find((f) => f.includes(marker));
+  if (!form) throw new Error(`no form with ${marker} on ${path}`);
   const body = new FormData();
   for (const m of form.matchAll(/<input type="hidden" name="([^"]+)"(?: value="([^"]*)")?\/>/g)) body.append(unescape(m[1]), unescape(m[2] ?? ""));
+  return body;
+}
+
+async function submit(b: Browser, path: string, body: FormData): Promise<Response> {
+  const res = await fetch(`${app.url}${path}`, { method: "POST", body, headers: { cookie: b.header() }, redirect: "manual" });
+  b.take(res);
+  return res;
+}
+
+/** Submits the settings page's password form, as the browser would. */
+async function changePasswordOnPage(b: Browser, current: string, next: string): Promise<Response> {
+  const body = await formOn(b, "/settings", 'name="current"');
   body.append("current", current);
   body.append("next", next);
   body.append("repeat", next);
-  const res = await fetch(`${app.url}/settings`, { method: "POST", body, headers: { cookie: b.header() }, redirect: "manual" });
-  b.take(res);
-  return res;
+  return submit(b, "/settings", body);
 }
 
 describe("changing a password over HTTP", () => {
@@ -119,5 +131,62 @@ describe("changing a password over HTTP", () => {
     expect(await res.text()).toContain("The current password is not right.");
     expect(await phone.who()).toBe(people[0].email);
     expect(await laptop.who()).toBe(people[0].email);
+  });
+});
+
+describe("team and settings actions check the caller on the server", () => {
+  const roleOf = async (teamId: number, userId: number) =>
+    (await (await getEm()).findOne(MembershipSchema, { team: teamId, user: userId }))?.role;
+
+  it("refuses a role change, an invitation and a token revocation posted by someone without the right", async () => {
+    const { people, teamId } = await makeTeam(["admin", "maintainer", "viewer"]);
+    const [, maintainer, viewer] = people;
+    const browsers = Object.fromEntries(await Promise.all(people.map(async (p) => {
+      const b = new Browser();
+      await b.signIn(p.email, PASSWORD);
+      return [p.role, b] as const;
+    })));
+    const nobody = new Browser();
+
+    // The admin's own role form for the viewer, replayed by others asking to make the viewer admin.
+    const roleForm = await formOn(browsers.admin, "/team", `name="userId" value="${viewer.id}"`);
+    for (const who of [browsers.viewer, browsers.maintainer, nobody]) {
+      const body = new FormData();
+      roleForm.forEach((v, k) => body.append(k, v));
+      body.append("role", "admin");
+      await submit(who, "/team", body);
+      expect(await roleOf(teamId, viewer.id)).toBe("viewer");
+    }
+    const inviteForm = await formOn(browsers.admin, "/team", 'name="email"');
+    const invite = (who: Browser) => {
+      const body = new FormData();
+      inviteForm.forEach((v, k) => body.append(k, v));
+      body.append("email", `outsider-${teamId}@fenwick.test`);
+      body.append("role", "admin");
+      return submit(who, "/team", body);
+    };
+    for (const who of [browsers.viewer, browsers.maintainer, nobody]) await invite(who);
+    expect(await (await getEm()).count(InvitationSchema, { team: teamId })).toBe(0);
+
+    // The maintainer's token, which only its owner and the team's admins may revoke.
+    const { record } = await createToken(await getEm(), { userId: maintainer.id, teamId, name: "bench", scope: "read", expiresAt: null });
+    const mine = await createToken(await getEm(), { userId: viewer.id, teamId, name: "own", scope: "read", expiresAt: null });
+    const revokeForm = await formOn(browsers.viewer, "/settings/tokens", `name="id" value="${mine.record.id}"`);
+    revokeForm.set("id", String(record.id));
+    await submit(browsers.viewer, "/settings/tokens", revokeForm);
+    expect((await (await getEm()).findOneOrFail(ApiTokenSchema, { id: record.id })).revokedAt).toBeNull();
+
+    // The same posts from the admin do take effect, so the refusals above were the role check, not a bad request.
+    const body = new FormData();
+    roleForm.forEach((v, k) => body.append(k, v));
+    body.append("role", "author");
+    expect(await (await submit(browsers.admin, "/team", body)).text()).toContain("Role set to author.");
+    expect(await roleOf(teamId, viewer.id)).toBe("author");
+    await invite(browsers.admin);
+    expect(await (await getEm()).count(InvitationSchema, { team: teamId })).toBe(1);
+    const again = new FormData();
+    revokeForm.forEach((v, k) => again.append(k, v));
+    await submit(browsers.admin, "/settings/tokens", again);
+    expect((await (await getEm()).findOneOrFail(ApiTokenSchema, { id: record.id })).revokedAt).not.toBeNull();
   });
 });
