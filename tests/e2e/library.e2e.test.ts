@@ -127,6 +127,24 @@ describe("the library in a browser", () => {
     await settle(page, "13-edit-line-errors", errors);
   });
 
+  it("attaches a schematic from the block page, refusing a file over 1 MiB first", async () => {
+    await new BlockPage(page).open(FORK);
+    await page.waitForLoadState("networkidle");
+    const form = page.getByTestId("attachment-form");
+    const file = form.getByLabel(/Schematic image/);
+    await file.setInputFiles({ name: "big.png", mimeType: "image/png", buffer: Buffer.concat([PNG_1PX, Buffer.alloc(1024 * 1024)]) });
+    await form.getByText("the limit is 1 MiB").waitFor();
+    await expect(form.getByRole("button", { name: "Attach" }).isDisabled()).resolves.toBe(true);
+    await file.setInputFiles({ name: "Limiter Schematic.PNG", mimeType: "image/png", buffer: PNG_1PX });
+    await form.getByRole("button", { name: "Attach" }).click();
+    await form.getByText("Attached limiter-schematic.png").waitFor({ timeout: 30_000 });
+    await expect(page.getByTestId("attachment-list").textContent()).resolves.toContain("![schematic](limiter-schematic.png)");
+    const served = await page.request.get(`/blocks/${FORK}/attachments/limiter-schematic.png`);
+    expect(served.status()).toBe(200);
+    expect(served.headers()["content-type"]).toBe("image/png");
+    await settle(page, "13a-attachment", errors);
+  });
+
   it("refuses the second of two edits from the same base and links to the newer version", async () => {
     const first = new EditPage(page);
     await first.open(FORK);
