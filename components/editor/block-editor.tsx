@@ -8,6 +8,8 @@ import { useDebounced } from "@/components/library/use-debounced";
 /** The block file in a monospace editor; the engine's errors sit beside the lines they name. */
 export function BlockEditor({ slug, baseVersion, initialText, readOnly }: { slug: string; baseVersion: number; initialText: string; readOnly?: string }) {
   const [text, setText] = useState(initialText);
+  // Controlled, so a refused save (React resets uncontrolled fields after an action) keeps the message too.
+  const [message, setMessage] = useState("");
   const [state, action, pending] = useActionState(saveEditAction, {});
   const gutter = useRef<HTMLDivElement>(null);
   const draft = useDebounced(text, 400);
@@ -49,7 +51,7 @@ export function BlockEditor({ slug, baseVersion, initialText, readOnly }: { slug
       ) : (
         <>
           <label htmlFor="edit-message" className="block text-sm">Message
-            <input id="edit-message" name="message" className="mt-0.5 w-full rounded border border-rule bg-panel px-2 py-1 text-sm" placeholder="What changed and why" />
+            <input id="edit-message" name="message" value={message} onChange={(e) => setMessage(e.target.value)} className="mt-0.5 w-full rounded border border-rule bg-panel px-2 py-1 text-sm" placeholder="What changed and why" />
           </label>
           <div className="flex flex-wrap items-center gap-3">
             <button type="submit" disabled={pending || text === initialText} className="rounded bg-copper px-4 py-1.5 font-medium text-white hover:bg-copper-dark disabled:opacity-50">

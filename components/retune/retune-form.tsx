@@ -15,6 +15,9 @@ export function RetuneForm({ slug, version, params, baseValues, head, preview: p
 }) {
   const [values, setValues] = useState<Record<string, string>>(() => Object.fromEntries(params.map((p) => [p.name, p.value])));
   const [saveAs, setSaveAs] = useState<"fork" | "version">("fork");
+  // Controlled fields: React resets uncontrolled ones after an action, and a refused save should keep what was typed.
+  const [meta, setMeta] = useState({ newSlug: "", title: "", message: "", team: defaultTeam ?? "" });
+  const setMetaField = (k: keyof typeof meta) => (e: { target: { value: string } }) => setMeta((m) => ({ ...m, [k]: e.target.value }));
   const [state, action, pending] = useActionState(saveRetuneAction, {});
   const changed = useMemo(() => Object.fromEntries(Object.entries(values).filter(([k, v]) => params.find((p) => p.name === k)?.value !== v)), [values, params]);
   // The server evaluates the head's file; sending this version's values too makes an older base come out as itself.
@@ -52,21 +55,21 @@ export function RetuneForm({ slug, version, params, baseValues, head, preview: p
           {saveAs === "fork" ? (
             <div className="grid gap-2 sm:grid-cols-3">
               <label className="text-sm" htmlFor="fork-slug">Slug of the fork (optional)
-                <input id="fork-slug" name="newSlug" className={`${field} font-mono`} placeholder={`${slug}-fork`} aria-invalid={Boolean(state.errors?.newSlug)} />
+                <input id="fork-slug" name="newSlug" value={meta.newSlug} onChange={setMetaField("newSlug")} className={`${field} font-mono`} placeholder={`${slug}-fork`} aria-invalid={Boolean(state.errors?.newSlug)} />
                 {state.errors?.newSlug ? <span className="text-xs text-brick">{state.errors.newSlug[0]}</span> : null}
               </label>
               <label className="text-sm" htmlFor="fork-title">Title (optional)
-                <input id="fork-title" name="title" className={field} />
+                <input id="fork-title" name="title" value={meta.title} onChange={setMetaField("title")} className={field} />
               </label>
               <label className="text-sm" htmlFor="fork-team">Team
-                <select id="fork-team" name="team" defaultValue={defaultTeam} disabled={teams.length === 0} className={field}>
+                <select id="fork-team" name="team" value={meta.team} onChange={setMetaField("team")} disabled={teams.length === 0} className={field}>
                   {teams.map((t) => <option key={t}>{t}</option>)}
                 </select>
               </label>
             </div>
           ) : null}
           <label className="block text-sm" htmlFor="retune-message">Message
-            <input id="retune-message" name="message" className={field} placeholder="What you changed and why" />
+            <input id="retune-message" name="message" value={meta.message} onChange={setMetaField("message")} className={field} placeholder="What you changed and why" />
           </label>
         </fieldset>
 
