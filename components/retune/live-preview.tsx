@@ -13,7 +13,7 @@ export function LivePreview({ query }: { query: ReturnType<typeof useEvaluateBlo
       <header className="flex items-baseline justify-between gap-2">
         <h2 className="text-xs font-semibold uppercase tracking-wide text-graphite">Live preview</h2>
         <span aria-live="polite" className="text-xs text-graphite" data-testid="preview-summary">
-          {query.isError ? "preview failed" : !report ? "computing…" : errors.length ? "cannot evaluate" : failing ? `${failing} check${failing === 1 ? "" : "s"} fail` : "expression checks pass"}
+          {query.isError ? "preview failed" : !report ? "computing…" : errors.length ? "cannot evaluate" : failing ? `${failing} check${failing === 1 ? " fails" : "s fail"}` : "expression checks pass"}
           {query.isFetching ? " · updating" : ""}
         </span>
       </header>
