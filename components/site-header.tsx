@@ -12,11 +12,16 @@ const NAV = [
   { href: "/team", label: "Team" },
   { href: "/settings", label: "Settings" },
 ];
+// Signed out, the rest would only send you to the sign-in page.
+const PUBLIC_NAV = [
+  { href: "/", label: "Library" },
+  { href: "/api-docs", label: "API reference" },
+];
 
 export async function SiteHeader() {
   const caller = await getCaller();
   // The mailbox exists only while the local mail sink stands in for SMTP, and only team admins may read it.
-  const nav = sinkDir() && isMailboxViewer(caller) ? [...NAV, { href: "/mailbox", label: "Mailbox" }] : NAV;
+  const nav = !caller.user ? PUBLIC_NAV : sinkDir() && isMailboxViewer(caller) ? [...NAV, { href: "/mailbox", label: "Mailbox" }] : NAV;
   return (
     <header className="border-b border-rule bg-panel/80">
       <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-2 sm:px-6">
