@@ -15,7 +15,7 @@ export function ImportForm({ teams }: { teams: string[] }) {
   const dropped = (read.data?.dropped as string[] | undefined) ?? [];
 
   return (
-    <div className="grid gap-6 lg:grid-cols-2">
+    <div className="grid items-start gap-6 lg:grid-cols-2">
       <form action={readAction} className="space-y-3 rounded border border-rule bg-panel p-4" aria-describedby="read-status">
         <h2 className="text-sm font-semibold">1 · Choose a file</h2>
         <label htmlFor="import-file" className="block text-sm">Block file or SPICE netlist
