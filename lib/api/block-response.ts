@@ -1,9 +1,9 @@
 import { spiceDeck } from "@/checks";
 import type { Caller } from "@/lib/auth/caller";
-import { getBlock, getLineage } from "@/lib/blocks/read";
+import { getBlock, getBlockWithLineage } from "@/lib/blocks/read";
 import { toBlockJson } from "./block-json";
 import { immutableHeaders, revalidateHeaders } from "./cache";
-import { conditional } from "./etag";
+import { conditional, conditionalBuilt } from "./etag";
 
 export type BlockFormat = "json" | "md" | "spice";
 
@@ -12,29 +12,28 @@ export type BlockFormat = "json" | "md" | "spice";
  * and If-None-Match → 304. See lib/api/cache.ts for the cache policy.
  */
 export async function blockResponse(req: Request, caller: Caller, slug: string, version: number | undefined, format: BlockFormat) {
-  // Lineage only goes into the JSON; fetched beside the block rather than after it (each is a few queries).
-  const lineageP = format === "json" ? getLineage(caller, slug) : null;
-  lineageP?.catch(() => {});
+  if (format === "json") {
+    // One load gives block and lineage; the validator comes from what determines the body, so a 304 builds no JSON.
+    const read = await getBlockWithLineage(caller, slug, version);
+    return conditionalBuilt(req, read.etag, async () => JSON.stringify(toBlockJson(await read.view(), read.lineage)), {
+      "Content-Type": "application/json",
+      ...revalidateHeaders(read.visibility),
+    });
+  }
   const view = await getBlock(caller, slug, version);
   const fixed = version !== undefined;
   const name = `${view.slug}-v${view.version}`;
+  const cache = fixed ? immutableHeaders(view.visibility) : revalidateHeaders(view.visibility);
   if (format === "md") {
     return conditional(req, view.text, {
       "Content-Type": "text/markdown; charset=utf-8",
       "Content-Disposition": `inline; filename="${name}.md"`,
-      ...(fixed ? immutableHeaders(view.visibility) : revalidateHeaders(view.visibility)),
+      ...cache,
     });
   }
-  if (format === "spice") {
-    return conditional(req, spiceDeck(view.text), {
-      "Content-Type": "text/plain; charset=utf-8",
-      "Content-Disposition": `attachment; filename="${name}.cir"`,
-      ...(fixed ? immutableHeaders(view.visibility) : revalidateHeaders(view.visibility)),
-    });
-  }
-  const lineage = await lineageP!;
-  return conditional(req, JSON.stringify(toBlockJson(view, lineage)), {
-    "Content-Type": "application/json",
-    ...revalidateHeaders(view.visibility),
+  return conditional(req, spiceDeck(view.text), {
+    "Content-Type": "text/plain; charset=utf-8",
+    "Content-Disposition": `attachment; filename="${name}.cir"`,
+    ...cache,
   });
 }

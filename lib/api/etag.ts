@@ -14,16 +14,25 @@ export function matchesIfNoneMatch(req: Request, etag: string): boolean {
   return header.split(",").some((t) => opaque(t) === opaque(etag));
 }
 
-/**
- * Answers with the body, or 304 when the client already holds it. The 304 repeats ETag, Cache-Control and Vary
- * (RFC 9110 §15.4.5) so caches can refresh their stored copy.
- */
+/** 304 repeats ETag, Cache-Control and Vary (RFC 9110 §15.4.5) so caches can refresh their stored copy. */
+function notModified(h: Record<string, string>): Response {
+  const { "Content-Type": _ct, "Content-Disposition": _cd, ...rest } = h;
+  return new Response(null, { status: 304, headers: rest });
+}
+
+/** Answers with the body, or 304 when the client already holds it; the validator is a hash of the body. */
 export function conditional(req: Request, body: string, headers: Record<string, string>): Response {
-  const etag = strongEtag(body);
-  const h: Record<string, string> = { ...headers, ETag: etag };
-  if (matchesIfNoneMatch(req, etag)) {
-    const { "Content-Type": _ct, "Content-Disposition": _cd, ...rest } = h;
-    return new Response(null, { status: 304, headers: rest });
-  }
+  const h: Record<string, string> = { ...headers, ETag: strongEtag(body) };
+  if (matchesIfNoneMatch(req, h.ETag)) return notModified(h);
   return new Response(body, { status: 200, headers: h });
+}
+
+/**
+ * The same with a validator computed beforehand from everything the body is a function of (the caller vouches
+ * that it changes whenever the body would): a match answers 304 without building the body at all.
+ */
+export async function conditionalBuilt(req: Request, etag: string, build: () => Promise<string>, headers: Record<string, string>): Promise<Response> {
+  const h: Record<string, string> = { ...headers, ETag: etag };
+  if (matchesIfNoneMatch(req, etag)) return notModified(h);
+  return new Response(await build(), { status: 200, headers: h });
 }
