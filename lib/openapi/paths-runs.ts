@@ -12,9 +12,11 @@ export function registerRunPaths(r: OpenAPIRegistry): void {
     operationId: "evaluateBlock",
     tags: ["checks"],
     summary: "Check the head with draft parameter values; nothing is stored",
-    description: "Without simulate the checks that need a simulation are skipped and the status is never verified.",
+    description: "Without simulate the checks that need a simulation are skipped and the status is never verified. "
+      + "Engine calls are budgeted per minute: per token or signed-in user, and for signed-out callers per block and overall; "
+      + "an evaluation costs 1 point, with simulate 6, a retune 2 (defaults 60 points per caller, 20 per block and 60 overall signed out).",
     request: { params: slugParamsSchema, body: { required: true, content: json(evaluateBodySchema) } },
-    responses: { 200: { description: "The report", content: json(reportSchema) }, ...problems(401, 403, 404, 413, 415, 422) },
+    responses: { 200: { description: "The report", content: json(reportSchema) }, ...problems(401, 403, 404, 413, 415, 422, 429) },
   });
   r.registerPath({
     method: "post",
@@ -23,7 +25,7 @@ export function registerRunPaths(r: OpenAPIRegistry): void {
     tags: ["checks"],
     summary: "Solve one parameter so a quantity reaches a target, snapped to an E-series value",
     request: { params: slugParamsSchema, body: { required: true, content: json(retuneBodySchema) } },
-    responses: { 200: { description: "Solved and snapped values with the report at the snapped value", content: json(retuneResultSchema) }, ...problems(401, 403, 404, 413, 415, 422) },
+    responses: { 200: { description: "Solved and snapped values with the report at the snapped value", content: json(retuneResultSchema) }, ...problems(401, 403, 404, 413, 415, 422, 429) },
   });
   r.registerPath({
     method: "get",

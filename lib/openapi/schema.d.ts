@@ -69,7 +69,7 @@ export interface paths {
         put?: never;
         /**
          * Check the head with draft parameter values; nothing is stored
-         * @description Without simulate the checks that need a simulation are skipped and the status is never verified.
+         * @description Without simulate the checks that need a simulation are skipped and the status is never verified. Engine calls are budgeted per minute: per token or signed-in user, and for signed-out callers per block and overall; an evaluation costs 1 point, with simulate 6, a retune 2 (defaults 60 points per caller, 20 per block and 60 overall signed out).
          */
         post: operations["evaluateBlock"];
         delete?: never;
@@ -619,7 +619,7 @@ export interface operations {
             200: {
                 headers: {
                     "Cache-Control": string;
-                    /** @description Strong validator of the exact body */
+                    /** @description Strong validator: changes whenever the body would */
                     ETag: string;
                     [name: string]: unknown;
                 };
@@ -633,7 +633,7 @@ export interface operations {
             304: {
                 headers: {
                     "Cache-Control": string;
-                    /** @description Strong validator of the exact body */
+                    /** @description Strong validator: changes whenever the body would */
                     ETag: string;
                     [name: string]: unknown;
                 };
@@ -799,6 +799,17 @@ export interface operations {
             /** @description The request did not validate; `errors` lists the issues */
             422: {
                 headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Too many engine runs for this caller (signed out: for this block, or for everyone signed out); wait `Retry-After` seconds (`retryAfter` in the body) */
+            429: {
+                headers: {
+                    /** @description Seconds until the budget allows this call again (RFC 9110 §10.2.3) */
+                    "Retry-After": string;
                     [name: string]: unknown;
                 };
                 content: {
@@ -1028,6 +1039,17 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description Too many engine runs for this caller (signed out: for this block, or for everyone signed out); wait `Retry-After` seconds (`retryAfter` in the body) */
+            429: {
+                headers: {
+                    /** @description Seconds until the budget allows this call again (RFC 9110 §10.2.3) */
+                    "Retry-After": string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
         };
     };
     listVersions: {
@@ -1224,7 +1246,7 @@ export interface operations {
             200: {
                 headers: {
                     "Cache-Control": string;
-                    /** @description Strong validator of the exact body */
+                    /** @description Strong validator: changes whenever the body would */
                     ETag: string;
                     [name: string]: unknown;
                 };
@@ -1238,7 +1260,7 @@ export interface operations {
             304: {
                 headers: {
                     "Cache-Control": string;
-                    /** @description Strong validator of the exact body */
+                    /** @description Strong validator: changes whenever the body would */
                     ETag: string;
                     [name: string]: unknown;
                 };

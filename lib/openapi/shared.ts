@@ -9,18 +9,27 @@ const STATUS_TEXT: Record<number, string> = {
   413: "The body is larger than allowed",
   415: "Unsupported Content-Type",
   422: "The request did not validate; `errors` lists the issues",
+  429: "Too many engine runs for this caller (signed out: for this block, or for everyone signed out); wait `Retry-After` seconds (`retryAfter` in the body)",
 };
+
+const retryAfterHeaders = z.object({
+  "Retry-After": z.string().meta({ description: "Seconds until the budget allows this call again (RFC 9110 §10.2.3)" }),
+});
 
 export const json = (schema: ZodType) => ({ "application/json": { schema } });
 
 export function problems(...codes: number[]) {
   return Object.fromEntries(
-    codes.map((c) => [c, { description: STATUS_TEXT[c], content: { "application/problem+json": { schema: problemSchema } } }]),
+    codes.map((c) => [c, {
+      description: STATUS_TEXT[c],
+      ...(c === 429 ? { headers: retryAfterHeaders } : {}),
+      content: { "application/problem+json": { schema: problemSchema } },
+    }]),
   );
 }
 
 export const etagHeaders = z.object({
-  ETag: z.string().meta({ description: "Strong validator of the exact body" }),
+  ETag: z.string().meta({ description: "Strong validator: changes whenever the body would" }),
   "Cache-Control": z.string(),
 });
 

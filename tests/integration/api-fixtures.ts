@@ -50,7 +50,8 @@ async function person(teamId: number, role: Role, tag: string): Promise<Person> 
   return { id: user.id, email, write: write.token, read: read.token };
 }
 
-export async function makeWorld(opts: { worker?: boolean } = {}): Promise<ApiWorld> {
+/** `env` adds variables for the app only (e.g. small engine budgets for the rate-limit test). */
+export async function makeWorld(opts: { worker?: boolean; env?: Record<string, string> } = {}): Promise<ApiWorld> {
   const tag = tagOf();
   const em = await getEm();
   const a = em.create(TeamSchema, { slug: `api-fen-${tag}`, name: `Fenwick Analog Works ${tag}` });
@@ -67,7 +68,7 @@ export async function makeWorld(opts: { worker?: boolean } = {}): Promise<ApiWor
   const env = { MEILI_URL: search.url, MEILI_MASTER_KEY: searchKey, NEXTAUTH_SECRET: secret, ASSAY_SEARCH_INDEX: `blocks-${tag}` };
   // The test process indexes too (processIndexBacklog), so it must point at the same server and index.
   Object.assign(process.env, env);
-  const app = await startApp({ env });
+  const app = await startApp({ env: { ...env, ...opts.env } });
   const worker = opts.worker ? startWorker({ env }) : null;
   return {
     tag,
