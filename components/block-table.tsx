@@ -14,7 +14,7 @@ function Marked({ runs, fallback }: { runs?: HighlightRun[]; fallback: string })
   return (
     <>
       {runs.map((r, i) =>
-        r.match ? <mark key={i} className="rounded-sm bg-copper-pale px-0.5 text-ink">{r.text}</mark> : <span key={i}>{r.text}</span>,
+        r.match ? <mark key={i} className="rounded-sm bg-copper-pale text-ink">{r.text}</mark> : <span key={i}>{r.text}</span>,
       )}
     </>
   );
