@@ -68,6 +68,10 @@ describe("the library in a browser", () => {
     const retune = new RetunePage(page);
     await retune.setParam("Rf", "150 kohm");
     await retune.waitForPreviewCheck("fail", "small-signal gain 10 +/- 3% at every corner");
+    // Values are typeset with SI prefixes and the ohm sign, never the engine's "Mohm"/"kohm" (common practice).
+    const quantities = page.getByTestId("live-preview").getByTestId("quantity-list");
+    await expect(quantities.locator("[data-quantity=r_pair]").textContent()).resolves.toMatch(/^\s*7\.755 MΩ$/);
+    await expect(quantities.textContent()).resolves.not.toMatch(/ohm/);
     await settle(page, "04-fork-preview-failing", errors);
     await retune.saveAsFork(FORK);
     expect(["pending", "failing"]).toContain(await block.badge());
