@@ -17,8 +17,9 @@ export function RetuneAssistant({ slug, params, quantities, onUse, values, head 
   const [series, setSeries] = useState("E24");
   const retune = useRetuneBlock(slug);
   const field = "w-full rounded border border-rule bg-paper px-2 py-1 text-sm";
-  // The API solves against the head's saved file: other values on this form that differ from it are not seen.
-  const unseen = Object.keys(values).filter((k) => k !== param && head.values[k] !== undefined && head.values[k] !== values[k]);
+  // The other values on this form go with the request, so the assistant solves from what is on screen;
+  // a parameter the head's file lacks cannot be sent into it.
+  const drafts = Object.fromEntries(Object.entries(values).filter(([k, v]) => k !== param && head.values[k] !== undefined && v.trim() !== ""));
   const notInHead = Object.keys(values).filter((k) => head.values[k] === undefined);
   return (
     <section aria-label="Retune assistant" className="space-y-2 rounded border border-rule bg-panel p-3" data-testid="retune-assistant">
@@ -44,16 +45,14 @@ export function RetuneAssistant({ slug, params, quantities, onUse, values, head 
           <input id={`${id}-v`} value={value} onChange={(e) => setValue(e.target.value)} placeholder="1.03 or 1 kHz" className={`${field} font-mono`} />
         </label>
       </div>
-      {unseen.length || notInHead.length ? (
+      {notInHead.length ? (
         <p className="text-xs text-brick" data-testid="retune-base-note">
-          The assistant solves with the saved values of v{head.version}, the head
-          {unseen.length ? <>, not the values here for <span className="font-mono">{unseen.join(", ")}</span></> : null}
-          {notInHead.length ? <>; v{head.version} has no <span className="font-mono">{notInHead.join(", ")}</span></> : null}.
-          Check its answer in the live preview after using it.
+          The assistant solves in the file of v{head.version}, the head, which has no{" "}
+          <span className="font-mono">{notInHead.join(", ")}</span>. Check its answer in the live preview after using it.
         </p>
       ) : null}
       <button type="button" disabled={!param || !quantity || !value.trim() || retune.isPending}
-        onClick={() => retune.mutate({ param, target: { quantity, value: value.trim() }, series })}
+        onClick={() => retune.mutate({ param, target: { quantity, value: value.trim() }, series, params: drafts })}
         className="rounded bg-copper px-3 py-1 text-sm font-medium text-white hover:bg-copper-dark disabled:opacity-50">
         {retune.isPending ? "Solving…" : "Solve"}
       </button>

@@ -19,7 +19,8 @@ const envInt = (name: string, fallback: number): number => {
 
 /** Budgets in points per minute; ASSAY_ENGINE_POINTS, ASSAY_ENGINE_ANON_BLOCK_POINTS, ASSAY_ENGINE_ANON_POINTS move them. */
 export const engineBudgets = () => ({
-  caller: envInt("ASSAY_ENGINE_POINTS", 60),
+  // The live preview asks on every pause in typing: a signed-in engineer needs a few a second at most.
+  caller: envInt("ASSAY_ENGINE_POINTS", 300),
   anonBlock: envInt("ASSAY_ENGINE_ANON_BLOCK_POINTS", 20),
   anonAll: envInt("ASSAY_ENGINE_ANON_POINTS", 60),
 });

@@ -956,6 +956,16 @@ export interface operations {
                      */
                     param: string;
                     /**
+                     * @description Draft values of the other parameters to solve from (default: the head's)
+                     * @example {
+                     *       "R": "3.9 kohm",
+                     *       "C": "22 nF"
+                     *     }
+                     */
+                    params?: {
+                        [key: string]: string;
+                    };
+                    /**
                      * @description IEC 60063 series to snap the result to
                      * @enum {string}
                      */

@@ -3,7 +3,7 @@ import { useMutation } from "@tanstack/react-query";
 import type { Report } from "@/checks";
 import { apiJson } from "./http";
 
-export interface RetuneRequest { param: string; target: { quantity: string; value: string }; series: string }
+export interface RetuneRequest { param: string; target: { quantity: string; value: string }; series: string; params?: Record<string, string> }
 export interface RetuneAnswer { value: string; snapped: string; report: Report }
 
 export const fetchRetuneBlock = (slug: string, req: RetuneRequest) =>

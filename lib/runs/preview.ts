@@ -1,4 +1,4 @@
-import { previewBlock, retune, verifyBlock, type Report } from "@/checks";
+import { previewBlock, retune, verifyBlock, withParams, type Report } from "@/checks";
 import type { Caller } from "@/lib/auth/caller";
 import { loadBlock } from "@/lib/blocks/common";
 import { getEm } from "@/lib/db/orm";
@@ -32,10 +32,12 @@ export async function evaluateBlock(caller: Caller, slug: string, input: { param
 export async function retuneBlock(
   caller: Caller,
   slug: string,
-  req: { param: string; target: { quantity: string; value: string }; series: string },
+  req: { param: string; target: { quantity: string; value: string }; series: string; params?: Record<string, string> },
 ): Promise<{ value: string; snapped: string; report: Report }> {
-  const text = await headText(caller, slug);
+  const head = await headText(caller, slug);
   try {
+    // Draft values of the other parameters go into the file first, so the assistant solves from what is on screen.
+    const text = req.params && Object.keys(req.params).length ? withParams(head, cleanParams(req.params)) : head;
     return await retune(text, { param: String(req.param), target: { quantity: String(req.target?.quantity), value: String(req.target?.value) }, series: String(req.series) });
   } catch (err) {
     const message = (err as Error)?.message ?? String(err);

@@ -47,6 +47,7 @@ export const retuneBodySchema = z.strictObject({
     value: quantityText.meta({ description: "Target value with its unit", example: "1 kHz" }),
   }),
   series: z.enum(E_SERIES).meta({ description: "IEC 60063 series to snap the result to" }),
+  params: paramValuesSchema.optional().meta({ description: "Draft values of the other parameters to solve from (default: the head's)" }),
 });
 
 export const createQuerySchema = z.object({

@@ -41,6 +41,15 @@ describe("retune assistant", () => {
     expect((r.report.quantities.G.value)).toBeCloseTo(1 + nearestE24(exact) / 10_000, 6);
   });
 
+  it("solves from draft values of the other parameters when they are given", async () => {
+    // Same closed form with a draft Rg of 4.7 kohm instead of the file's 10 kohm: Rf = (G - 1) * 4.7 kohm.
+    const r = await retuneBlock(team.viewer, amp(), { param: "Rf", target: { quantity: "G", value: "4.3" }, series: "E24", params: { Rg: "4.7 kohm" } });
+    const exact = 3.3 * 4_700;
+    expect(ohms(r.value) / exact).toBeCloseTo(1, 2);
+    expect(ohms(r.snapped)).toBeCloseTo(nearestE24(exact), 6);
+    expect(r.report.quantities.G.value).toBeCloseTo(1 + nearestE24(exact) / 4_700, 6);
+  });
+
   it("picks the feedback resistor that puts the Wien bridge's loop gain at 1.03 with E24 parts", async () => {
     // Loop gain (1 + Rf/Rg)/3 = 1.03 gives Rf = 2.09 Rg = 20.9 kohm; the nearest E24 value is 20 kohm.
     const r = await retuneBlock(team.viewer, wien(), { param: "Rf", target: { quantity: "loop_gain", value: "1.03" }, series: "E24" });
