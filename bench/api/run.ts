@@ -1,12 +1,10 @@
 // npm run bench:api — throughput and tail latency of the block read routes against a bare route handler.
 // Everything runs on loopback: a throwaway PostgreSQL, the local search server and `next start` on free ports.
-import { randomBytes } from "node:crypto";
-import { mkdtempSync, readdirSync, readFileSync, rmSync } from "node:fs";
+import { readdirSync, readFileSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import autocannon from "autocannon";
-import { startCluster } from "../../tests/support/pg-cluster";
-import { startApp } from "../../tests/support/app-server";
+import { withBenchServices } from "../support/services";
 
 const DURATION_S = Number(process.env.BENCH_DURATION ?? 4);
 const ROUNDS = Number(process.env.BENCH_ROUNDS ?? 3);
@@ -27,14 +25,12 @@ async function measure(url: string, headers: Record<string, string>, expectStatu
 }
 
 async function seed(token: { set: (t: string) => void }) {
-  const { migrateUp } = await import("../../lib/db/migrate");
   const { getEm } = await import("../../lib/db/orm");
   const { TeamSchema, UserSchema, MembershipSchema } = await import("../../entities");
   const { loadCaller } = await import("../../lib/auth/load-caller");
   const { createBlock } = await import("../../lib/blocks/create");
   const { createToken } = await import("../../lib/tokens/tokens");
   const { reindexAll } = await import("../../lib/search/indexer");
-  await migrateUp();
   const em = await getEm();
   const team = em.create(TeamSchema, { slug: "fenwick", name: "Fenwick Analog Works" });
   const user = em.create(UserSchema, { email: "nadia.okafor@fenwick.test", name: "Nadia Okafor", passwordHash: null });
@@ -59,20 +55,10 @@ async function seed(token: { set: (t: string) => void }) {
 }
 
 async function main() {
-  const cluster = await startCluster();
-  const tmp = mkdtempSync(path.join(os.tmpdir(), "assay-bench-api-"));
-  const key = randomBytes(16).toString("hex");
-  Object.assign(process.env, { DATABASE_URL: cluster.url, MEILI_MASTER_KEY: key });
-  const { startSearchServer } = await import("../../lib/search/server/index");
-  const search = await startSearchServer({ port: 0, key, dir: path.join(tmp, "search") });
-  process.env.MEILI_URL = search.url;
-  let app: Awaited<ReturnType<typeof startApp>> | undefined;
-  try {
+  await withBenchServices("api", async ({ startApp }) => {
     let token = "";
     const { stored, indexed } = await seed({ set: (t) => (token = t) });
-    const { closeOrm } = await import("../../lib/db/orm");
-    await closeOrm();
-    app = await startApp({ env: { DATABASE_URL: cluster.url, MEILI_URL: search.url, MEILI_MASTER_KEY: key, ASSAY_BENCH: "1" } });
+    const app = await startApp({ ASSAY_BENCH: "1" });
     const auth = { Authorization: `Bearer ${token}` };
     const version = await fetch(`${app.url}/api/v1/blocks/${SLUG}/versions/1`, { headers: auth });
     if (version.status !== 200) throw new Error(`version fetch answered ${version.status}: ${await version.text()}`);
@@ -110,12 +96,7 @@ async function main() {
       );
     }
     console.log(`load average during the run: ${os.loadavg().map((x) => x.toFixed(1)).join(" ")} on ${os.cpus().length} cores`);
-  } finally {
-    await app?.stop();
-    await search.close();
-    cluster.stop();
-    rmSync(tmp, { recursive: true, force: true });
-  }
+  });
 }
 
 main().catch((err) => {

@@ -1,11 +1,7 @@
 // npm run bench:search — 5,000 generated blocks; latency of GET /api/v1/blocks?q=… through the built app.
 // Everything runs on loopback: a throwaway PostgreSQL, the local search server and `next start` on free ports.
-import { randomBytes } from "node:crypto";
-import { mkdtempSync, rmSync } from "node:fs";
 import os from "node:os";
-import path from "node:path";
-import { startCluster } from "../../tests/support/pg-cluster";
-import { startApp } from "../../tests/support/app-server";
+import { withBenchServices } from "../support/services";
 import { generateBlocks } from "./generate";
 
 const COUNT = Number(process.env.BENCH_BLOCKS ?? 5000);
@@ -21,36 +17,24 @@ const queries: Record<string, string[]> = {
 const pct = (xs: number[], p: number) => xs.slice().sort((a, b) => a - b)[Math.min(xs.length - 1, Math.floor((p / 100) * xs.length))];
 
 async function main() {
-  const cluster = await startCluster();
-  const tmp = mkdtempSync(path.join(os.tmpdir(), "assay-bench-search-"));
-  const key = randomBytes(16).toString("hex");
-  process.env.DATABASE_URL = cluster.url;
-  process.env.MEILI_MASTER_KEY = key;
-  const { startSearchServer } = await import("../../lib/search/server/index");
-  const search = await startSearchServer({ port: 0, key, dir: path.join(tmp, "search") });
-  process.env.MEILI_URL = search.url;
-  let app: Awaited<ReturnType<typeof startApp>> | undefined;
-  try {
-    const { migrateUp } = await import("../../lib/db/migrate");
-    const { getEm, closeOrm } = await import("../../lib/db/orm");
+  await withBenchServices("search", async ({ startApp }) => {
+    const { getEm } = await import("../../lib/db/orm");
     const { reindexAll } = await import("../../lib/search/indexer");
-    await migrateUp();
+    const { createToken } = await import("../../lib/tokens/tokens");
     const t0 = performance.now();
     const owner = await generateBlocks(await getEm(), COUNT);
-    const { createToken } = await import("../../lib/tokens/tokens");
     // A member's read token, so every query carries the team filter as a signed-in engineer's would.
     const { token } = await createToken(await getEm(), { userId: owner.userId, teamId: owner.teamId, name: "bench", scope: "read", expiresAt: null });
     const t1 = performance.now();
     const indexed = await reindexAll(await getEm());
     const t2 = performance.now();
-    await closeOrm();
     console.log(`blocks stored: ${COUNT} in ${((t1 - t0) / 1000).toFixed(1)} s`);
     console.log(`indexing: ${indexed} documents in ${((t2 - t1) / 1000).toFixed(1)} s = ${Math.round(indexed / ((t2 - t1) / 1000))} documents/s`);
 
-    app = await startApp({ env: { DATABASE_URL: cluster.url, MEILI_URL: search.url, MEILI_MASTER_KEY: key } });
+    const app = await startApp();
     const get = async (q: string) => {
       const [word, ...filters] = q.split("&");
-      const url = `${app!.url}/api/v1/blocks?q=${encodeURIComponent(word)}${filters.length ? "&" + filters.join("&") : ""}`;
+      const url = `${app.url}/api/v1/blocks?q=${encodeURIComponent(word)}${filters.length ? "&" + filters.join("&") : ""}`;
       const s = performance.now();
       const res = await fetch(url, { headers: { Authorization: `Bearer ${token}` } });
       const body = (await res.json()) as { estimatedTotal: number };
@@ -71,12 +55,8 @@ async function main() {
       const p95 = pct(ms, 95);
       console.log(`${kind.padEnd(10)} ${pct(ms, 50).toFixed(1).padStart(7)} ${p95.toFixed(1).padStart(8)} ${(hits / REQUESTS).toFixed(0).padStart(11)} ${(p95 / 50).toFixed(2).padStart(12)}`);
     }
-  } finally {
-    await app?.stop();
-    await search.close();
-    cluster.stop();
-    rmSync(tmp, { recursive: true, force: true });
-  }
+    console.log(`load average during the run: ${os.loadavg().map((x) => x.toFixed(1)).join(" ")} on ${os.cpus().length} cores`);
+  });
 }
 
 main().catch((err) => {

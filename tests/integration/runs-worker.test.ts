@@ -104,8 +104,11 @@ describe("worker processes", () => {
       const rows = await (await getEm()).find(CheckRunSchema, { id: { $in: runs } });
       return rows.every((r) => r.status === "done") ? rows : null;
     });
-    const byC = runs.filter((id) => c.lines.some((l) => l.includes(`run ${id}: done`)));
-    const byD = runs.filter((id) => d.lines.some((l) => l.includes(`run ${id}: done`)));
+    // The row turns done before the worker's log line crosses the pipe: wait for every line too.
+    const doneBy = (w: typeof c, id: string) => w.lines.some((l) => l.includes(`run ${id}: done`));
+    await until("every run's line in a worker's log", async () => runs.every((id) => doneBy(c, id) || doneBy(d, id)), 10_000);
+    const byC = runs.filter((id) => doneBy(c, id));
+    const byD = runs.filter((id) => doneBy(d, id));
     expect(byC.length).toBeGreaterThan(0);
     expect(byD.length).toBeGreaterThan(0);
     expect([...byC, ...byD].sort()).toEqual([...runs].sort());
