@@ -5,6 +5,7 @@ import { requestSignInLink } from "@/lib/auth/sign-in";
 import { createBlock } from "@/lib/blocks/create";
 import { closeOrm, getEm } from "@/lib/db/orm";
 import { startApp, type AppServer } from "../support/app-server";
+import { CookieJar } from "../support/cookie-jar";
 import { PASSWORD, linkIn, mailsTo, makeTeam } from "./auth-fixtures";
 
 // The built app over HTTP: next-auth's own endpoints, our providers, the cookie they set, and pages reading it.
@@ -17,21 +18,7 @@ afterAll(async () => {
   await closeOrm();
 });
 
-class Jar {
-  cookies = new Map<string, string>();
-  header = () => [...this.cookies].map(([k, v]) => `${k}=${v}`).join("; ");
-  take(res: Response) {
-    for (const line of res.headers.getSetCookie()) {
-      const [pair] = line.split(";");
-      const i = pair.indexOf("=");
-      const value = pair.slice(i + 1);
-      if (value === "" || /Max-Age=0/i.test(line)) this.cookies.delete(pair.slice(0, i));
-      else this.cookies.set(pair.slice(0, i), value);
-    }
-  }
-}
-
-async function post(jar: Jar, path: string, fields: Record<string, string>): Promise<Response> {
+async function post(jar: CookieJar, path: string, fields: Record<string, string>): Promise<Response> {
   const csrf = await fetch(`${app.url}/api/auth/csrf`, { headers: { cookie: jar.header() } });
   jar.take(csrf);
   const { csrfToken } = (await csrf.json()) as { csrfToken: string };
@@ -45,7 +32,7 @@ async function post(jar: Jar, path: string, fields: Record<string, string>): Pro
   return res;
 }
 
-const session = async (jar: Jar) =>
+const session = async (jar: CookieJar) =>
   (await (await fetch(`${app.url}/api/auth/session`, { headers: { cookie: jar.header() } })).json()) as { user?: { email: string } };
 
 describe("sign-in over HTTP", () => {
@@ -53,7 +40,7 @@ describe("sign-in over HTTP", () => {
     const { people, slug: team, tag } = await makeTeam(["author"]);
     const text = readFileSync("content/blocks/rc-lowpass-antialias.md", "utf8").replace(/^slug: .*$/m, `slug: http-${tag}`);
     const { slug } = await createBlock(await loadCaller(await getEm(), people[0].id), { teamSlug: team, text });
-    const jar = new Jar();
+    const jar = new CookieJar();
     const res = await post(jar, "/api/auth/callback/password", { email: people[0].email, password: PASSWORD });
     expect(res.status).toBe(200);
     const setCookie = res.headers.getSetCookie().find((c) => c.startsWith("next-auth.session-token="));
@@ -82,7 +69,7 @@ describe("sign-in over HTTP", () => {
 
   it("refuses a wrong password with our message", async () => {
     const { people } = await makeTeam(["viewer"]);
-    const jar = new Jar();
+    const jar = new CookieJar();
     const res = await post(jar, "/api/auth/callback/password", { email: people[0].email, password: "wrong wrong" });
     expect(res.status).toBe(401);
     const { url } = (await res.json()) as { url: string };
@@ -96,10 +83,10 @@ describe("sign-in over HTTP", () => {
     const token = linkIn(mailsTo(people[0].email)[0]).searchParams.get("token")!;
     const page = await fetch(`${app.url}/sign-in/link?token=${token}`);
     expect(page.status).toBe(200); // opening the page does not use the link up
-    const jar = new Jar();
+    const jar = new CookieJar();
     expect((await post(jar, "/api/auth/callback/link", { token })).status).toBe(200);
     expect((await session(jar)).user?.email).toBe(people[0].email);
-    const again = new Jar();
+    const again = new CookieJar();
     expect((await post(again, "/api/auth/callback/link", { token })).status).toBe(401);
     expect((await session(again)).user).toBeUndefined();
   });

@@ -6,6 +6,7 @@ import { createBlock } from "@/lib/blocks/create";
 import { createToken } from "@/lib/tokens/tokens";
 import { closeOrm, getEm } from "@/lib/db/orm";
 import { startApp, type AppServer } from "../support/app-server";
+import { CookieJar } from "../support/cookie-jar";
 import { PASSWORD, makeTeam } from "./auth-fixtures";
 
 // The built app over HTTP, with forms submitted as a browser without JavaScript does (React renders each server
@@ -19,17 +20,7 @@ afterAll(async () => {
   await closeOrm();
 });
 
-class Browser {
-  cookies = new Map<string, string>();
-  header = () => [...this.cookies].map(([k, v]) => `${k}=${v}`).join("; ");
-  take(res: Response) {
-    for (const line of res.headers.getSetCookie()) {
-      const [pair] = line.split(";");
-      const i = pair.indexOf("=");
-      if (pair.slice(i + 1) === "" || /Max-Age=0/i.test(line) || /Expires=Thu, 01 Jan 1970/i.test(line)) this.cookies.delete(pair.slice(0, i));
-      else this.cookies.set(pair.slice(0, i), pair.slice(i + 1));
-    }
-  }
+class Browser extends CookieJar {
   async get(path: string): Promise<Response> {
     const res = await fetch(`${app.url}${path}`, { headers: { cookie: this.header() }, redirect: "manual" });
     this.take(res);
