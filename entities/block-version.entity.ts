@@ -1,15 +1,10 @@
 import { EntitySchema, type Opt } from "@mikro-orm/core";
 import type { Block } from "./block.entity";
+import type { ParamSpec } from "@/checks";
 import type { User } from "./user.entity";
 
-export interface StoredParam {
-  name: string;
-  value: string;
-  tol?: string;
-  note?: string;
-  si: number;
-  unit: string;
-}
+/** A parameter as the engine parsed it, less its line in the file (the file is stored beside it). */
+export type StoredParam = Omit<ParamSpec, "line">;
 
 // Immutable: a change of anything is a new version with the next number.
 export interface BlockVersion {
