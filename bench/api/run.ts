@@ -1,10 +1,12 @@
 // npm run bench:api — throughput and tail latency of the block read routes against a bare route handler.
 // Everything runs on loopback: a throwaway PostgreSQL, the local search server and `next start` on free ports.
+import { randomBytes } from "node:crypto";
 import { readdirSync, readFileSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import autocannon from "autocannon";
 import { withBenchServices } from "../support/services";
+import { measurePage } from "./page-timing";
 
 const DURATION_S = Number(process.env.BENCH_DURATION ?? 4);
 const ROUNDS = Number(process.env.BENCH_ROUNDS ?? 3);
@@ -24,6 +26,8 @@ async function measure(url: string, headers: Record<string, string>, expectStatu
   return { rps: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, non2xx: wrong + r.errors + r.timeouts };
 }
 
+let cookie = "";
+
 async function seed(token: { set: (t: string) => void }) {
   const { getEm } = await import("../../lib/db/orm");
   const { TeamSchema, UserSchema, MembershipSchema } = await import("../../entities");
@@ -38,6 +42,9 @@ async function seed(token: { set: (t: string) => void }) {
   em.create(MembershipSchema, { user, team, role: "author" });
   await em.flush();
   const caller = await loadCaller(await getEm(), user.id);
+  const { sessionCookieFor } = await import("../../lib/auth/session-token");
+  const c = await sessionCookieFor(user, new Date());
+  cookie = `${c.name}=${c.value}`;
   const dir = path.resolve("content/blocks");
   let stored = 0;
   for (const f of readdirSync(dir).filter((n) => n.endsWith(".md"))) {
@@ -55,6 +62,7 @@ async function seed(token: { set: (t: string) => void }) {
 }
 
 async function main() {
+  process.env.NEXTAUTH_SECRET ??= randomBytes(32).toString("base64url");
   await withBenchServices("api", async ({ startApp }) => {
     let token = "";
     const { stored, indexed } = await seed({ set: (t) => (token = t) });
@@ -66,6 +74,7 @@ async function main() {
 
     const targets: [string, string, Record<string, string>, number][] = [
       ["bare handler (constant)", "/api/v1/bench/constant", {}, 200],
+      ["refused path (404, no db)", "/api/v1/blocks/Not_A_Slug", {}, 404],
       [`GET /blocks/{slug} (head)`, `/api/v1/blocks/${SLUG}`, auth, 200],
       [`GET /blocks/{slug}/versions/1`, `/api/v1/blocks/${SLUG}/versions/1`, auth, 200],
       [`same, If-None-Match → 304`, `/api/v1/blocks/${SLUG}/versions/1`, { ...auth, "If-None-Match": etag }, 304],
@@ -93,6 +102,22 @@ async function main() {
       console.log(
         `${name.padEnd(32)} ${f.rps.toFixed(0).padStart(7)} ${f.p50.toFixed(1).padStart(9)} ${f.p99.toFixed(1).padStart(8)} ` +
           `${(f.rps / bare.rps).toFixed(3).padStart(14)} ${(f.p99 / Math.max(bare.p99, 1)).toFixed(1).padStart(12)} ${String(f.non2xx).padStart(5)}`,
+      );
+    }
+    // The library page a person lands on while searching (server-rendered with ?q=), signed in.
+    const pages: [string, string][] = [["library page /?q=low-pass", "/?q=low-pass"], ["library page / (no query)", "/"]];
+    for (const [, p] of pages) await measurePage(`${app.url}${p}`, { Cookie: cookie }, 2, 1);
+    const pageRuns = pages.map(() => [] as Awaited<ReturnType<typeof measurePage>>[]);
+    for (let round = 0; round < ROUNDS; round++) {
+      for (const [i, [, p]] of pages.entries()) pageRuns[i].push(await measurePage(`${app.url}${p}`, { Cookie: cookie }, CONNECTIONS, DURATION_S));
+    }
+    console.log("page                             requests  TTFB p50 ms  TTFB p99 ms  full p50 ms   bad");
+    for (const [i, [name]] of pages.entries()) {
+      const fs = pageRuns[i];
+      const m = (k: "ttfbP50" | "ttfbP99" | "fullP50") => median(fs.map((f) => f[k]));
+      console.log(
+        `${name.padEnd(32)} ${String(median(fs.map((f) => f.requests))).padStart(8)} ${m("ttfbP50").toFixed(1).padStart(12)} ` +
+          `${m("ttfbP99").toFixed(1).padStart(12)} ${m("fullP50").toFixed(1).padStart(12)} ${String(fs.reduce((a, f) => a + f.bad, 0)).padStart(5)}`,
       );
     }
     console.log(`load average during the run: ${os.loadavg().map((x) => x.toFixed(1)).join(" ")} on ${os.cpus().length} cores`);
