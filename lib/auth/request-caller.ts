@@ -1,3 +1,4 @@
+import type { EntityManager } from "@mikro-orm/postgresql";
 import { getToken } from "next-auth/jwt";
 import { withEm } from "@/lib/db/orm";
 import { AppError } from "@/lib/errors";
@@ -41,18 +42,26 @@ export async function sessionClaims(cookieHeader: string | null | undefined): Pr
  * Works on any WHATWG Request (route handlers, tests), not only inside Next.
  */
 export async function callerFromRequest(req: Request): Promise<Caller> {
+  return withEm((em) => callerFromRequestWith(em, req));
+}
+
+/** The same, reading through the request's own EntityManager (lib/context.ts). */
+export async function callerFromRequestWith(em: EntityManager, req: Request): Promise<Caller> {
   const auth = req.headers.get("authorization");
   if (auth) {
     const m = /^Bearer\s+(\S+)\s*$/i.exec(auth);
     if (!m) throw new AppError("unauthenticated", "the Authorization header must be 'Bearer <token>'");
-    const token = m[1];
-    return withEm((em) => findTokenCaller(em, token));
+    return findTokenCaller(em, m[1]);
   }
-  return callerFromCookieHeader(req.headers.get("cookie"));
+  return callerFromCookieWith(em, req.headers.get("cookie"));
 }
 
 export async function callerFromCookieHeader(cookieHeader: string | null | undefined): Promise<Caller> {
+  return withEm((em) => callerFromCookieWith(em, cookieHeader));
+}
+
+export async function callerFromCookieWith(em: EntityManager, cookieHeader: string | null | undefined): Promise<Caller> {
   const claims = await sessionClaims(cookieHeader);
   if (claims === null) return anonymous;
-  return withEm((em) => loadSessionCaller(em, claims));
+  return loadSessionCaller(em, claims);
 }

@@ -1,35 +1,29 @@
 import { UniqueConstraintViolationException } from "@mikro-orm/core";
+import type { EntityManager } from "@mikro-orm/postgresql";
 import { withParams } from "@/checks";
 import { BlockSchema, TeamSchema, type Team } from "@/entities";
 import type { Caller } from "@/lib/auth/caller";
 import { assertCan, can } from "@/lib/auth/permissions";
-import { getEm } from "@/lib/db/orm";
+import type { Ctx } from "@/lib/context";
 import { AppError } from "@/lib/errors";
+import type { ForkInput } from "@/lib/validation/blocks";
 import { engineInputError, loadBlock, loadVersion, parseOrThrow, requireUser } from "./common";
 import { storeVersion, type StoredResult } from "./store";
 
-export interface ForkInput {
-  fromVersion?: number;
-  slug?: string;
-  title?: string;
-  params?: Record<string, string>;
-  /** Team slug of the fork; by default the source's team when the caller may create there. */
-  team?: string;
-}
+export type { ForkInput };
 
 /** A new block that starts from one version of another, optionally with new values and title; records forkedFrom. */
-export async function forkBlock(caller: Caller, slug: string, input: ForkInput = {}): Promise<StoredResult> {
+export async function forkBlock({ em, caller }: Ctx, input: ForkInput): Promise<StoredResult> {
   const user = requireUser(caller);
-  const em = await getEm();
-  const source = await loadBlock(em, caller, slug);
+  const source = await loadBlock(em, caller, input.source);
   const from = await loadVersion(em, source, input.fromVersion);
-  const team = await targetTeam(caller, source.team, input.team);
+  const team = await targetTeam(em, caller, source.team, input.team);
   assertCan(caller, "block.fork", { kind: "team", teamId: team.id });
-  const newSlug = input.slug ? String(input.slug) : await freeSlug(source.slug);
+  const newSlug = input.slug ?? (await freeSlug(em, source.slug));
 
   let text: string;
   try {
-    text = withParams(from.text, input.params ?? {}, { slug: newSlug, ...(input.title ? { title: String(input.title) } : {}) });
+    text = withParams(from.text, input.params ?? {}, { slug: newSlug, ...(input.title ? { title: input.title } : {}) });
   } catch (err) {
     throw engineInputError(err);
   }
@@ -56,20 +50,19 @@ export async function forkBlock(caller: Caller, slug: string, input: ForkInput =
   }
 }
 
-async function targetTeam(caller: Caller, sourceTeam: Team, wanted?: string): Promise<Team> {
+async function targetTeam(em: EntityManager, caller: Caller, sourceTeam: Team, wanted?: string): Promise<Team> {
   if (wanted) {
-    const team = await (await getEm()).findOne(TeamSchema, { slug: String(wanted) });
+    const team = await em.findOne(TeamSchema, { slug: wanted });
     if (!team) throw new AppError("not_found", `no team "${wanted}"`);
     return team;
   }
   if (can(caller, "block.fork", { kind: "team", teamId: sourceTeam.id })) return sourceTeam;
   const mine = caller.memberships.find((m) => can(caller, "block.fork", { kind: "team", teamId: m.teamId }));
   if (!mine) throw new AppError(caller.user ? "forbidden" : "unauthenticated", "you may not create blocks in any team");
-  return (await (await getEm()).findOneOrFail(TeamSchema, { id: mine.teamId }));
+  return em.findOneOrFail(TeamSchema, { id: mine.teamId });
 }
 
-async function freeSlug(base: string): Promise<string> {
-  const em = await getEm();
+async function freeSlug(em: EntityManager, base: string): Promise<string> {
   const stem = base.slice(0, 90);
   for (let i = 1; i < 1000; i++) {
     const candidate = i === 1 ? `${stem}-fork` : `${stem}-fork-${i}`;

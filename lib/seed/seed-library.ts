@@ -6,6 +6,7 @@ import { loadCaller } from "@/lib/auth/load-caller";
 import { setVisibility } from "@/lib/blocks/archive";
 import { createBlock } from "@/lib/blocks/create";
 import { forkBlock } from "@/lib/blocks/fork";
+import { contextFor } from "@/lib/context";
 import { addVersion } from "@/lib/blocks/versions";
 import { decide } from "@/lib/reviews/reviews";
 
@@ -52,7 +53,7 @@ export async function seedLibrary(em: EntityManager): Promise<{ created: number 
     if (await exists(slug)) await setVisibility(maintainer, slug, "public");
   }
   if ((await exists(FORK.from)) && !(await exists(FORK.slug))) {
-    await forkBlock(author, FORK.from, { slug: FORK.slug, title: FORK.title, params: FORK.params });
+    await forkBlock(await contextFor(author), { source: FORK.from, slug: FORK.slug, title: FORK.title, params: FORK.params });
     created++;
   }
   const retuned = await em.fork().findOne(BlockSchema, { slug: RETUNE.slug }, { populate: ["head"] });

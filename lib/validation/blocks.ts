@@ -35,6 +35,28 @@ export const forkBodySchema = z.strictObject({
   team: teamSlugSchema.optional().meta({ description: "Team that owns the fork (default: the caller's team)" }),
 });
 
+/** What forkBlock takes: the API body plus the source block's slug from the path or the form. */
+export const forkInputSchema = forkBodySchema.extend({ source: slugSchema });
+
+/** The fork page's form: save the values on screen as a fork or as the next version of this block. */
+export const retuneFormSchema = z.object({
+  source: slugSchema,
+  fromVersion: versionNumberSchema,
+  saveAs: z.enum(["fork", "version"]),
+  newSlug: slugSchema.optional().or(z.literal("")),
+  title: z.string().trim().max(200).optional(),
+  team: z.string().trim().max(64).optional(),
+  message: z.string().trim().max(2000).optional(),
+  params: z.string().transform((s, ctx) => {
+    try {
+      return JSON.parse(s) as unknown;
+    } catch {
+      ctx.addIssue({ code: "custom", message: "the parameter values could not be read" });
+      return z.NEVER;
+    }
+  }).pipe(paramValuesSchema),
+});
+
 export const evaluateBodySchema = z.strictObject({
   params: paramValuesSchema.default({}),
   simulate: z.boolean().optional().meta({ description: "Run the simulations too; without it simulated checks are skipped" }),
@@ -77,6 +99,8 @@ export const searchQuerySchema = z.object({
 
 export type NewVersionJson = z.infer<typeof newVersionJsonSchema>;
 export type ForkBody = z.infer<typeof forkBodySchema>;
+export type ForkInput = z.infer<typeof forkInputSchema>;
+export type RetuneForm = z.infer<typeof retuneFormSchema>;
 export type EvaluateBody = z.infer<typeof evaluateBodySchema>;
 export type RetuneBody = z.infer<typeof retuneBodySchema>;
 export type SearchQuery = z.infer<typeof searchQuerySchema>;

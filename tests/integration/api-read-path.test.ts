@@ -5,6 +5,7 @@ import { anonymous } from "@/lib/auth/caller";
 import { archiveBlock } from "@/lib/blocks/archive";
 import { createBlock } from "@/lib/blocks/create";
 import { forkBlock } from "@/lib/blocks/fork";
+import { contextFor } from "@/lib/context";
 import { getBlock, getBlockWithLineage, getLineage } from "@/lib/blocks/read";
 import { addVersion } from "@/lib/blocks/versions";
 import { getEm } from "@/lib/db/orm";
@@ -62,7 +63,7 @@ describe("block read path", () => {
     expect((await getBlock(callers.maintainer, slug, 1)).approved).toBe(true);
     await fresh("approved");
 
-    const fork = await forkBlock(callers.author, slug, { slug: `etag-fork-${tag}` });
+    const fork = await forkBlock(await contextFor(callers.author), { source: slug, slug: `etag-fork-${tag}` });
     await fresh("forked");
     const forkEtag = await etagOf(callers.maintainer, fork.slug);
 
@@ -81,7 +82,7 @@ describe("block read path", () => {
     const slug = `who-${tag}`;
     await createBlock(callers.author, { teamSlug: team.slug, text: rcBlock(slug), visibility: "public" });
     const before = await etagOf(anonymous, slug);
-    await forkBlock(callers.author, slug, { slug: `who-fork-${tag}` });
+    await forkBlock(await contextFor(callers.author), { source: slug, slug: `who-fork-${tag}` });
     const member = await getBlockWithLineage(callers.author, slug);
     const visitor = await getBlockWithLineage(anonymous, slug);
     expect(member.lineage.forks.map((f) => f.slug)).toEqual([`who-fork-${tag}`]);

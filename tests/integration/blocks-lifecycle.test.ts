@@ -6,6 +6,7 @@ import { CheckRunSchema, OutboxEventSchema } from "@/entities";
 import { compareVersions } from "@/lib/blocks/compare";
 import { createBlock } from "@/lib/blocks/create";
 import { forkBlock } from "@/lib/blocks/fork";
+import { contextFor } from "@/lib/context";
 import { getBlock, getLineage, listVersions, spiceDeckText } from "@/lib/blocks/read";
 import { addVersion } from "@/lib/blocks/versions";
 import { closeOrm, getEm } from "@/lib/db/orm";
@@ -39,7 +40,7 @@ describe("create, fork, run, badge", () => {
     expect(waves[0].series.map((s) => s.node)).toContain("out");
 
     // Rf = 18 k: A = 1 + Rf/Rg = 2.8 and loop gain A/3 = 0.933 < 1 (Barkhausen; Sedra & Smith, 7th ed., Wien bridge, from memory).
-    const fork = await forkBlock(team.author, slug, { slug: `${slug}-low`, params: { Rf: "18 kohm" }, title: "Wien fixture, gain 2.8" });
+    const fork = await forkBlock(await contextFor(team.author), { source: slug, slug: `${slug}-low`, params: { Rf: "18 kohm" }, title: "Wien fixture, gain 2.8" });
     expect(fork.version).toBe(1);
     await drain(team);
     const forked = await getBlock(team.author, fork.slug);
@@ -65,7 +66,7 @@ describe("create, fork, run, badge", () => {
     // Three-section RC ladder: the inverting amplifier needs |A| = Rf/R >= 29 (Sedra & Smith, 7th ed., phase-shift oscillator, from memory).
     const slug = `phase-${team.tag}`;
     await createBlock(team.author, { teamSlug: team.slug, text: contentBlock("rc-phase-shift-oscillator.md", slug) });
-    const fork = await forkBlock(team.author, slug, { slug: `${slug}-270k`, params: { Rf: "270 kohm" } });
+    const fork = await forkBlock(await contextFor(team.author), { source: slug, slug: `${slug}-270k`, params: { Rf: "270 kohm" } });
     await drain(team);
     expect((await getBlock(team.viewer, slug)).badge).toBe("verified");
     const f = await getBlock(team.viewer, fork.slug);
@@ -80,7 +81,7 @@ describe("versions, lineage and comparison", () => {
   it("numbers versions, moves the head forward, tells a fork its parent moved on, and compares", async () => {
     const slug = `wien2-${team.tag}`;
     await createBlock(team.author, { teamSlug: team.slug, text: wienFixture(slug) });
-    const fork = await forkBlock(team.author, slug, {});
+    const fork = await forkBlock(await contextFor(team.author), { source: slug });
     expect(fork.slug).toBe(`${slug}-fork`);
     const v2 = await addVersion(team.author, slug, { params: { Rf: "18 kohm" }, baseVersion: 1, message: "lower gain" });
     expect(v2.version).toBe(2);

@@ -1,8 +1,8 @@
 import { mediaType, readJson } from "@/lib/api/body";
 import { created } from "@/lib/api/created";
 import { pathParams, route } from "@/lib/api/handler";
-import { callerFromRequest } from "@/lib/auth/request-caller";
 import { forkBlock } from "@/lib/blocks/fork";
+import { requestContext } from "@/lib/context";
 import { slugParamsSchema } from "@/lib/validation/api";
 import { forkBodySchema } from "@/lib/validation/blocks";
 
@@ -13,7 +13,6 @@ const hasBody = (req: Request) => req.headers.has("content-type") || Number(req.
 // The body is optional: a bare POST forks the head into the caller's team under a derived slug.
 export const POST = route<{ slug: string }>(async (req, params) => {
   const { slug } = pathParams(slugParamsSchema, params);
-  const input = hasBody(req) || mediaType(req) ? forkBodySchema.parse(await readJson(req)) : {};
-  const caller = await callerFromRequest(req);
-  return created(req, await forkBlock(caller, slug, input));
+  const body = hasBody(req) || mediaType(req) ? forkBodySchema.parse(await readJson(req)) : {};
+  return created(req, await forkBlock(await requestContext(req), { ...body, source: slug }));
 });
