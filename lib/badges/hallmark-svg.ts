@@ -79,17 +79,21 @@ function hexPath(w: number, d: number): string {
   ].join(" ");
 }
 
-/** A small scalloped seal in ink with a tick: approval is a separate mark, struck beside the state. */
-function seal(cx: number): string {
-  const cy = H / 2;
-  const pts: string[] = [];
-  for (let i = 0; i < 24; i++) {
-    const a = (Math.PI * 2 * i) / 24;
-    const r = i % 2 === 0 ? 9 : 7.6;
-    pts.push(`${(cx + r * Math.sin(a)).toFixed(2)} ${(cy - r * Math.cos(a)).toFixed(2)}`);
-  }
-  return `<g class="seal"><path d="M${pts.join(" L")} Z" fill="${INK}"/><circle cx="${cx}" cy="${cy}" r="5.6" fill="none" stroke="#fff" stroke-width="0.8"/>${check(cx + 0.4, cy + 0.3, "#fff")}</g>`;
+/**
+ * The approval seal: an ink countermark struck beside the state, as an assay office strikes its sponsor's mark:
+ * a rounded-square cartouche, double-ruled, holding a serif "A". No rays, no scallops, no tick.
+ */
+function seal(x: number): string {
+  const s = H - 2;
+  const y = 1;
+  return `<g class="seal"><rect x="${x}" y="${y}" width="${s}" height="${s}" rx="3.5" fill="#fffdf8" stroke="${INK}" stroke-width="1.4"/>` +
+    `<rect x="${x + 2.6}" y="${y + 2.6}" width="${s - 5.2}" height="${s - 5.2}" rx="1.6" fill="none" stroke="${INK}" stroke-width="0.7"/>` +
+    `<text x="${x + s / 2}" y="${y + s / 2 + 4.4}" text-anchor="middle" font-size="12.5" font-weight="600" fill="${INK}" font-family="Literata, Georgia, serif">A</text></g>`;
 }
+
+// Every mark has the same width (the longest word and a three-digit version), so a column of marks aligns.
+const WORD_SLOT = textWidth("unchecked");
+const VERSION_SLOT = textWidth("v999", 6.8) + 4;
 
 export function hallmarkSvg({ badge, version, approved = false, idPrefix = "hm" }: HallmarkInput): string {
   const look = LOOKS[badge] ?? LOOKS.unchecked;
@@ -97,11 +101,10 @@ export function hallmarkSvg({ badge, version, approved = false, idPrefix = "hm" 
   const ver = version == null ? "" : `v${version}`;
   const glyphX = POINT + 7;
   const wordX = glyphX + 9;
-  const wordW = textWidth(word);
-  const verX = wordX + wordW + 9;
-  const verW = ver ? textWidth(ver, 6.8) : 0;
-  const w = Math.ceil((ver ? verX + verW : wordX + wordW) + POINT + 3);
-  const total = approved ? w + 22 : w;
+  const verX = wordX + WORD_SLOT + 9;
+  const verW = Math.max(VERSION_SLOT, ver ? textWidth(ver, 6.8) : 0);
+  const w = Math.ceil(verX + verW + POINT + 3);
+  const total = approved ? w + 4 + H - 2 : w;
   const label = `assay ${word}${ver ? `, version ${version}` : ""}${approved ? ", approved" : ""}`;
   const hatchId = `${idPrefix}-hatch`;
   const defs = look.hatch
@@ -115,7 +118,7 @@ export function hallmarkSvg({ badge, version, approved = false, idPrefix = "hm" 
   const text = `font-size="11" fill="${look.ink}"`;
   const sans = `font-family="Inter, 'DejaVu Sans', Verdana, sans-serif"`;
   const rule = ver ? `<path d="M${verX - 5} 6 V${H - 6}" stroke="${look.ink}" stroke-opacity="0.6" stroke-width="0.8"/>` : "";
-  const verText = ver ? `<text x="${verX}" y="15" ${text} font-family="'IBM Plex Mono', 'DejaVu Sans Mono', monospace">${esc(ver)}</text>` : "";
+  const verText = ver ? `<text x="${verX + verW / 2}" text-anchor="middle" y="15" ${text} font-family="'IBM Plex Mono', 'DejaVu Sans Mono', monospace">${esc(ver)}</text>` : "";
   return [
     `<svg xmlns="http://www.w3.org/2000/svg" width="${total}" height="${H}" viewBox="0 0 ${total} ${H}" role="img" aria-label="${esc(label)}" data-badge="${esc(word)}">`,
     `<title>${esc(label)}</title>`,
@@ -126,7 +129,7 @@ export function hallmarkSvg({ badge, version, approved = false, idPrefix = "hm" 
     `<text x="${wordX}" y="15" ${text} ${sans} font-weight="600" letter-spacing="0.2">${esc(word)}</text>`,
     rule,
     verText,
-    approved ? seal(w + 11) : "",
+    approved ? seal(w + 4) : "",
     "</svg>",
   ].join("");
 }

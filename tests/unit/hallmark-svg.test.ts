@@ -41,6 +41,18 @@ describe("the hallmark SVG", () => {
     expect(w(approved)).toBeGreaterThan(w(hallmarkSvg({ badge: "verified", version: 7 })));
   });
 
+  it("has one width for every state and for one- to three-digit versions, so a column of marks aligns", () => {
+    const w = (s: string) => Number(parser.parse(s).svg.width);
+    const widths = STATES.flatMap((badge) => [1, 42, 999, null].map((version) => w(hallmarkSvg({ badge, version }))));
+    expect(new Set(widths).size).toBe(1);
+  });
+
+  it("strikes the seal as a cartouche, not a rayed or scalloped rosette with a tick", () => {
+    const seal = hallmarkSvg({ badge: "verified", version: 7, approved: true }).match(/<g class="seal">.*?<\/g>/)![0];
+    expect(seal).toMatch(/<rect /);
+    expect(seal).not.toMatch(/<path/);
+  });
+
   it("keeps pattern ids apart when several marks share a page", () => {
     expect(hallmarkSvg({ badge: "stale", version: 1, idPrefix: "a" })).toContain('id="a-hatch"');
     expect(hallmarkSvg({ badge: "stale", version: 1, idPrefix: "b" })).toContain("url(#b-hatch)");
