@@ -1,5 +1,4 @@
 import { appUrl } from "@/lib/auth/config";
-import { Panel } from "./block/panel";
 
 /**
  * The API panel of the block page: ready `curl` lines for this block. The token stays a shell variable
@@ -21,8 +20,11 @@ export function ApiPanel({ slug, version, isHead = true, visibility, baseUrl = a
     { label: "The block file", cmd: `curl -s ${auth} "${api}/versions/${version}?format=md"` },
   ];
   return (
-    <Panel title="API">
-      <ul className="space-y-2">
+    <details className="group rounded border border-rule bg-panel p-3" data-testid="api-panel">
+      <summary className="cursor-pointer text-xs font-semibold uppercase tracking-wide text-graphite">
+        API <span className="font-normal normal-case tracking-normal">· curl lines for scripts and the README badge</span>
+      </summary>
+      <ul className="mt-2 space-y-2">
         {lines.map((l) => (
           <li key={l.label}>
             <p className="text-xs text-graphite">{l.label}</p>
@@ -40,6 +42,6 @@ export function ApiPanel({ slug, version, isHead = true, visibility, baseUrl = a
       <p className="mt-2 text-xs">
         <a className="text-copper-dark underline" href="/api-docs">API reference</a> · <a className="text-copper-dark underline" href="/api/v1/openapi.json">OpenAPI document</a>
       </p>
-    </Panel>
+    </details>
   );
 }

@@ -49,7 +49,7 @@ export function BlockTable({ rows, caption, compact = false }: { rows: BlockRow[
               <td className="px-3 py-2 align-top"><Hallmark badge={b.badge} version={b.version} approved={b.approved} id={`row-${b.slug}`} /></td>
               <td className={`${wide} px-3 py-2 align-top`}>{b.category}</td>
               <td className={`${wider} px-3 py-2 align-top`}>{b.team}</td>
-              <td className={`${wider} whitespace-nowrap px-3 py-2 align-top font-mono text-xs`}>{when(b.updatedAt)}</td>
+              <td className={`${wider} whitespace-nowrap px-3 py-2 align-top text-xs tabular-nums`}>{when(b.updatedAt)}</td>
             </tr>
           ))}
         </tbody>

@@ -17,6 +17,7 @@ import { AttachmentsPanel } from "./attachments-panel";
 import { BlockActions } from "./block-actions";
 import { HistoryPanel } from "./history-panel";
 import { LineagePanel } from "./lineage-panel";
+import { LiveBadgeProvider } from "./live-badge";
 import { Panel } from "./panel";
 import { RunPlots } from "./run-plots";
 import { RunWatcher } from "./run-watcher";
@@ -47,7 +48,7 @@ export async function BlockView({ caller, slug, version }: { caller: Caller; slu
           <Link href="/" className="hover:underline">Library</Link> / {block.category} / <span className="font-mono">{block.slug}</span>
         </p>
         <h1 className="font-serif text-3xl font-semibold leading-tight">{block.title}</h1>
-        <div className="flex flex-wrap items-center gap-x-5 gap-y-2">
+        <LiveBadgeProvider><div className="flex flex-wrap items-center gap-x-5 gap-y-2">
           <RunWatcher runId={block.runId} runStatus={block.runStatus} badge={block.badge} version={block.version} approved={block.approved} />
           <VersionPicker slug={slug} versions={versions} current={block.version} head={block.headVersion} />
           <span className="text-sm text-graphite">team <span className="font-medium text-ink">{block.team}</span> · by {block.author}</span>
@@ -57,7 +58,7 @@ export async function BlockView({ caller, slug, version }: { caller: Caller; slu
               {lineage.parentNewerVersions > 0 ? `; parent has ${lineage.parentNewerVersions} newer version${lineage.parentNewerVersions === 1 ? "" : "s"}` : ""}
             </span>
           ) : null}
-        </div>
+        </div></LiveBadgeProvider>
         {!isHead ? (
           <p className="rounded border border-ochre/60 bg-[#fff8e8] px-3 py-1 text-sm">
             You are reading v{block.version}; the head is <Link className="underline" href={`/blocks/${slug}`}>v{block.headVersion}</Link>.

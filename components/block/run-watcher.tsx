@@ -3,6 +3,7 @@ import { useRouter } from "next/navigation";
 import { useEffect } from "react";
 import { Hallmark } from "@/components/hallmark";
 import { useRun } from "@/lib/queries/run";
+import { useLiveBadge } from "./live-badge";
 
 /** While a version's run is queued or running, poll it; once it settles, reload the page with the stored report. */
 export function RunWatcher({ runId, runStatus, badge, version, approved }: {
@@ -16,6 +17,10 @@ export function RunWatcher({ runId, runStatus, badge, version, approved }: {
     if (open && settled) router.refresh();
   }, [open, settled, router]);
   const shown = open && run.data ? run.data.badge : badge;
+  const live = useLiveBadge();
+  useEffect(() => {
+    if (live.badge !== shown) live.set(shown);
+  }, [live, shown]);
   return (
     <span className="inline-flex items-center gap-2" aria-live="polite" data-testid="block-badge" data-badge={shown} data-run-open={String(open)}>
       <Hallmark badge={shown} version={version} approved={approved} id="block-mark" />

@@ -92,8 +92,8 @@ describe("the library in a browser", () => {
     await settle(page, "07-retune-assistant", errors);
     await retune.saveAsVersion(FORK, "gain back to 10 with the retune assistant");
     await block.waitForBadge("verified");
-    await page.getByRole("button", { name: "Ask for review" }).click();
-    await page.getByText("Review requested from the team's maintainers.").waitFor();
+    await page.getByRole("button", { name: "Request sign-off" }).click();
+    await page.getByText("Sign-off requested from the team's maintainers.").waitFor();
     await settle(page, "08-fork-retuned-verified", errors);
   });
 
@@ -116,7 +116,7 @@ describe("the library in a browser", () => {
     await page.getByRole("cell", { name: "Rf" }).or(page.getByRole("rowheader", { name: "Rf" })).first().waitFor();
     await settle(page, "11-compare", errors);
     await page.goto(`/blocks/${FORK}/runs`);
-    expect(await page.getByTestId("run-history").locator("tbody tr").count()).toBeGreaterThanOrEqual(2);
+    expect(await page.getByTestId("run-history").getByTestId("run-entry").count()).toBeGreaterThanOrEqual(2);
     await settle(page, "12-runs", errors);
   });
 

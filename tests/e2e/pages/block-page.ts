@@ -31,7 +31,7 @@ export class BlockPage {
   }
 
   async fork(): Promise<void> {
-    await this.page.getByRole("link", { name: "Fork and retune" }).click();
+    await this.page.getByRole("link", { name: "Derive a variant" }).click();
     await this.page.getByTestId("live-preview").waitFor();
   }
 }

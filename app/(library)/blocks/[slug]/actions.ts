@@ -16,7 +16,7 @@ export async function toggleWatchAction(_prev: FormState, form: FormData): Promi
   let state: FormState;
   try {
     const res = parsed.data.watching === "true" ? await unwatch(caller, parsed.data.slug) : await watch(caller, parsed.data.slug);
-    state = { ok: true, message: res.watching ? "Watching: you get mail when its checks change." : "No longer watching." };
+    state = { ok: true, message: res.watching ? "Following: you get mail when its checks change." : "No longer following." };
   } catch (err) {
     return failure(err);
   }
@@ -31,7 +31,7 @@ export async function requestReviewAction(_prev: FormState, form: FormData): Pro
   if (!caller.user) return { ok: false, message: "Sign in to ask for a review." };
   try {
     const r = await requestReview(caller, parsed.data.slug, parsed.data.version);
-    return { ok: true, message: r.created ? "Review requested from the team's maintainers." : "A review of this version is already requested." };
+    return { ok: true, message: r.created ? "Sign-off requested from the team's maintainers." : "Sign-off of this version is already requested." };
   } catch (err) {
     return failure(err);
   }

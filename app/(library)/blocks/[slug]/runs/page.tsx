@@ -1,43 +1,40 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { duration, when } from "@/components/eng";
 import { EmptyState } from "@/components/empty-state";
-import { Hallmark } from "@/components/hallmark";
+import { RerunButton } from "@/components/runs/rerun-button";
+import { RunEntry } from "@/components/runs/run-entry";
 import { getCaller } from "@/lib/auth/session";
+import { getBlock } from "@/lib/blocks/read";
 import { listRuns } from "@/lib/runs/runs";
 import { orNotFound } from "../../../or-not-found";
 
-export const metadata: Metadata = { title: "Runs" };
+export const metadata: Metadata = { title: "Verification record" };
 export const dynamic = "force-dynamic";
 
 export default async function RunsPage({ params }: { params: Promise<{ slug: string }> }) {
   const { slug } = await params;
-  const runs = await orNotFound(listRuns(await getCaller(), slug));
+  const caller = await getCaller();
+  const [block, runs] = await Promise.all([orNotFound(getBlock(caller, slug)), orNotFound(listRuns(caller, slug))]);
+  const role = caller.memberships.find((m) => m.teamSlug === block.team)?.role;
+  const maintainer = role === "maintainer" || role === "admin";
+  // The button sits on each version's latest verification, and not while one is waiting or running.
+  const latest = new Set<string>();
+  const seen = new Set<number>();
+  for (const r of runs) if (!seen.has(r.version)) { seen.add(r.version); latest.add(r.id); }
   return (
     <div className="space-y-4">
-      <p className="text-sm"><Link href={`/blocks/${slug}`} className="text-copper-dark underline">{slug}</Link></p>
-      <h1 className="font-serif text-2xl font-semibold">Runs</h1>
-      <p className="max-w-prose text-sm text-graphite">Every check run of every version: new versions, engine or model-library changes and reruns.</p>
-      {runs.length === 0 ? <EmptyState title="No runs yet." /> : (
-        <div className="overflow-x-auto rounded border border-rule bg-panel">
-          <table className="w-full text-sm" data-testid="run-history">
-            <thead className="border-b border-rule text-left text-xs uppercase tracking-wide text-graphite">
-              <tr><th className="px-3 py-2">Version</th><th className="px-3 py-2">Result</th><th className="px-3 py-2">Why</th><th className="px-3 py-2">Started</th><th className="px-3 py-2 text-right">Duration</th><th className="hidden px-3 py-2 md:table-cell">Engine</th></tr>
-            </thead>
-            <tbody>
-              {runs.map((r) => (
-                <tr key={r.id} className="border-b border-rule/60 last:border-0">
-                  <td className="px-3 py-2"><Link className="font-mono text-copper-dark underline" href={`/blocks/${slug}/versions/${r.version}`}>v{r.version}</Link></td>
-                  <td className="px-3 py-2"><Hallmark badge={r.badge} version={r.version} id={`run-${r.id}`} /> <span className="ml-1 text-xs text-graphite">{r.status}{r.attempts > 1 ? ` · ${r.attempts} attempts` : ""}</span>{r.error ? <p className="text-xs text-plum">{r.error}</p> : null}</td>
-                  <td className="px-3 py-2">{r.trigger.replace(/-/g, " ")}</td>
-                  <td className="whitespace-nowrap px-3 py-2 font-mono text-xs">{when(r.startedAt ?? r.createdAt)}</td>
-                  <td className="px-3 py-2 text-right font-mono text-xs">{duration(r.durationMs)}</td>
-                  <td className="hidden px-3 py-2 font-mono text-xs md:table-cell">{r.engineVersion ?? "—"} · {r.ngspiceVersion ?? "—"}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+      <p className="text-sm"><Link href={`/blocks/${slug}`} className="text-copper-dark underline">{block.title}</Link></p>
+      <h1 className="font-serif text-2xl font-semibold">Verification record</h1>
+      <p className="max-w-prose text-sm text-graphite">
+        Each time the checks ran, newest first: for a new version, after an engine or model-file change, or because a maintainer asked.
+      </p>
+      {runs.length === 0 ? <EmptyState title="Not verified yet." /> : (
+        <ol className="relative max-w-3xl space-y-4 before:absolute before:bottom-2 before:left-[8px] before:top-2 before:w-px before:bg-rule" data-testid="run-history">
+          {runs.map((r) => (
+            <RunEntry key={r.id} slug={slug} run={r}
+              action={maintainer && latest.has(r.id) && (r.status === "done" || r.status === "error") ? <RerunButton slug={slug} version={r.version} /> : null} />
+          ))}
+        </ol>
       )}
     </div>
   );

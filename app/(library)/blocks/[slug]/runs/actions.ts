@@ -1,0 +1,24 @@
+"use server";
+import { revalidatePath } from "next/cache";
+import { z } from "zod";
+import { getCaller } from "@/lib/auth/session";
+import { getEm } from "@/lib/db/orm";
+import { rerunVersion } from "@/lib/runs/rerun";
+import { failure, type FormState } from "../../../form-state";
+
+const target = z.object({ slug: z.string().regex(/^[a-z0-9-]{1,100}$/), version: z.coerce.number().int().min(1) });
+
+/** A maintainer's "verify again" on the runs page. */
+export async function rerunAction(_prev: FormState, form: FormData): Promise<FormState> {
+  const parsed = target.safeParse(Object.fromEntries(form));
+  if (!parsed.success) return { ok: false, message: "Pick a version to verify again." };
+  const caller = await getCaller();
+  if (!caller.user) return { ok: false, message: "Sign in to verify again." };
+  try {
+    await rerunVersion({ em: await getEm(), caller }, parsed.data);
+  } catch (err) {
+    return failure(err);
+  }
+  revalidatePath(`/blocks/${parsed.data.slug}/runs`);
+  return { ok: true, message: `v${parsed.data.version} is queued to be verified again.` };
+}
