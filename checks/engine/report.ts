@@ -26,6 +26,8 @@ export function withCorners(
   detailAt: (corner: number) => string,
 ): CheckReport {
   const out: CheckReport = { label: nominal.label, status: nominal.status, detail: nominal.detail, line: nominal.line, simulated: nominal.simulated };
+  const compared = comparedOf(nominal.primary);
+  if (compared) out.compared = compared;
   if (nominal.simulated || nominal.status === "skipped" || corners.length === 0) return out;
   let worst = -1;
   atCorners.forEach((c, k) => {
@@ -55,6 +57,16 @@ export function withCorners(
     };
   }
   return out;
+}
+
+/** The nominal comparison in SI numbers; none when the value is not one finite number (a family, a boolean). */
+function comparedOf(p: CheckOutcome["primary"]): CheckReport["compared"] | undefined {
+  if (!p) return undefined;
+  const value = siOf(p.value);
+  const limits = p.limits.map(siOf);
+  if (!Number.isFinite(value) || !limits.every(Number.isFinite)) return undefined;
+  const target = p.target === undefined ? undefined : siOf(p.target);
+  return { quantity: p.label, unit: toQuantity(p.value)?.unit ?? "", value, limits, relations: p.relations ?? [], ...(target !== undefined ? { target } : {}) };
 }
 
 const describe = (label: Record<string, string>) => Object.entries(label).map(([k, v]) => `${k} ${v}`).join(", ");

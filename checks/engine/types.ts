@@ -9,6 +9,8 @@ export type CheckReport = {
   simulated: boolean;
   worst?: { corner: Record<string, string>; detail: string };
   corners?: { quantity: string; unit: string; values: number[]; nominal: number; limits: number[] };
+  /** What the check compared, in SI numbers, so a plot can draw it: the value, its limits (with `relations`), a near()'s target. */
+  compared?: { quantity: string; unit: string; value: number; limits: number[]; relations: string[]; target?: number };
 };
 
 export type Report = {
@@ -24,8 +26,8 @@ export type Waveform = {
   analysis: "tran" | "ac";
   x: number[];
   series: { node: string; values: number[]; phase?: number[] }[];
-  windows: { node: string; from: number; to: number; measure: string }[];
-  marks: { node: string; x: number; label: string }[];
+  windows: { node: string; from: number; to: number; measure: string; value?: number }[];
+  marks: { node: string; x: number; label: string; value?: number }[];
 };
 
 /** What the engine needs from the simulator side; the sandbox child wires in ngspice. */

@@ -21,13 +21,13 @@ function cornerMarks(res: SimResult, node: string): { node: string; x: number; l
   return bandPass ? [...tryAt("lower"), ...tryAt("upper")] : one;
 }
 
-export type PlotWindow = { node: string; from: number; to: number; measure: string };
+export type PlotWindow = { node: string; from: number; to: number; measure: string; value?: number };
 export type Waveform = {
   analysis: "tran" | "ac";
   x: number[];
   series: { node: string; values: number[]; phase?: number[] }[];
   windows: PlotWindow[];
-  marks: { node: string; x: number; label: string }[];
+  marks: { node: string; x: number; label: string; value?: number }[];
 };
 
 /**

@@ -20,8 +20,8 @@ export class SimHandle {
 export type SimHooks = {
   simulate: (analysis: Analysis) => { result: unknown; index: number };
   measure: (name: string, result: unknown, node: string, args: (number | string)[]) => number;
-  window: (index: number, w: { node: string; from: number; to: number; measure: string }) => void;
-  mark: (index: number, m: { node: string; x: number; label: string }) => void;
+  window: (index: number, w: { node: string; from: number; to: number; measure: string; value?: number }) => void;
+  mark: (index: number, m: { node: string; x: number; label: string; value?: number }) => void;
 };
 
 /** A number in SI from a script argument that should carry `unit` (a bare number is read as SI). */
@@ -101,8 +101,8 @@ export function builtins(hooks: SimHooks): Map<string, unknown> {
       if (rest.length !== spec.args.length) throw new Error(`${call} takes ${spec.args.length + 2} arguments`);
       const args = spec.args.map(([a, unit], k) => inUnit(rest[k], unit, `${name}() ${a}`));
       const value = hooks.measure(name, res.result, node, args);
-      if (spec.args[0]?.[0] === "from") hooks.window(res.index, { node, from: args[0], to: args[1], measure: name });
-      if (name === "gain_db" || name === "phase") hooks.mark(res.index, { node, x: args[0], label: name === "gain_db" ? "gain" : "phase" });
+      if (spec.args[0]?.[0] === "from") hooks.window(res.index, { node, from: args[0], to: args[1], measure: name, value });
+      if (name === "gain_db" || name === "phase") hooks.mark(res.index, { node, x: args[0], label: name === "gain_db" ? "gain" : "phase", value });
       if (name === "startup") hooks.mark(res.index, { node, x: value, label: "start-up" });
       return spec.unit ? (math.unit(value, spec.unit) as Unit) : value;
     });

@@ -8,7 +8,7 @@ export type Judged = {
   /** Signed distance from the limit, relative: > 0 passes, < 0 fails; ranks tolerance corners. */
   margin: number;
   /** The first compared quantity and its limits, for the corner plot. */
-  primary?: { label: string; value: unknown; limits: unknown[] };
+  primary?: { label: string; value: unknown; limits: unknown[]; relations?: string[]; target?: unknown };
 };
 
 const RELATIONS: Record<string, { sym: string; test: (a: unknown, b: unknown) => boolean; dir: 1 | -1 | 0 }> = {
@@ -27,7 +27,9 @@ const operands = new WeakMap<MathNode, { literal: boolean; label: string }>();
 type Primary = Judged["primary"];
 /** Limits on the same quantity (fc > 1.5 kHz and fc < 3 kHz) belong on one plot. */
 const merge = (a: Primary, b: Primary): Primary =>
-  a && b && a.label === b.label ? { ...a, limits: [...a.limits, ...b.limits] } : (a ?? b);
+  a && b && a.label === b.label
+    ? { ...a, limits: [...a.limits, ...b.limits], relations: [...(a.relations ?? []), ...(b.relations ?? [])], target: a.target ?? b.target }
+    : (a ?? b);
 
 const mark = (ok: boolean) => (ok ? "✓" : "✗");
 
@@ -120,7 +122,11 @@ export class ConditionJudge {
     const margin = rel.dir === 0 ? (ok ? 0 : -Math.abs(x - y) / scale) : (rel.dir * (x - y)) / scale;
     const left = this.operand(ln, a);
     const right = this.operand(rn, b);
-    const primary = left.literal && !right.literal ? { label: right.label, value: b, limits: [a] } : { label: left.label, value: a, limits: [b] };
+    // The quantity on the left of its limit either way round: `1.5 kHz < fc` reads as fc > 1.5 kHz.
+    const flip: Record<string, string> = { "<": ">", "≤": "≥", ">": "<", "≥": "≤" };
+    const primary = left.literal && !right.literal
+      ? { label: right.label, value: b, limits: [a], relations: [flip[rel.sym] ?? rel.sym] }
+      : { label: left.label, value: a, limits: [b], relations: [rel.sym] };
     return { ok, margin, text: this.text ? `${left.text} ${rel.sym} ${right.text} ${mark(ok)}` : "", primary };
   }
 
@@ -130,7 +136,7 @@ export class ConditionJudge {
     const left = this.operand(xn, x);
     const right = this.operand(tn, t);
     const margin = (r.tolAbs - Math.abs(r.x - r.target)) / (Math.abs(r.target) || r.tolAbs || 1);
-    const primary = { label: left.label, value: x, limits: [r.target - r.tolAbs, r.target + r.tolAbs] };
+    const primary = { label: left.label, value: x, limits: [r.target - r.tolAbs, r.target + r.tolAbs], relations: ["≥", "≤"], target: r.target };
     if (!this.text) return { ok: r.ok, margin, text: "", primary };
     const tolText = isUnit(tol) ? formatValue(tol) : `${formatValue((tol as number) * 100)}%`;
     const off = r.target !== 0 ? ` (off by ${formatValue((100 * (r.x - r.target)) / Math.abs(r.target), 2)}%)` : "";
