@@ -11,7 +11,7 @@ const MARK: Record<string, string> = { pass: "✓", fail: "✗", error: "!", ski
 function human(report: Report, file: string): string {
   const out = [`${file}: ${report.status.toUpperCase()}${report.slug ? ` (${report.slug})` : ""}`];
   const q = Object.entries(report.quantities);
-  if (q.length) out.push("", "quantities:", ...q.map(([k, v]) => `  ${k} = ${v.text}`));
+  if (q.length) out.push("", "quantities:", ...q.map(([k, v]) => `  ${k} = ${v.text}${v.simulated ? " [simulated]" : ""}`));
   if (report.checks.length) {
     out.push("", "checks:");
     for (const c of report.checks) {

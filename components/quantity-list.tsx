@@ -9,7 +9,10 @@ export function QuantityList({ quantities }: { quantities: Report["quantities"] 
       {rows.map(([name, q]) => (
         <div key={name} className="contents">
           <dt className="font-mono font-medium">{name}</dt>
-          <dd data-quantity={name}><Decimal text={q.text} /></dd>
+          <dd data-quantity={name}>
+            <Decimal text={q.text} />
+            {q.simulated && <span className="ml-2 text-xs text-graphite">simulated</span>}
+          </dd>
         </div>
       ))}
     </dl>

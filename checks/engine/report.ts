@@ -7,11 +7,11 @@ export { reportStatus } from "./status";
 
 export function quantitiesOf(scope: Map<string, unknown>, assigned: { name: string; simulated: boolean }[]): Report["quantities"] {
   const out: Report["quantities"] = {};
+  // Simulated measures are reported too, so the hand value and the simulation sit side by side.
   for (const { name, simulated } of assigned) {
-    if (simulated) continue;
     const q = toQuantity(scope.get(name));
     if (!q || !Number.isFinite(q.si)) continue;
-    out[name] = { value: q.si, unit: q.unit, text: formatQuantity(q.si, q.unit) };
+    out[name] = { value: q.si, unit: q.unit, text: formatQuantity(q.si, q.unit), ...(simulated ? { simulated: true as const } : {}) };
   }
   return out;
 }

@@ -16,7 +16,7 @@ export type CheckReport = {
 export type Report = {
   slug: string;
   status: "verified" | "failing" | "error" | "unchecked";
-  quantities: Record<string, { value: number; unit: string; text: string }>;
+  quantities: Record<string, { value: number; unit: string; text: string; simulated?: true }>;
   checks: CheckReport[];
   simulations: { analysis: "tran" | "ac" | "op"; points: number; ms: number; cached?: boolean }[];
   errors: BlockError[];

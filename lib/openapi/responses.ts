@@ -11,6 +11,7 @@ const quantity = z.object({
   value: z.number().meta({ description: "Plain number in the named unit, no prefix" }),
   unit: z.string().meta({ example: "Hz" }),
   text: z.string().meta({ example: "2.192 kHz" }),
+  simulated: z.literal(true).optional().meta({ description: "Measured on a simulation result rather than computed by hand" }),
 });
 
 const checkResult = z.object({

@@ -367,6 +367,11 @@ export interface components {
             }[];
             quantities: {
                 [key: string]: {
+                    /**
+                     * @description Measured on a simulation result rather than computed by hand
+                     * @enum {boolean}
+                     */
+                    simulated?: true;
                     /** @example 2.192 kHz */
                     text: string;
                     /** @example Hz */

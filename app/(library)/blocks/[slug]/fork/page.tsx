@@ -39,7 +39,7 @@ export default async function ForkPage({ params, searchParams }: {
         slug={slug}
         version={block.version}
         params={block.params}
-        quantities={Object.keys((block.report as { quantities?: Record<string, unknown> } | null)?.quantities ?? {})}
+        quantities={retunable((block.report as { quantities?: Record<string, { simulated?: boolean }> } | null)?.quantities)}
         baseValues={baseValues}
         head={{ version: head.version, values: Object.fromEntries(head.params.map((p) => [p.name, p.value])) }}
         preview={exactPreview ? "exact" : { headVersion: head.version }}
@@ -51,3 +51,7 @@ export default async function ForkPage({ params, searchParams }: {
     </div>
   );
 }
+
+// Retune solves hand formulas only: simulated quantities are not offered as targets.
+const retunable = (q: Record<string, { simulated?: boolean }> | undefined) =>
+  Object.entries(q ?? {}).filter(([, v]) => !v.simulated).map(([k]) => k);
