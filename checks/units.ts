@@ -3,6 +3,8 @@ import { isUnit, math } from "./script/math";
 
 // The unit names reports use (DESIGN.md "Reports and badges"), in the order a match is tried.
 const NAMED = ["s", "Hz", "V", "A", "ohm", "S", "F", "H", "W", "K", "dB", "deg"] as const;
+// Noise densities and spectra: V/√Hz is written V/Hz^0.5 (mathjs reads it back).
+const SPECTRAL = ["V/Hz^0.5", "A/Hz^0.5", "V^2/Hz", "A^2/Hz"];
 const COMPOUND_PARTS = ["V", "A", "s", "ohm", "S", "F", "H", "W", "K", "dB", "deg"];
 const PREFIXED = new Set(["s", "Hz", "V", "A", "ohm", "S", "F", "H", "W"]);
 const PREFIXES: [number, string][] = [
@@ -39,6 +41,7 @@ function nameFor(u: Unit): string {
   const d = u.dimensions;
   if (d.every((x) => x === 0)) return "";
   for (const n of NAMED) if (sameDims(d, dimsOf(n))) return n;
+  for (const n of SPECTRAL) if (sameDims(d, dimsOf(n))) return n;
   for (const a of COMPOUND_PARTS)
     for (const b of COMPOUND_PARTS)
       if (a !== b && sameDims(d, dimsOf(`${a}/${b}`))) return `${a}/${b}`;
@@ -56,6 +59,8 @@ export function toQuantity(x: unknown): Quantity | null {
     const unit = unitName(x);
     const value = x.value ?? 1;
     if (unit === "") return { si: value, unit: "" };
+    // mathjs keeps degC/degF values without their offset: ask for kelvin outright.
+    if (unit === "K") return { si: x.toNumber("K"), unit };
     return { si: value / template(unit).value!, unit };
   }
   return null;
@@ -103,7 +108,8 @@ export function formatNumber(x: number, sig = 4): string {
 /** "2.192 kHz", "3.3 kohm", "-3.01 dB", "0.05": readable by mathjs again. */
 export function formatQuantity(si: number, unit: string, sig = 4): string {
   if (unit === "") return formatNumber(si, sig);
-  const head = unit.split("/")[0].replace("^2", "");
+  // A prefix on a squared unit would be read squared ("1 mV^2" is 1e-6 V^2): no prefix there.
+  const head = unit.split("/")[0];
   if (!PREFIXED.has(head) || si === 0 || !Number.isFinite(si)) return `${formatNumber(si, sig)} ${unit}`;
   const exp = Math.floor(Math.log10(Math.abs(si)) / 3) * 3;
   let i = PREFIXES.findIndex(([e]) => e <= exp);

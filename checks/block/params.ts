@@ -8,7 +8,14 @@ export const RESERVED = new Set([
   "startup", "gain_db", "phase", "f3db", "v", "i", "eseries",
 ]);
 const IDENT = /^[A-Za-z_][A-Za-z0-9_]*$/;
+// A negative or zero part value is a typo, and ngspice would simulate it without complaint.
+const POSITIVE: Record<string, string> = { ohm: "a resistance", F: "a capacitance", H: "an inductance" };
 const PARAM_KEYS = new Set(["name", "value", "tol", "note"]);
+
+/** Why a resistance, capacitance or inductance value is refused, or null. */
+export function notPositive(name: string, value: string, q: { si: number; unit: string }): string | null {
+  return POSITIVE[q.unit] && !(q.si > 0) ? `parameter "${name}": ${POSITIVE[q.unit]} must be positive, not ${value}` : null;
+}
 
 export type Tolerance = { kind: "rel"; rel: number } | { kind: "abs"; abs: number };
 
@@ -78,6 +85,11 @@ export function readParams(node: Node | null | undefined, lineOf: (n: Node | nul
       ({ si, unit } = readQuantity(value));
     } catch (e) {
       errors.push({ message: `parameter "${name}": ${(e as Error).message}`, line: lineOf(map.get("value", true) as Node) });
+      continue;
+    }
+    const negative = notPositive(name, value, { si, unit });
+    if (negative) {
+      errors.push({ message: negative, line: lineOf(map.get("value", true) as Node) });
       continue;
     }
     const spec: ParamSpec = { name, value, si, unit, line };

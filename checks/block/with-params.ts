@@ -1,6 +1,7 @@
 import { isMap, isScalar, isSeq, type Node, type Scalar, type YAMLMap } from "yaml";
 import { readQuantity } from "../units";
 import { readFrontmatter } from "./frontmatter";
+import { notPositive } from "./params";
 import type { BlockError } from "./types";
 
 const PLAIN = /^[A-Za-z0-9.+\-_(][A-Za-z0-9 .+\-\/%^*()_]*$/;
@@ -35,6 +36,8 @@ export function withParams(text: string, params: Record<string, string>, meta: {
     const before = readQuantity(String(node.value));
     if (next.unit !== before.unit)
       throw new Error(`parameter "${name}" is in ${before.unit || "plain numbers"}; "${value}" is in ${next.unit || "plain numbers"}`);
+    const negative = notPositive(name, value, next);
+    if (negative) throw new Error(negative);
     edits.push({ node, value: String(value).trim() });
   }
   for (const key of ["slug", "title"] as const) {

@@ -4,7 +4,7 @@ import { defaultModelsDir } from "../spice/paths";
 import { sanitizeNetlist } from "../spice/sanitize";
 import type { Analysis, SimHooks } from "../script/builtins";
 import { runScript, type CheckOutcome } from "../script/evaluate";
-import { nominalValues, noSimulation, prepare, scopeFor } from "./prepare";
+import { deckValues, nominalValues, noSimulation, prepare, scopeFor } from "./prepare";
 import { quantitiesOf, reportStatus, withCorners } from "./report";
 import type { Report, SimBackend, Waveform } from "./types";
 
@@ -31,7 +31,7 @@ export function evaluateBlock(text: string, opts: EvaluateOptions = {}): { repor
     ? {
         simulate: (analysis) => {
           if (!block.netlist.trim()) throw new Error("the block has no ```spice fence to simulate");
-          const values = nominalValues(block);
+          const values = deckValues(block, nominalValues(block));
           try {
             const r = opts.backend!.simulate({ title: block.title, circuit: block.netlist, params: values, analysis });
             report.simulations.push({ analysis: analysis.kind, points: r.points, ms: r.ms, ...(r.cached !== undefined ? { cached: r.cached } : {}) });

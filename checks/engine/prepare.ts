@@ -37,6 +37,16 @@ export function scopeFor(block: ParsedBlock, values: Record<string, number>, hoo
 
 export const nominalValues = (block: ParsedBlock) => Object.fromEntries(block.params.map((p) => [p.name, p.si]));
 
+// ngspice reads temperatures (.temp, temp=, TEMP) in °C; the script holds them in K.
+const ABSOLUTE_ZERO_C = -273.15;
+
+/** The values as the deck's .param lines hold them: SI, except temperatures in °C (358.15 K is 85). */
+export function deckValues(block: ParsedBlock, values: Record<string, number>): Record<string, number> {
+  const out = { ...values };
+  for (const p of block.params) if (p.unit === "K" && p.name in out) out[p.name] = Number((out[p.name] + ABSOLUTE_ZERO_C).toPrecision(15));
+  return out;
+}
+
 export const noSimulation: SimHooks = {
   simulate: () => {
     throw new Error("simulations run at nominal only");

@@ -1,11 +1,13 @@
 import type { MathNode } from "mathjs";
 import type { BlockError } from "../block/types";
-import { parseExpression } from "./math";
+import { math, parseExpression } from "./math";
 
 export const SIM_CALLS = new Set(["tran", "ac", "op"]);
 export const MEASURE_CALLS = new Set([
   "peak", "trough", "pp", "rms", "avg", "freq", "thd", "at", "startup", "gain_db", "phase", "f3db", "v", "i",
 ]);
+
+const OTHER_CALLS = new Set(["check", "near", "eseries"]);
 
 export type Statement = {
   line: number;
@@ -54,16 +56,25 @@ function nestedCheck(node: MathNode): boolean {
   return found;
 }
 
+/** A unit name (`K`, `kohm`) that is not also a function the script can call. */
+function unitNotFunction(name: string, functions: Set<string>): boolean {
+  if (functions.has(name) || SIM_CALLS.has(name) || MEASURE_CALLS.has(name) || OTHER_CALLS.has(name)) return false;
+  if (typeof (math as unknown as Record<string, unknown>)[name] === "function") return false;
+  return math.Unit.isValuelessUnit(name);
+}
+
 /**
- * mathjs reads `C2 (R1 + R2)` as a call of C2. When the name holds a value (a parameter or
- * an earlier assignment) and not a function, the engineer meant a product: rewrite it so.
+ * mathjs reads `C2 (R1 + R2)` and `300 K (Rs + Rp)` as calls of C2 and K. When the name holds
+ * a value (a parameter or an earlier assignment) or is a unit, and not a function, the engineer
+ * meant a product: rewrite it so.
  */
-function productsForValueCalls(node: MathNode, values: Set<string>): MathNode {
+function productsForValueCalls(node: MathNode, values: Set<string>, functions: Set<string> = new Set()): MathNode {
   return node.transform((n) => {
     if (n.type !== "FunctionNode") return n;
     const { fn, args } = n as unknown as { fn: MathNode & { name?: string }; args: MathNode[] };
-    if (fn.type !== "SymbolNode" || !values.has(fn.name!) || args.length !== 1) return n;
-    const factor = productsForValueCalls(args[0], values);
+    if (fn.type !== "SymbolNode" || args.length !== 1) return n;
+    if (!values.has(fn.name!) && !unitNotFunction(fn.name!, functions)) return n;
+    const factor = productsForValueCalls(args[0], values, functions);
     return parseExpression("a * (b)").transform((m) =>
       m.type === "SymbolNode" ? ((m as unknown as { name: string }).name === "a" ? fn : factor) : m,
     );
@@ -75,6 +86,7 @@ export function analyzeScript(script: string, firstLine: number, errors: BlockEr
   const out: Statement[] = [];
   const simVars = new Set<string>();
   const values = new Set(params);
+  const functions = new Set<string>();
   script.split("\n").forEach((raw, i) => {
     const line = firstLine + i;
     const source = raw.replace(/\r$/, "");
@@ -88,7 +100,7 @@ export function analyzeScript(script: string, firstLine: number, errors: BlockEr
     }
     const parts = root.type === "BlockNode" ? (root as unknown as { blocks: { node: MathNode }[] }).blocks.map((b) => b.node) : [root];
     for (const part of parts) {
-      const node = productsForValueCalls(part, values);
+      const node = productsForValueCalls(part, values, functions);
       const calls = new Set<string>();
       const deps = reads(node, calls);
       let kind: Statement["kind"] = "expr";
@@ -112,8 +124,14 @@ export function analyzeScript(script: string, firstLine: number, errors: BlockEr
         continue;
       }
       const simulated = [...calls].some((c) => SIM_CALLS.has(c) || MEASURE_CALLS.has(c)) || [...deps].some((d) => simVars.has(d));
-      if (kind === "assign" && name) values.add(name);
-      if (kind === "function" && name) values.delete(name);
+      if (kind === "assign" && name) {
+        values.add(name);
+        functions.delete(name);
+      }
+      if (kind === "function" && name) {
+        values.delete(name);
+        functions.add(name);
+      }
       if (simulated && name) simVars.add(name);
       else if (name) simVars.delete(name);
       const compiled = node.compile();

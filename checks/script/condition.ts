@@ -1,6 +1,7 @@
 import type { MathNode } from "mathjs";
 import { formatValue, toQuantity } from "../units";
 import { isUnit, math } from "./math";
+import { UnitMismatch, logarithmicUnit, mismatchWhy, plainTypeMessage } from "./unit-rules";
 
 export type Judged = {
   ok: boolean;
@@ -115,7 +116,8 @@ export class ConditionJudge {
     try {
       ok = rel.test(a, b);
     } catch (e) {
-      throw new Error(`cannot compare ${ln.toString()} = ${formatValue(a)} with ${formatValue(b)}: ${(e as Error).message}`);
+      const why = e instanceof UnitMismatch ? e.why : plainTypeMessage((e as Error).message);
+      throw new Error(`cannot compare ${ln.toString()} = ${formatValue(a)} with ${formatValue(b)}: ${why}`);
     }
     const [x, y] = [si(a), si(b)];
     const scale = Math.max(Math.abs(x), Math.abs(y)) || 1;
@@ -146,13 +148,17 @@ export class ConditionJudge {
 
 /** near(x, target, tol): tol with units is absolute, a plain number relative to |target|. */
 export function nearTest(x: unknown, target: unknown, tol: unknown) {
-  if (isUnit(x) !== isUnit(target) || (isUnit(x) && !(x as { equalBase(u: unknown): boolean }).equalBase(target)))
-    throw new Error(`near(): ${formatValue(x)} and ${formatValue(target)} are not in the same unit`);
+  // dB and deg beside a plain number: the number is in dB (degrees).
+  const log = logarithmicUnit(x) ?? logarithmicUnit(target);
+  if (log && typeof x === "number") x = math.unit(x, log);
+  if (log && typeof target === "number") target = math.unit(target, log);
+  const why = mismatchWhy(x, target);
+  if (why) throw new Error(`near(): cannot compare ${formatValue(x)} with ${formatValue(target)}: ${why}`);
   const [xs, ts] = [si(x), si(target)];
   let tolAbs: number;
   if (isUnit(tol)) {
     if (!isUnit(target) || !(tol as { equalBase(u: unknown): boolean }).equalBase(target))
-      throw new Error(`near(): the tolerance ${formatValue(tol)} is not in the unit of ${formatValue(target)}`);
+      throw new Error(`near(): the tolerance ${formatValue(tol)} (${toQuantity(tol)!.unit || "plain"}) is not in the unit of ${formatValue(target)} (${toQuantity(target)?.unit || "a plain number"})`);
     tolAbs = si(tol);
   } else if (typeof tol === "number") tolAbs = Math.abs(tol * ts);
   else throw new Error("near(): the tolerance must be a number (relative, e.g. 2%) or a quantity (absolute)");

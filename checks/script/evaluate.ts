@@ -3,6 +3,7 @@ import type { BlockError } from "../block/types";
 import type { Statement } from "./analyze";
 import { ConditionJudge, type Judged } from "./condition";
 import { isComplexValue, math } from "./math";
+import { plainTypeMessage } from "./unit-rules";
 
 export type CheckOutcome = {
   label: string;
@@ -24,7 +25,7 @@ export type ScriptRun = {
 
 function message(e: unknown): string {
   if (e instanceof RangeError && /call stack/i.test(e.message)) return `the script recursed too deep (${e.message})`;
-  const m = (e instanceof Error ? e.message : String(e)).replace(/^Error: /, "");
+  const m = plainTypeMessage((e instanceof Error ? e.message : String(e)).replace(/^Error: /, ""));
   // mathjs's own words when a complex value meets a function or comparison made for reals.
   if (!/became complex/.test(m) && /complex/i.test(m)) return `the value became complex (${m})`;
   return m;

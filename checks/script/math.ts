@@ -1,4 +1,5 @@
 import { all, create, type MathJsInstance, type MathNode, type Unit } from "mathjs";
+import { unitRules } from "./unit-rules";
 
 // One restricted mathjs instance for the whole engine, built once per process.
 // Following the mathjs security notes: keep private references to parse/compile for
@@ -6,10 +7,11 @@ import { all, create, type MathJsInstance, type MathNode, type Unit } from "math
 // units or rewrite the instance.
 function build(): { math: MathJsInstance; parse: (expr: string) => MathNode } {
   const math = create(all, { number: "number", precision: 64 });
-  // Decibels are a unit of their own so that `gain_db(...) > -3 dB` reads right and a
-  // bare number compared to dB is refused rather than silently accepted.
+  // Decibels are a unit of their own so that `gain_db(...) > -3 dB` reads right; unitRules
+  // lets a plain number beside dB (or deg) read as dB (or degrees).
   math.createUnit("dB");
   math.import(realDomainGuards(math), { override: true });
+  math.import(unitRules(math), { override: true });
   const parse = math.parse.bind(math) as (expr: string) => MathNode;
   const refuse = (name: string) => () => {
     throw new Error(`${name}() is not available in check scripts`);

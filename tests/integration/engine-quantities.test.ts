@@ -26,4 +26,32 @@ describe("reported quantities", () => {
     expect(report.quantities.g1k.value).toBeCloseTo(-10 * Math.log10(1 + (1000 / fc) ** 2), 2);
     expect(report.quantities).not.toHaveProperty("res");
   });
+
+  it("simulates a temperature parameter given in K at the same temperature in °C", async () => {
+    // R(T) = R0 (1 + tc1 (T - Tnom)), Tnom = 27 °C (ngspice manual, resistor temperature model):
+    // 358.15 K is 85 °C, so 1 kohm with tc1 = 0.01 is 1.58 kohm and draws 1 V / 1.58 kohm.
+    const text = `---
+slug: temperature-deck
+title: Temperature reaches the deck in degrees Celsius
+category: other
+summary: tc1 resistor at 85 degC
+params:
+  - { name: T, value: 358.15 K }
+---
+\`\`\`spice
+.options temp={T}
+V1 in 0 1
+R1 in 0 1k tc1=0.01
+\`\`\`
+
+\`\`\`check
+I85 = -i(op(), "V1")
+check("current at 85 degC", near(I85, 1 V / 1.58 kohm, 0.01%))
+\`\`\`
+`;
+    const { report } = await verifyBlock(text, { cacheDir });
+    expect(report.errors).toEqual([]);
+    expect(report.checks[0].status).toBe("pass");
+    expect(report.quantities.I85).toMatchObject({ unit: "A", simulated: true });
+  });
 });

@@ -49,7 +49,7 @@ describe("check scripts", () => {
     expect(r.status).toBe("error");
     expect(r.errors.map((e) => e.line)).toEqual([first, first + 1]);
     expect(r.checks[0]).toMatchObject({ status: "error", detail: expect.stringMatching(new RegExp(`^y \\(line ${first + 1}\\) could not be evaluated: .*units`, "i")) });
-    expect(r.checks[1]).toMatchObject({ status: "error", detail: "cannot compare R = 2 kohm with 1 V: Cannot compare units with different base" });
+    expect(r.checks[1]).toMatchObject({ status: "error", detail: "cannot compare R = 2 kohm with 1 V: ohm and V are different dimensions" });
   });
 
   it("refuses an assignment to a parameter, which would hide it from the tolerance corners", () => {
