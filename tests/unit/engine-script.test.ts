@@ -48,7 +48,7 @@ describe("check scripts", () => {
     const r = run('x = 1 +\ny = R + 1 V\ncheck("uses y", y > 1 V)\ncheck("mixed units", R > 1 V)');
     expect(r.status).toBe("error");
     expect(r.errors.map((e) => e.line)).toEqual([first, first + 1]);
-    expect(r.checks[0]).toMatchObject({ status: "error", detail: expect.stringMatching(new RegExp(`^y \\(line ${first + 1}\\) could not be evaluated: .*units`, "i")) });
+    expect(r.checks[0]).toMatchObject({ status: "error", detail: expect.stringMatching(new RegExp(`^y \\(line ${first + 1}\\) could not be evaluated: cannot add .* ohm and V are different dimensions`, "i")) });
     expect(r.checks[1]).toMatchObject({ status: "error", detail: "cannot compare R = 2 kohm with 1 V: ohm and V are different dimensions" });
   });
 
