@@ -1,5 +1,5 @@
 import Link from "next/link";
-import type { Report, Waveform } from "@/checks";
+import type { Report } from "@/checks";
 import { ApiPanel } from "@/components/api-panel";
 import { CheckList } from "@/components/check-list";
 import { CodePanel } from "@/components/code-panel";
@@ -7,12 +7,7 @@ import { HazardCaution } from "@/components/hazard-caution";
 import { NoteView } from "@/components/note-view";
 import { ParamTable } from "@/components/param-table";
 import { QuantityList } from "@/components/quantity-list";
-import { listAttachments } from "@/lib/attachments/attachments";
-import type { Caller } from "@/lib/auth/caller";
-import { getBlock, getLineage, listVersions } from "@/lib/blocks/read";
-import { reviewsOf } from "@/lib/reviews/reviews";
-import { getWaveforms, listRuns } from "@/lib/runs/runs";
-import { isWatching } from "@/lib/watches/watches";
+import type { BlockPageModel } from "@/lib/blocks/page";
 import { AttachmentsPanel } from "./attachments-panel";
 import { BlockActions } from "./block-actions";
 import { HistoryPanel } from "./history-panel";
@@ -26,20 +21,10 @@ import { VersionPicker } from "./version-picker";
 const emptyReport: Report = { slug: "", status: "unchecked", quantities: {}, checks: [], simulations: [], errors: [] };
 
 /** One version of a block: the note in the reading column, what was proven beside it. */
-export async function BlockView({ caller, slug, version }: { caller: Caller; slug: string; version?: number }) {
-  const block = await getBlock(caller, slug, version);
-  const [versions, lineage, watching, waveforms, runs, reviews, attachments] = await Promise.all([
-    listVersions(caller, slug),
-    getLineage(caller, slug),
-    caller.user ? isWatching(caller, slug) : Promise.resolve(false),
-    block.runId && block.runStatus === "done" ? (getWaveforms(caller, block.runId) as Promise<Waveform[]>) : Promise.resolve([] as Waveform[]),
-    listRuns(caller, slug, 6),
-    reviewsOf(caller, slug),
-    listAttachments(caller, slug),
-  ]);
+export function BlockView({ model }: { model: BlockPageModel }) {
+  const { block, versions, lineage, watching, waveforms, runs, reviews, attachments, isHead, allowed } = model;
+  const slug = block.slug;
   const report = (block.report as Report | null) ?? emptyReport;
-  const role = caller.memberships.find((m) => m.teamSlug === block.team)?.role ?? null;
-  const isHead = block.version === block.headVersion;
 
   return (
     <div className="space-y-6">
@@ -66,7 +51,7 @@ export async function BlockView({ caller, slug, version }: { caller: Caller; slu
         ) : null}
         {block.archived ? <p className="text-sm text-slate">This block is archived: it stays readable but takes no new versions.</p> : null}
         <p className="max-w-prose text-graphite">{block.summary}</p>
-        <BlockActions slug={slug} version={block.version} role={role} signedIn={Boolean(caller.user)} watching={watching} isHead={isHead} versions={versions.length} />
+        <BlockActions slug={slug} version={block.version} allowed={allowed} watching={watching} versions={versions.length} />
       </header>
 
       <HazardCaution hazard={block.hazard} />
@@ -94,8 +79,7 @@ export async function BlockView({ caller, slug, version }: { caller: Caller; slu
             {block.report ? <CheckList checks={report.checks} /> : <p className="text-sm text-graphite">No finished run for this version yet.</p>}
           </Panel>
           <Panel title="Quantities"><QuantityList quantities={report.quantities} /></Panel>
-          <AttachmentsPanel slug={slug} attachments={attachments}
-            canAttach={!block.archived && (role === "author" || role === "maintainer" || role === "admin")} />
+          <AttachmentsPanel slug={slug} attachments={attachments} canAttach={allowed.attach} />
           <Panel title="Lineage"><LineagePanel lineage={lineage} /></Panel>
           <HistoryPanel slug={slug} runs={runs} reviews={reviews.slice(0, 6)} />
           <ApiPanel slug={slug} version={block.version} isHead={isHead} visibility={block.visibility} />

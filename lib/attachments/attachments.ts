@@ -1,4 +1,5 @@
 import { createHash } from "node:crypto";
+import type { EntityManager } from "@mikro-orm/postgresql";
 import { AttachmentSchema, UserSchema } from "@/entities";
 import type { Caller } from "@/lib/auth/caller";
 import { loadBlock, requireUser } from "@/lib/blocks/common";
@@ -57,6 +58,11 @@ export async function getAttachment(caller: Caller, slug: string, name: string):
 export async function listAttachments(caller: Caller, slug: string): Promise<AttachmentInfo[]> {
   const em = await getEm();
   const block = await loadBlock(em, caller, slug);
-  const rows = await em.find(AttachmentSchema, { block }, { orderBy: { name: "asc" } });
+  return attachmentsOf(em, block.id);
+}
+
+/** The attachments of a block the caller was already allowed to read. */
+export async function attachmentsOf(em: EntityManager, blockId: number): Promise<AttachmentInfo[]> {
+  const rows = await em.find(AttachmentSchema, { block: blockId }, { orderBy: { name: "asc" } });
   return rows.map((a) => ({ name: a.name, contentType: a.contentType, size: a.size, sha256: a.sha256 }));
 }

@@ -1,13 +1,13 @@
 import "server-only";
-import { cookies, headers } from "next/headers";
+import { cookies } from "next/headers";
 import { redirect } from "next/navigation";
 import type { Caller } from "./caller";
-import { callerFromCookieHeader } from "./request-caller";
+import { pageContext } from "@/lib/next-context";
 import { sessionCookieFor } from "./session-token";
 
 /** The caller of a page or server action, from the next-auth session cookie (anonymous when signed out). */
 export async function getCaller(): Promise<Caller> {
-  return callerFromCookieHeader((await headers()).get("cookie"));
+  return (await pageContext()).caller;
 }
 
 /** A signed-in caller, or a redirect to the sign-in page that comes back here afterwards. */

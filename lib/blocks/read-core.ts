@@ -16,7 +16,9 @@ type Row = Record<string, unknown>;
 
 export interface ReadCore {
   block: { id: number; slug: string; title: string; summary: string; category: string; tags: string[]; hazard: string[];
-    visibility: "team" | "public"; archived: boolean; teamId: number; teamSlug: string; headNumber: number | null };
+    visibility: "team" | "public"; archived: boolean; teamId: number; teamSlug: string; headNumber: number | null;
+    /** Author of version 1: "own block" for the author role. */
+    creatorId: number | null };
   version: { id: number; number: number; params: StoredParam[]; contentHash: string; message: string; createdAt: Date; author: string };
   parent: { slug: string; version: number; title: string; headNumber: number | null } | null;
   badge: Badge;
@@ -31,6 +33,7 @@ const exec = (em: EntityManager, sql: string, params: unknown[]) =>
 const BLOCK_SQL = `
 select b.id, b.slug, b.title, b.summary, b.category, b.tags, b.hazard, b.visibility, b.archived, b.team_id,
        t.slug as team_slug, h.number as head_number,
+       (select x.author_id from block_versions x where x.block_id = b.id and x.number = 1) as creator_id,
        v.id as v_id, v.number as v_number, v.params as v_params, v.content_hash as v_hash, v.message as v_message,
        v.created_at as v_created_at, u.name as v_author,
        pv.number as p_number, pb.slug as p_slug, pb.title as p_title, pb.team_id as p_team_id,
@@ -92,6 +95,7 @@ export async function readCore(em: EntityManager, caller: Caller, slug: string, 
       id: Number(b.id), slug: String(b.slug), title: String(b.title), summary: String(b.summary), category: String(b.category),
       tags: b.tags as string[], hazard: b.hazard as string[], visibility: b.visibility as "team" | "public", archived: Boolean(b.archived),
       teamId: Number(b.team_id), teamSlug: String(b.team_slug), headNumber: b.head_number === null ? null : Number(b.head_number),
+      creatorId: b.creator_id === null || b.creator_id === undefined ? null : Number(b.creator_id),
     },
     version: {
       id: Number(b.v_id), number: Number(b.v_number), params: b.v_params as StoredParam[], contentHash: String(b.v_hash),

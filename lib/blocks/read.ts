@@ -1,3 +1,4 @@
+import type { EntityManager } from "@mikro-orm/postgresql";
 import { spiceDeck } from "@/checks";
 import { BlockVersionSchema } from "@/entities";
 import type { Caller } from "@/lib/auth/caller";
@@ -24,9 +25,9 @@ export interface Lineage {
   forks: { slug: string; title: string; fromVersion: number }[];
 }
 
-async function viewOf(core: ReadCore): Promise<BlockView> {
+export async function viewOf(em: EntityManager, core: ReadCore): Promise<BlockView> {
   const { block, version: v, run } = core;
-  const { text, parsed } = await versionFile(await getEm(), v.id, v.contentHash);
+  const { text, parsed } = await versionFile(em, v.id, v.contentHash);
   return {
     slug: block.slug,
     title: parsed?.title ?? block.title,
@@ -58,7 +59,7 @@ async function viewOf(core: ReadCore): Promise<BlockView> {
   };
 }
 
-function lineageOf(core: ReadCore): Lineage {
+export function lineageOf(core: ReadCore): Lineage {
   const p = core.parent;
   return {
     forkedFrom: p ? { slug: p.slug, version: p.version, title: p.title } : null,
@@ -69,7 +70,8 @@ function lineageOf(core: ReadCore): Lineage {
 
 /** One version of a block (the head by default) as DESIGN.md's Block JSON plus what the pages need. */
 export async function getBlock(caller: Caller, slug: string, version?: number): Promise<BlockView> {
-  return viewOf(await readCore(await getEm(), caller, slug, version, { forks: false }));
+  const em = await getEm();
+  return viewOf(em, await readCore(em, caller, slug, version, { forks: false }));
 }
 
 export async function getLineage(caller: Caller, slug: string): Promise<Lineage> {
@@ -81,9 +83,10 @@ export async function getLineage(caller: Caller, slug: string): Promise<Lineage>
  * process), so a revalidation that matches the validator builds nothing.
  */
 export async function getBlockWithLineage(caller: Caller, slug: string, version?: number) {
-  const core = await readCore(await getEm(), caller, slug, version, { forks: true });
+  const em = await getEm();
+  const core = await readCore(em, caller, slug, version, { forks: true });
   const lineage = lineageOf(core);
-  return { lineage, visibility: core.block.visibility, etag: blockValidator(core, lineage.parentNewerVersions), view: () => viewOf(core) };
+  return { lineage, visibility: core.block.visibility, etag: blockValidator(core, lineage.parentNewerVersions), view: () => viewOf(em, core) };
 }
 
 export interface VersionRow {
@@ -93,7 +96,12 @@ export interface VersionRow {
 export async function listVersions(caller: Caller, slug: string): Promise<VersionRow[]> {
   const em = await getEm();
   const block = await loadBlock(em, caller, slug);
-  const versions = await em.find(BlockVersionSchema, { block }, { populate: ["author"], orderBy: { number: "desc" } });
+  return versionRowsOf(em, block.id);
+}
+
+/** Every version of a block the caller was already allowed to read, newest first, with badge and approval. */
+export async function versionRowsOf(em: EntityManager, blockId: number): Promise<VersionRow[]> {
+  const versions = await em.find(BlockVersionSchema, { block: blockId }, { populate: ["author"], orderBy: { number: "desc" } });
   const ids = versions.map((v) => v.id);
   const [badges, approved] = await Promise.all([badgesFor(em, ids), approvedVersionIds(em, ids)]);
   return versions.map((v) => ({

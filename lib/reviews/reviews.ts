@@ -98,7 +98,12 @@ export interface ReviewRow {
 export async function reviewsOf(caller: Caller, slug: string): Promise<ReviewRow[]> {
   const em = await getEm();
   const block = await loadBlock(em, caller, slug);
-  const rows = await em.find(ReviewSchema, { version: { block: { id: block.id } } },
+  return reviewRowsOf(em, block.id);
+}
+
+/** The review history of a block the caller was already allowed to read, newest first. */
+export async function reviewRowsOf(em: EntityManager, blockId: number): Promise<ReviewRow[]> {
+  const rows = await em.find(ReviewSchema, { version: { block: { id: blockId } } },
     { populate: ["version", "reviewer", "requestedBy"], orderBy: { createdAt: "desc", id: "desc" } });
   return rows.map((r) => ({
     id: r.id, version: r.version.number, decision: r.decision, reviewer: r.reviewer?.name ?? null,

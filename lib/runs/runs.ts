@@ -1,3 +1,4 @@
+import type { EntityManager } from "@mikro-orm/postgresql";
 import { CheckRunSchema, type CheckRun } from "@/entities";
 import type { Caller } from "@/lib/auth/caller";
 import { assertCan } from "@/lib/auth/permissions";
@@ -40,10 +41,21 @@ export async function getRun(caller: Caller, id: string): Promise<RunView> {
 export async function listRuns(caller: Caller, slug: string, limit = 100): Promise<RunView[]> {
   const em = await getEm();
   const block = await loadBlock(em, caller, slug);
-  const runs = await em.find(CheckRunSchema, { version: { block: { id: block.id } } },
+  return runsOfBlock(em, block.id, limit);
+}
+
+/** The runs of a block the caller was already allowed to read, newest first. */
+export async function runsOfBlock(em: EntityManager, blockId: number, limit = 100): Promise<RunView[]> {
+  const runs = await em.find(CheckRunSchema, { version: { block: { id: blockId } } },
     { populate: ["version", "version.block"], orderBy: { createdAt: "desc" }, limit: Math.min(Math.max(1, limit), 500) });
   const stamp = currentStamp();
   return runs.map((r) => view(r, stamp));
+}
+
+/** A run's stored series, for a page that has already read its block. */
+export async function waveformsOfRun(em: EntityManager, runId: string): Promise<unknown[]> {
+  const run = await em.findOne(CheckRunSchema, { id: runId }, { populate: ["waveforms"] });
+  return run?.waveforms ?? [];
 }
 
 /** The downsampled series the engine returned with the report (empty until the run is done). */

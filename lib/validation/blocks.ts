@@ -35,6 +35,9 @@ export const forkBodySchema = z.strictObject({
   team: teamSlugSchema.optional().meta({ description: "Team that owns the fork (default: the caller's team)" }),
 });
 
+/** One version of a block (the head when version is left out): what read services take. */
+export const blockVersionInputSchema = z.object({ slug: slugSchema, version: versionNumberSchema.optional() });
+
 /** What forkBlock takes: the API body plus the source block's slug from the path or the form. */
 export const forkInputSchema = forkBodySchema.extend({ source: slugSchema });
 
@@ -99,6 +102,7 @@ export const searchQuerySchema = z.object({
 
 export type NewVersionJson = z.infer<typeof newVersionJsonSchema>;
 export type ForkBody = z.infer<typeof forkBodySchema>;
+export type BlockVersionInput = z.infer<typeof blockVersionInputSchema>;
 export type ForkInput = z.infer<typeof forkInputSchema>;
 export type RetuneForm = z.infer<typeof retuneFormSchema>;
 export type EvaluateBody = z.infer<typeof evaluateBodySchema>;

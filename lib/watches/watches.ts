@@ -1,3 +1,4 @@
+import type { EntityManager } from "@mikro-orm/postgresql";
 import { WatchSchema } from "@/entities";
 import type { Caller } from "@/lib/auth/caller";
 import { loadBlock, requireUser } from "@/lib/blocks/common";
@@ -27,4 +28,9 @@ export async function isWatching(caller: Caller, slug: string): Promise<boolean>
   const em = await getEm();
   const block = await loadBlock(em, caller, slug);
   return (await em.count(WatchSchema, { user: caller.user.id, block: block.id })) > 0;
+}
+
+/** Whether this person watches a block the page has already read. */
+export async function watchesBlock(em: EntityManager, userId: number, blockId: number): Promise<boolean> {
+  return (await em.count(WatchSchema, { user: userId, block: blockId })) > 0;
 }

@@ -11,6 +11,7 @@ import { assertNoFrameworkError, launch, shot, watchErrors } from "./support/bro
 
 // One story through the library, in order: each step builds on the block the one before made.
 const FORK = "opamp-soft-limiter-e2e";
+const COLLEAGUE_FORK = "sallen-key-lowpass-unity-tomas";
 // A 1 x 1 PNG, the smallest schematic there is.
 const PNG_1PX = Buffer.from("iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==", "base64");
 let close: () => Promise<void>;
@@ -109,6 +110,24 @@ describe("the library in a browser", () => {
     await expect(reviewer.getByTestId("block-badge").locator("svg").getAttribute("aria-label")).resolves.toMatch(/approved/);
     await settle(reviewer, "10-block-approved", reviewerErrors);
     await closeReviewer();
+  });
+
+  it("offers an author Revise (edit) on a block they wrote, not on a colleague's", async () => {
+    // Tomas (maintainer) forks a block; Nadia (author) may fork his fork but not edit it (lib/auth/permissions.ts).
+    const { page: colleague, close: closeColleague } = await launch(inject("appUrl"));
+    await new SignInPage(colleague).signIn("tomas.reyes@fenwick.test");
+    const theirs = new BlockPage(colleague);
+    await theirs.open("sallen-key-lowpass-unity");
+    await theirs.fork();
+    await new RetunePage(colleague).saveAsFork(COLLEAGUE_FORK);
+    await closeColleague();
+    const block = new BlockPage(page);
+    await block.open(COLLEAGUE_FORK);
+    await page.getByRole("link", { name: "Derive a variant" }).waitFor();
+    expect(await page.getByRole("link", { name: "Revise" }).count()).toBe(0);
+    await settle(page, "10b-colleague-block-no-edit", errors);
+    await block.open("opamp-soft-limiter");
+    await page.getByRole("link", { name: "Revise" }).waitFor();
   });
 
   it("compares the two versions and lists the runs", async () => {

@@ -7,6 +7,7 @@ import { compareVersions } from "@/lib/blocks/compare";
 import { createBlock } from "@/lib/blocks/create";
 import { forkBlock } from "@/lib/blocks/fork";
 import { contextFor } from "@/lib/context";
+import { loadBlockPage } from "@/lib/blocks/page";
 import { getBlock, getLineage, listVersions, spiceDeckText } from "@/lib/blocks/read";
 import { addVersion } from "@/lib/blocks/versions";
 import { closeOrm, getEm } from "@/lib/db/orm";
@@ -141,7 +142,17 @@ describe("versions, lineage and comparison", () => {
     expect(await code(addVersion(team.author2, slug, { params: { Rf: "24 kohm" }, baseVersion: 1 }))).toBe("forbidden");
     expect(await code(getBlock(team.outsider, slug))).toBe("not_found");
     expect(await code(createBlock(team.viewer, { teamSlug: team.slug, text: wienFixture(`v-${slug}`) }))).toBe("forbidden");
+    // The block page offers Edit exactly to those the service above lets write a version.
+    const offered = async (c: typeof team.author) => (await loadBlockPage(await contextFor(c), { slug })).allowed;
+    expect(await offered(team.author)).toMatchObject({ edit: true, editThisVersion: true, attach: true, decide: false });
+    expect(await offered(team.author2)).toMatchObject({ edit: false, editThisVersion: false, attach: false, fork: true });
+    expect(await offered(team.viewer)).toMatchObject({ edit: false, requestReview: false, decide: false });
+    expect(await offered(team.maintainer)).toMatchObject({ edit: true, decide: true });
+    expect(await code(loadBlockPage(await contextFor(team.outsider), { slug }))).toBe("not_found");
     expect(await code(addVersion(team.maintainer, slug, { params: { Rf: "24 kohm" }, baseVersion: 1 }))).toBe("ok");
+    const page = await loadBlockPage(await contextFor(team.author), { slug, version: 1 });
+    expect(page).toMatchObject({ isHead: false, allowed: { edit: true, editThisVersion: false } });
+    expect(page.versions.map((v) => v.version)).toEqual([2, 1]);
     await drain(team);
   });
 });

@@ -1,13 +1,14 @@
 import type { Metadata } from "next";
 import { ImportForm } from "@/components/import/import-form";
 import { requireUser } from "@/lib/auth/session";
+import { creatableTeams } from "@/lib/blocks/page";
 
 export const metadata: Metadata = { title: "Import" };
 export const dynamic = "force-dynamic";
 
 export default async function ImportPage() {
   const caller = await requireUser("/import");
-  const teams = caller.memberships.filter((m) => m.role !== "viewer").map((m) => m.teamSlug);
+  const teams = creatableTeams(caller);
   return (
     <div className="space-y-4">
       <h1 className="font-serif text-2xl font-semibold">Import a block</h1>

@@ -4,6 +4,7 @@ import { ReviewDecision } from "@/components/block/review-decision";
 import { when } from "@/components/eng";
 import { EmptyState } from "@/components/empty-state";
 import { Hallmark } from "@/components/hallmark";
+import { can } from "@/lib/auth/permissions";
 import { requireUser } from "@/lib/auth/session";
 import { reviewQueue } from "@/lib/reviews/reviews";
 
@@ -13,7 +14,7 @@ export const dynamic = "force-dynamic";
 export default async function ReviewsPage() {
   const caller = await requireUser("/reviews");
   const queue = await reviewQueue(caller);
-  const maintainer = caller.memberships.some((m) => m.role === "maintainer" || m.role === "admin");
+  const maintainer = caller.memberships.some((m) => can(caller, "version.approve", { kind: "team", teamId: m.teamId }));
   return (
     <div className="space-y-4">
       <h1 className="font-serif text-2xl font-semibold">Reviews</h1>

@@ -1,19 +1,22 @@
 import type { Metadata } from "next";
+import { cache } from "react";
 import { BlockView } from "@/components/block/block-view";
-import { getCaller } from "@/lib/auth/session";
-import { getBlock } from "@/lib/blocks/read";
+import { loadBlockPage } from "@/lib/blocks/page";
+import { pageContext } from "@/lib/next-context";
 import { orNotFound } from "../../or-not-found";
 
 export const dynamic = "force-dynamic";
 
+// generateMetadata and the page share one load per request.
+const load = cache(async (slug: string) => loadBlockPage(await pageContext(), { slug }));
+
 export async function generateMetadata({ params }: { params: Promise<{ slug: string }> }): Promise<Metadata> {
   const { slug } = await params;
-  const block = await getBlock(await getCaller(), slug).catch(() => null);
-  return { title: block?.title ?? "Block" };
+  const model = await load(slug).catch(() => null);
+  return { title: model?.block.title ?? "Block" };
 }
 
 export default async function BlockPage({ params }: { params: Promise<{ slug: string }> }) {
   const { slug } = await params;
-  const caller = await getCaller();
-  return orNotFound(BlockView({ caller, slug }));
+  return <BlockView model={await orNotFound(load(slug))} />;
 }

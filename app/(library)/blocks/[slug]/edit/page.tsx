@@ -1,7 +1,8 @@
 import type { Metadata } from "next";
 import { BlockEditor } from "@/components/editor/block-editor";
 import { requireUser } from "@/lib/auth/session";
-import { getBlock } from "@/lib/blocks/read";
+import { loadBlockVersion } from "@/lib/blocks/page";
+import { pageContext } from "@/lib/next-context";
 import { orNotFound } from "../../../or-not-found";
 
 export const metadata: Metadata = { title: "Edit" };
@@ -9,14 +10,13 @@ export const dynamic = "force-dynamic";
 
 export default async function EditPage({ params }: { params: Promise<{ slug: string }> }) {
   const { slug } = await params;
-  const caller = await requireUser(`/blocks/${slug}/edit`);
-  const block = await orNotFound(getBlock(caller, slug));
-  const role = caller.memberships.find((m) => m.teamSlug === block.team)?.role;
+  await requireUser(`/blocks/${slug}/edit`);
+  const { block, allowed, role } = await orNotFound(loadBlockVersion(await pageContext(), { slug }));
   // The server refuses anyway; say so before someone types into a file they cannot save.
   const readOnly = block.archived
     ? "This block is archived: it takes no new versions."
-    : !role || role === "viewer"
-      ? `You ${role ? `are a viewer in ${block.team}` : `are not in ${block.team}`}, so you can read this file but not save it. Fork and retune makes a block of your own where you may create one.`
+    : !allowed.edit
+      ? `You ${!role ? `are not in ${block.team}` : role === "viewer" ? `are a viewer in ${block.team}` : `did not write this block`}, so you can read this file but not save it. Fork and retune makes a block of your own where you may create one.`
       : undefined;
   return (
     <div className="space-y-4">

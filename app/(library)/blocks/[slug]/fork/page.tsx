@@ -1,7 +1,8 @@
 import type { Metadata } from "next";
 import { RetuneForm } from "@/components/retune/retune-form";
 import { requireUser } from "@/lib/auth/session";
-import { getBlock } from "@/lib/blocks/read";
+import { creatableTeams, loadBlockVersion } from "@/lib/blocks/page";
+import { pageContext } from "@/lib/next-context";
 import { orNotFound } from "../../../or-not-found";
 import { sameFileUpToValues } from "./base-match";
 
@@ -12,20 +13,19 @@ export default async function ForkPage({ params, searchParams }: {
   params: Promise<{ slug: string }>; searchParams: Promise<{ from?: string }>;
 }) {
   const { slug } = await params;
-  const caller = await requireUser(`/blocks/${slug}/fork`);
+  await requireUser(`/blocks/${slug}/fork`);
+  const ctx = await pageContext();
   const from = Number((await searchParams).from) || undefined;
-  const block = await orNotFound(getBlock(caller, slug, from));
-  const role = caller.memberships.find((m) => m.teamSlug === block.team)?.role;
-  const mayEdit = role === "author" || role === "maintainer" || role === "admin";
-  const canEdit = mayEdit && block.version === block.headVersion;
-  const whyNotVersion = !mayEdit ? "you may not edit it" : canEdit ? undefined : `new versions start from the head, v${block.headVersion}`;
+  const { block, allowed } = await orNotFound(loadBlockVersion(ctx, { slug, version: from }));
+  const canEdit = allowed.editThisVersion;
+  const whyNotVersion = !allowed.edit ? "you may not edit it" : canEdit ? undefined : `new versions start from the head, v${block.headVersion}`;
   const values = Object.fromEntries(block.params.map((p) => [p.name, p.value]));
-  const head = block.version === block.headVersion ? block : await orNotFound(getBlock(caller, slug));
+  const head = block.version === block.headVersion ? block : (await orNotFound(loadBlockVersion(ctx, { slug }))).block;
   const headNames = new Set(head.params.map((p) => p.name));
   // Values the head's file knows; the preview sends all of them so an older version's values are what it computes.
   const baseValues = Object.fromEntries(Object.entries(values).filter(([k]) => headNames.has(k)));
   const exactPreview = head === block || sameFileUpToValues(head.text, block.text, values);
-  const teams = caller.memberships.filter((m) => m.role !== "viewer").map((m) => m.teamSlug);
+  const teams = creatableTeams(ctx.caller);
   return (
     <div className="space-y-4">
       <header>

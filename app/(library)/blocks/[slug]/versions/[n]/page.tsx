@@ -1,7 +1,8 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { BlockView } from "@/components/block/block-view";
-import { getCaller } from "@/lib/auth/session";
+import { loadBlockPage } from "@/lib/blocks/page";
+import { pageContext } from "@/lib/next-context";
 import { orNotFound } from "../../../../or-not-found";
 
 export const dynamic = "force-dynamic";
@@ -15,6 +16,5 @@ export default async function VersionPage({ params }: { params: Promise<{ slug: 
   const { slug, n } = await params;
   const version = Number(n);
   if (!Number.isInteger(version) || version < 1) notFound();
-  const caller = await getCaller();
-  return orNotFound(BlockView({ caller, slug, version }));
+  return <BlockView model={await orNotFound(loadBlockPage(await pageContext(), { slug, version }))} />;
 }
