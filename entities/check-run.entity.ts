@@ -20,6 +20,11 @@ export interface CheckRun {
   /** The worker holding the run and until when; an expired lease means its worker died (lib/runs/lease.ts). */
   leasedBy?: string | null;
   leaseUntil?: Date | null;
+  /** The pg-boss job (queue `verify`) that delivers this run to a worker; a retry may replace it. */
+  jobId?: string | null;
+  /** Simulations finished, of those the run is known to need so far (the total grows as the engine plans more). */
+  progressDone?: Opt<number>;
+  progressTotal?: Opt<number>;
   createdAt: Opt<Date>;
   startedAt: Date | null;
   finishedAt: Date | null;
@@ -44,6 +49,9 @@ export const CheckRunSchema = new EntitySchema<CheckRun>({
     error: { type: "text", nullable: true },
     leasedBy: { type: "string", length: 64, nullable: true },
     leaseUntil: { type: "Date", nullable: true },
+    jobId: { type: "uuid", nullable: true },
+    progressDone: { type: "integer", default: 0 },
+    progressTotal: { type: "integer", default: 0 },
     createdAt: { type: "Date", onCreate: () => new Date() },
     startedAt: { type: "Date", nullable: true },
     finishedAt: { type: "Date", nullable: true },

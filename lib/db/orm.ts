@@ -22,7 +22,9 @@ export async function withEm<T>(fn: (em: EntityManager) => Promise<T>): Promise<
   return fn(await getEm());
 }
 
+/** Closes the ORM's pool and the queue client's, so a script or test process can exit. */
 export async function closeOrm(): Promise<void> {
+  await (await import("../queue/boss")).stopBoss();
   const orm = holder.__assayOrm;
   holder.__assayOrm = undefined;
   if (orm) await (await orm).close(true);

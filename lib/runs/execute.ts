@@ -13,9 +13,9 @@ export interface Progress {
 }
 
 /** Claims one run, verifies it with the engine while renewing the lease, and stores the result. */
-export async function processNext(workerId: string, opts: { teamIds?: number[] } & Progress = {}): Promise<{ outcome: Outcome; runId?: string }> {
+export async function processNext(workerId: string, opts: Progress = {}): Promise<{ outcome: Outcome; runId?: string }> {
   const em = await getEm();
-  const claimed = await claimRun(em, workerId, opts);
+  const claimed = await claimRun(em, workerId);
   if (!claimed) return { outcome: "idle" };
   opts.onClaim?.(claimed.id);
   let lost = false;

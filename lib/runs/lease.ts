@@ -1,18 +1,18 @@
 import type { EntityManager } from "@mikro-orm/postgresql";
-import { BlockSchema, BlockVersionSchema, type CheckRun } from "@/entities";
-import { blockEventBase } from "@/lib/blocks/events";
-import { writeEvent } from "@/lib/outbox/outbox";
-import { badgeOfRun, currentStamp, latestRuns, type Badge } from "./badge";
+import type { RunTrigger } from "@/entities";
+import { boss, inTransaction, startedBoss, VERIFY_QUEUE } from "@/lib/queue/boss";
+import { finishedEvent } from "./finished-event";
+import { MAX_ATTEMPTS, verifyJobOptions } from "./job-options";
 
 /**
- * The run queue is the check_runs table itself: a worker leases a row with FOR UPDATE SKIP LOCKED
- * (two workers never take the same run), renews the lease while it works, and finishes only while it
- * still holds the lease. A worker that dies stops renewing; when the lease expires another worker takes
- * the run again, up to MAX_ATTEMPTS, after which the run ends as `error` with the reason.
- * Chosen over pg-boss because the version, its run and its job are then one row in one transaction.
+ * pg-boss delivers each run as a `verify` job; the check_runs row is the record users see. A worker takes the
+ * job and leases the row in one transaction (attempts + 1), renews the lease while it works (the heartbeat users
+ * see), and finishes the row and the job together, only while it still holds the lease. A worker that dies stops
+ * renewing: once the lease lapses any worker fails the job, pg-boss hands it out again, and after MAX_ATTEMPTS
+ * the run ends as `error` with the reason. pg-boss's own expiry stays a backstop.
  */
 export const LEASE_SECONDS = Number(process.env.ASSAY_RUN_LEASE_SECONDS ?? 30);
-export const MAX_ATTEMPTS = Number(process.env.ASSAY_RUN_MAX_ATTEMPTS ?? 3);
+export { MAX_ATTEMPTS };
 
 export interface ClaimedRun {
   id: string;
@@ -24,27 +24,32 @@ export interface ClaimedRun {
 const exec = async <T>(em: EntityManager, sql: string, params: unknown[] = []): Promise<T> =>
   (await em.getConnection().execute(sql, params, "all", em.getTransactionContext())) as T;
 
-/** Takes the oldest claimable run: queued, or running with an expired lease and attempts left. */
-export async function claimRun(em: EntityManager, workerId: string, opts: { teamIds?: number[] } = {}): Promise<ClaimedRun | null> {
-  const teamFilter = opts.teamIds?.length ? `and b.team_id in (${opts.teamIds.map(() => "?").join(",")})` : "";
-  const rows = await exec<{ id: string; version_id: number; attempts: number }[]>(em,
-    `update check_runs r set status = 'running', leased_by = ?, lease_until = now() + make_interval(secs => ?),
-            attempts = r.attempts + 1, started_at = now(),
-            error = case when r.status = 'running' then 'the previous attempt''s worker stopped responding' else r.error end
-      where r.id = (
-        select c.id from check_runs c
-          join block_versions v on v.id = c.version_id join blocks b on b.id = v.block_id
-         where (c.status = 'queued' or (c.status = 'running' and c.lease_until < now())) and c.attempts < ? ${teamFilter}
-         order by (c.trigger = 'reverify'), c.created_at
-         limit 1 for update of c skip locked)
-      returning r.id, r.version_id, r.attempts`,
-    [workerId, LEASE_SECONDS, MAX_ATTEMPTS, ...(opts.teamIds ?? [])]);
-  if (rows.length === 0) return null;
-  const [v] = await exec<{ text: string }[]>(em, `select text from block_versions where id = ?`, [rows[0].version_id]);
-  return { id: rows[0].id, versionId: Number(rows[0].version_id), attempts: rows[0].attempts, text: v.text };
+/** Takes the next verify job and leases its run; null when no job is waiting. */
+export async function claimRun(em: EntityManager, workerId: string): Promise<ClaimedRun | null> {
+  const queue = await startedBoss();
+  await requeueLost(em);
+  for (;;) {
+    const claimed = await em.transactional(async (tx) => {
+      const [job] = await queue.fetch<{ runId: string }>(VERIFY_QUEUE, { batchSize: 1, db: inTransaction(tx) });
+      if (!job) return null;
+      const rows = await exec<{ id: string; version_id: number; attempts: number }[]>(tx,
+        `update check_runs set status = 'running', leased_by = ?, lease_until = now() + make_interval(secs => ?),
+                attempts = attempts + 1, started_at = now(), job_id = ?
+          where id = ? and status = 'queued' returning id, version_id, attempts`,
+        [workerId, LEASE_SECONDS, job.id, job.data.runId]);
+      if (rows.length === 0) {
+        // A stray delivery (the run ended, or a live attempt holds it): nothing to do for this job.
+        await queue.complete(VERIFY_QUEUE, job.id, { stray: true }, { db: inTransaction(tx) });
+        return "stray" as const;
+      }
+      const [v] = await exec<{ text: string }[]>(tx, `select text from block_versions where id = ?`, [rows[0].version_id]);
+      return { id: rows[0].id, versionId: Number(rows[0].version_id), attempts: rows[0].attempts, text: v.text };
+    });
+    if (claimed !== "stray") return claimed;
+  }
 }
 
-/** Heartbeat: false when the lease is no longer ours (it expired and another worker took the run). */
+/** Heartbeat: false when the lease is no longer ours (it lapsed and the run went back to the queue). */
 export async function renewLease(em: EntityManager, runId: string, workerId: string): Promise<boolean> {
   const rows = await exec<unknown[]>(em,
     `update check_runs set lease_until = now() + make_interval(secs => ?)
@@ -61,16 +66,18 @@ export interface RunResult {
   durationMs: number;
 }
 
-/** Stores the result if the lease is still ours; exactly one attempt can do so. Writes `run.finished`. */
+/** Stores the result and completes the job if the lease is still ours; exactly one attempt can. Writes `run.finished`. */
 export async function completeRun(em: EntityManager, runId: string, workerId: string, r: RunResult): Promise<boolean> {
   return em.transactional(async (tx) => {
-    const rows = await exec<unknown[]>(tx,
+    const rows = await exec<{ job_id: string | null }[]>(tx,
       `update check_runs set status = 'done', report = ?, waveforms = ?, engine_version = ?, ngspice_version = ?,
-              model_library_hash = ?, duration_ms = ?, finished_at = now(), leased_by = null, lease_until = null, error = null
-        where id = ? and leased_by = ? and status = 'running' returning id`,
+              model_library_hash = ?, duration_ms = ?, finished_at = now(), leased_by = null, lease_until = null, error = null,
+              progress_done = greatest(progress_done, progress_total)
+        where id = ? and leased_by = ? and status = 'running' returning job_id`,
       [JSON.stringify(r.report), JSON.stringify(r.waveforms), r.engineVersion, r.ngspiceVersion, r.modelLibraryHash,
         Math.round(r.durationMs), runId, workerId]);
     if (rows.length === 0) return false;
+    if (rows[0].job_id) await boss().complete(VERIFY_QUEUE, rows[0].job_id, { runId }, { db: inTransaction(tx) });
     await finishedEvent(tx, runId);
     return true;
   });
@@ -79,72 +86,77 @@ export async function completeRun(em: EntityManager, runId: string, workerId: st
 /** A crash or timeout of this attempt: back to the queue while attempts remain, else `error` with the reason. */
 export async function failAttempt(em: EntityManager, runId: string, workerId: string, reason: string): Promise<"retry" | "error" | "lost"> {
   return em.transactional(async (tx) => {
-    const rows = await exec<{ status: string }[]>(tx,
+    const rows = await exec<{ status: string; job_id: string | null; trigger: RunTrigger }[]>(tx,
       `update check_runs set status = case when attempts >= ? then 'error' else 'queued' end,
               error = ?, leased_by = null, lease_until = null,
               finished_at = case when attempts >= ? then now() else null end
-        where id = ? and leased_by = ? and status = 'running' returning status`,
+        where id = ? and leased_by = ? and status = 'running' returning status, job_id, trigger`,
       [MAX_ATTEMPTS, reason.slice(0, 2000), MAX_ATTEMPTS, runId, workerId]);
     if (rows.length === 0) return "lost";
-    if (rows[0].status === "error") await finishedEvent(tx, runId);
-    return rows[0].status === "error" ? "error" : "retry";
+    const [row] = rows;
+    if (row.status === "error") {
+      if (row.job_id) await boss().fail(VERIFY_QUEUE, row.job_id, { reason }, { db: inTransaction(tx) });
+      await finishedEvent(tx, runId);
+      return "error";
+    }
+    await retryJob(tx, runId, row.job_id, row.trigger, reason);
+    return "retry";
   });
 }
 
-/** On a clean shutdown: hand the run back without counting the attempt. */
+/** On a clean shutdown: hand the run back without counting the attempt (a fresh job, so no pg-boss retry is spent). */
 export async function releaseRun(em: EntityManager, runId: string, workerId: string): Promise<void> {
-  await exec(em, `update check_runs set status = 'queued', attempts = greatest(attempts - 1, 0), leased_by = null, lease_until = null
-                   where id = ? and leased_by = ? and status = 'running' returning id`, [runId, workerId]);
+  await em.transactional(async (tx) => {
+    const rows = await exec<{ job_id: string | null; trigger: RunTrigger }[]>(tx,
+      `update check_runs set status = 'queued', attempts = greatest(attempts - 1, 0), leased_by = null, lease_until = null
+        where id = ? and leased_by = ? and status = 'running' returning job_id, trigger`, [runId, workerId]);
+    if (rows.length) await replaceJob(tx, runId, rows[0].job_id, rows[0].trigger);
+  });
 }
 
-/** Runs whose worker died on the last allowed attempt: nobody may claim them any more, so they end as errors. */
-export async function reapExpired(em: EntityManager): Promise<number> {
+/** Runs whose worker stopped renewing with attempts left go back to the queue: their job is failed into a retry. */
+export async function requeueLost(em: EntityManager): Promise<number> {
   return em.transactional(async (tx) => {
-    const rows = await exec<{ id: string }[]>(tx,
-      `update check_runs set status = 'error', finished_at = now(), leased_by = null, lease_until = null,
-              error = 'the worker stopped responding on each of ' || attempts || ' attempts (crash, kill or time-out)'
-        where id in (select id from check_runs where status = 'running' and lease_until < now() and attempts >= ?
+    const rows = await exec<{ id: string; job_id: string | null; trigger: RunTrigger }[]>(tx,
+      `update check_runs set status = 'queued', leased_by = null, lease_until = null,
+              error = 'the previous attempt''s worker stopped responding'
+        where id in (select id from check_runs where status = 'running' and lease_until < now() and attempts < ?
                      for update skip locked)
-        returning id`, [MAX_ATTEMPTS]);
-    for (const r of rows) await finishedEvent(tx, r.id);
+        returning id, job_id, trigger`, [MAX_ATTEMPTS]);
+    for (const r of rows) await retryJob(tx, r.id, r.job_id, r.trigger, "the worker stopped responding");
     return rows.length;
   });
 }
 
-/** `run.finished` with the new and the previous badge, so the mailer can tell a head that turned failing. */
-async function finishedEvent(tx: EntityManager, runId: string): Promise<void> {
-  const [run] = await exec<Record<string, unknown>[]>(tx,
-    `select id, version_id, status, report, engine_version, model_library_hash, error, trigger from check_runs where id = ?`, [runId]);
-  const version = await tx.findOneOrFail(BlockVersionSchema, { id: Number(run.version_id) });
-  const block = await tx.findOneOrFail(BlockSchema, { id: version.block.id }, { populate: ["team", "head"] });
-  const stamp = currentStamp();
-  const badge = badgeOfRun({
-    status: run.status as CheckRun["status"], report: run.report as CheckRun["report"],
-    engineVersion: run.engine_version as string | null, modelLibraryHash: run.model_library_hash as string | null,
-  }, stamp);
-  writeEvent(tx, "run.finished", {
-    ...(await blockEventBase(tx, block, version)),
-    runId, status: run.status, trigger: run.trigger, error: run.error ?? null,
-    reportStatus: (run.report as { status?: string } | null)?.status ?? null,
-    badge, previousBadge: await previousBadge(tx, runId, version.id, block.id, version.number, stamp),
-    isHead: block.head?.id === version.id,
+/** Runs whose worker died on the last allowed attempt: nobody may take them any more, so they end as errors. */
+export async function reapExpired(em: EntityManager): Promise<number> {
+  return em.transactional(async (tx) => {
+    const rows = await exec<{ id: string; job_id: string | null }[]>(tx,
+      `update check_runs set status = 'error', finished_at = now(), leased_by = null, lease_until = null,
+              error = 'the worker stopped responding on each of ' || attempts || ' attempts (crash, kill or time-out)'
+        where id in (select id from check_runs where status = 'running' and lease_until < now() and attempts >= ?
+                     for update skip locked)
+        returning id, job_id`, [MAX_ATTEMPTS]);
+    for (const r of rows) {
+      if (r.job_id) await boss().fail(VERIFY_QUEUE, r.job_id, { reason: "the worker stopped responding" }, { db: inTransaction(tx) });
+      await finishedEvent(tx, r.id);
+    }
+    return rows.length;
   });
-  await tx.flush();
 }
 
-/** What the block showed before this result: this version's earlier finished run, else the version before it. */
-async function previousBadge(tx: EntityManager, runId: string, versionId: number, blockId: number, number: number, stamp: ReturnType<typeof currentStamp>): Promise<Badge | null> {
-  const [earlier] = await exec<Record<string, unknown>[]>(tx,
-    `select status, report, engine_version, model_library_hash from check_runs
-      where version_id = ? and id <> ? and status in ('done', 'error') order by finished_at desc nulls last limit 1`, [versionId, runId]);
-  const asRun = (r: Record<string, unknown>) => ({
-    status: r.status as CheckRun["status"], report: r.report as CheckRun["report"],
-    engineVersion: r.engine_version as string | null, modelLibraryHash: r.model_library_hash as string | null,
-  });
-  if (earlier) return badgeOfRun(asRun(earlier), stamp);
-  if (number <= 1) return null;
-  const [prev] = await exec<{ id: number }[]>(tx, `select id from block_versions where block_id = ? and number = ?`, [blockId, number - 1]);
-  if (!prev) return null;
-  const run = (await latestRuns(tx, [prev.id])).get(prev.id);
-  return badgeOfRun(run ?? null, stamp);
+/** pg-boss's retry of the run's job; a job pg-boss no longer holds as active or waiting is replaced by a new one. */
+async function retryJob(tx: EntityManager, runId: string, jobId: string | null, trigger: RunTrigger, reason: string): Promise<void> {
+  if (jobId) {
+    await boss().fail(VERIFY_QUEUE, jobId, { reason }, { db: inTransaction(tx) });
+    const job = await boss().getJobById(VERIFY_QUEUE, jobId, { db: inTransaction(tx), includeArchive: false });
+    if (job?.state === "retry") return;
+  }
+  await replaceJob(tx, runId, jobId, trigger);
+}
+
+async function replaceJob(tx: EntityManager, runId: string, jobId: string | null, trigger: RunTrigger): Promise<void> {
+  if (jobId) await boss().cancel(VERIFY_QUEUE, jobId, { db: inTransaction(tx) });
+  const fresh = await boss().send(VERIFY_QUEUE, { runId }, { ...verifyJobOptions(trigger), db: inTransaction(tx) });
+  await exec(tx, `update check_runs set job_id = ? where id = ?`, [fresh, runId]);
 }

@@ -6,12 +6,13 @@ import { getEm } from "@/lib/db/orm";
 import { RUN_CHANNEL } from "./enqueue";
 import { processNext } from "./execute";
 import { beat, forget, pruneSilent } from "./heartbeat";
-import { reapExpired, releaseRun } from "./lease";
+import { stopBoss } from "@/lib/queue/boss";
+import { LEASE_SECONDS, reapExpired, releaseRun, requeueLost } from "./lease";
 import { enqueueStaleHeads } from "./reverify";
 
 export interface WorkerOptions {
   id?: string;
-  /** Work only on these teams' blocks (a dedicated worker); all teams by default. */
+  /** At start, queue stale or unchecked heads of these teams only; all teams by default. Runs come from one shared queue. */
   teamIds?: number[];
   /** Poll interval when idle; a NOTIFY on commit wakes the worker sooner. */
   idlePollMs?: number;
@@ -44,14 +45,19 @@ export function startWorker(opts: WorkerOptions = {}): { id: string; stop: () =>
     await beat(em, id, null, startedAt);
     await listener.connect().then(() => listener.query(`LISTEN ${RUN_CHANNEL}`)).catch((err: Error) => log(`no LISTEN (${err.message}); polling only`));
     every(5000, async () => beat(await getEm(), id, current, startedAt));
-    every(10_000, async () => { const n = await reapExpired(await getEm()); if (n) log(`${n} run(s) ended as error after their last attempt`); });
+    every(Math.min(10_000, LEASE_SECONDS * 500), async () => {
+      const back = await requeueLost(await getEm());
+      if (back) log(`${back} run(s) of silent workers went back to the queue`);
+      const n = await reapExpired(await getEm());
+      if (n) log(`${n} run(s) ended as error after their last attempt`);
+    });
     every(3_600_000, async () => pruneSilent(await getEm()));
     const stale = await enqueueStaleHeads(await getEm(), { teamIds: opts.teamIds });
     if (stale.queued) log(`queued ${stale.queued} stale or unchecked head(s) for verification`);
     log("ready");
     while (!stopping) {
       try {
-        const r = await processNext(id, { teamIds: opts.teamIds, onClaim: (runId) => { current = runId; } });
+        const r = await processNext(id, { onClaim: (runId) => { current = runId; } });
         current = null;
         if (r.outcome !== "idle") log(`run ${r.runId}: ${r.outcome}`);
         else await sleep(opts.idlePollMs ?? 1000);
@@ -70,6 +76,7 @@ export function startWorker(opts: WorkerOptions = {}): { id: string; stop: () =>
     const em = await getEm();
     if (current) await releaseRun(em, current, id).catch(() => undefined);
     await forget(em, id).catch(() => undefined);
+    await stopBoss();
     await listener.end().catch(() => undefined);
   };
   return { id, stop, done };

@@ -1,5 +1,5 @@
 // Shared by the blocks-, runs- and reviews- integration tests: a team of our own per test file, callers from
-// the database, block files, and an in-process worker that drains only that team's runs (test files run in parallel).
+// the database, block files, and an in-process worker that drains the file's own database (test files run in parallel).
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { randomUUID } from "node:crypto";
@@ -47,11 +47,11 @@ export async function makeTeam(): Promise<TestTeam> {
 export const contentBlock = (file: string, slug: string, params: Record<string, string> = {}): string =>
   withParams(readFileSync(path.resolve("content/blocks", file), "utf8"), params, { slug });
 
-/** Runs the team's queued check runs in this process, through the worker's own code path, until none is left. */
+/** Runs the queued check runs of this file's database in this process, through the worker's own code path, until none is left. */
 export async function drain(team: TestTeam, workerId = `test-${team.tag}`): Promise<number> {
   let n = 0;
   for (;;) {
-    const r = await processNext(workerId, { teamIds: [team.id] });
+    const r = await processNext(workerId);
     if (r.outcome === "idle") return n;
     n++;
   }

@@ -30,13 +30,13 @@ describe("bounded retries", () => {
     const { run } = await createBlock(team.author, { teamSlug: team.slug, text: wienFixture(slug) });
     // Three workers each lease the run and vanish without renewing or finishing.
     for (let i = 1; i <= MAX_ATTEMPTS; i++) {
-      const claimed = await claimRun(await getEm(), `ghost-${i}`, { teamIds: [team.id] });
+      const claimed = await claimRun(await getEm(), `ghost-${i}`);
       expect(claimed?.id).toBe(run.id);
       expect(claimed?.attempts).toBe(i);
-      expect(await claimRun(await getEm(), `rival-${i}`, { teamIds: [team.id] })).toBeNull(); // leased: nobody else
+      expect(await claimRun(await getEm(), `rival-${i}`)).toBeNull(); // leased: nobody else
       await sleep(1200);
     }
-    expect(await claimRun(await getEm(), "ghost-4", { teamIds: [team.id] })).toBeNull(); // attempts used up
+    expect(await claimRun(await getEm(), "ghost-4")).toBeNull(); // attempts used up
     expect(await reapExpired(await getEm())).toBeGreaterThanOrEqual(1);
     const r = await runRow(run.id);
     expect(r.status).toBe("error");
@@ -51,7 +51,7 @@ describe("bounded retries", () => {
     const slug = `slow-${team.tag}`;
     const { run } = await createBlock(team.author, { teamSlug: team.slug, text: wienFixture(slug) });
     const outcomes: string[] = [];
-    for (let i = 0; i < MAX_ATTEMPTS + 1; i++) outcomes.push((await processNext(`slow-worker`, { teamIds: [team.id] })).outcome);
+    for (let i = 0; i < MAX_ATTEMPTS + 1; i++) outcomes.push((await processNext(`slow-worker`)).outcome);
     expect(outcomes).toEqual(["retry", "retry", "error", "idle"]);
     const r = await runRow(run.id);
     expect(r).toMatchObject({ status: "error", attempts: 3 });
