@@ -21,10 +21,14 @@ export function RunWatcher({ runId, runStatus, badge, version, approved }: {
   useEffect(() => {
     if (live.badge !== shown) live.set(shown);
   }, [live, shown]);
+  const progress = run.data?.progress;
   return (
     <span className="inline-flex items-center gap-2" aria-live="polite" data-testid="block-badge" data-badge={shown} data-run-open={String(open)}>
       <Hallmark badge={shown} version={version} approved={approved} id="block-mark" />
-      {open && !settled ? <span className="ml-4 text-xs text-graphite">checks {run.data?.status ?? runStatus}…</span> : null}
+      {open && !settled ? <span className="ml-4 text-xs text-graphite">
+        checks {run.data?.status ?? runStatus}…
+        {progress?.total ? <span data-testid="run-progress"> {progress.done} of {progress.total} simulations</span> : null}
+      </span> : null}
     </span>
   );
 }

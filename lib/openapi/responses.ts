@@ -130,6 +130,11 @@ export const runSchema = z.object({
   badge: badgeSchema,
   report: reportSchema.nullable(),
   durationMs: z.number().int().nullable(),
+  progress: z.object({
+    done: z.number().int().min(0).meta({ description: "Simulations finished" }),
+    total: z.number().int().min(0).meta({ description: "Simulations the run needs, as far as the engine has planned them; it may grow while the run is in progress" }),
+  }).meta({ description: "How far the run's simulations have come; done equals total once the run is done", example: { done: 12, total: 40 } }),
+  error: z.string().nullable().meta({ description: "Why the run ended as error, or why an earlier attempt was retried" }),
   createdAt: z.iso.datetime(),
   finishedAt: z.iso.datetime().nullable(),
 }).openapi("Run");

@@ -409,10 +409,25 @@ export interface components {
             /** Format: date-time */
             createdAt: string;
             durationMs: number | null;
+            /** @description Why the run ended as error, or why an earlier attempt was retried */
+            error: string | null;
             /** Format: date-time */
             finishedAt: string | null;
             /** Format: uuid */
             id: string;
+            /**
+             * @description How far the run's simulations have come; done equals total once the run is done
+             * @example {
+             *       "done": 12,
+             *       "total": 40
+             *     }
+             */
+            progress: {
+                /** @description Simulations finished */
+                done: number;
+                /** @description Simulations the run needs, as far as the engine has planned them; it may grow while the run is in progress */
+                total: number;
+            };
             report: components["schemas"]["Report"] & unknown;
             slug: string;
             /** @enum {string} */

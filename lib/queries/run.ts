@@ -2,7 +2,10 @@
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { apiJson } from "./http";
 
-export interface RunAnswer { id: string; status: "queued" | "running" | "done" | "error"; badge: string; report: unknown }
+export interface RunAnswer {
+  id: string; status: "queued" | "running" | "done" | "error"; badge: string; report: unknown;
+  progress?: { done: number; total: number };
+}
 
 export const fetchRun = (id: string, signal?: AbortSignal) => apiJson<RunAnswer>(`/api/v1/runs/${encodeURIComponent(id)}`, { signal });
 

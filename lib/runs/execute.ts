@@ -34,6 +34,7 @@ export async function processNext(workerId: string, opts: Progress = {}): Promis
     const ok = await completeRun(em, claimed.id, workerId, {
       report: report as unknown as Record<string, unknown>, waveforms, engineVersion: stamp.engineVersion,
       ngspiceVersion: ngspice, modelLibraryHash: stamp.modelLibraryHash, durationMs: performance.now() - t0,
+      simulations: report.simulations?.length ?? 0,
     });
     return { outcome: ok ? "done" : "lost", runId: claimed.id };
   } catch (err) {

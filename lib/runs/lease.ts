@@ -64,6 +64,16 @@ export interface RunResult {
   ngspiceVersion: string;
   modelLibraryHash: string;
   durationMs: number;
+  /** Simulations the run took, cache hits included: done and total of its progress once it is done. */
+  simulations: number;
+}
+
+/** The run's simulations so far, while this worker holds it; false when the lease is no longer ours. */
+export async function recordProgress(em: EntityManager, runId: string, workerId: string, p: { done: number; total: number }): Promise<boolean> {
+  const rows = await exec<unknown[]>(em,
+    `update check_runs set progress_done = ?, progress_total = ?
+      where id = ? and leased_by = ? and status = 'running' returning id`, [p.done, p.total, runId, workerId]);
+  return rows.length === 1;
 }
 
 /** Stores the result and completes the job if the lease is still ours; exactly one attempt can. Writes `run.finished`. */
@@ -72,10 +82,10 @@ export async function completeRun(em: EntityManager, runId: string, workerId: st
     const rows = await exec<{ job_id: string | null }[]>(tx,
       `update check_runs set status = 'done', report = ?, waveforms = ?, engine_version = ?, ngspice_version = ?,
               model_library_hash = ?, duration_ms = ?, finished_at = now(), leased_by = null, lease_until = null, error = null,
-              progress_done = greatest(progress_done, progress_total)
+              progress_done = ?, progress_total = ?
         where id = ? and leased_by = ? and status = 'running' returning job_id`,
       [JSON.stringify(r.report), JSON.stringify(r.waveforms), r.engineVersion, r.ngspiceVersion, r.modelLibraryHash,
-        Math.round(r.durationMs), runId, workerId]);
+        Math.round(r.durationMs), r.simulations, r.simulations, runId, workerId]);
     if (rows.length === 0) return false;
     if (rows[0].job_id) await boss().complete(VERIFY_QUEUE, rows[0].job_id, { runId }, { db: inTransaction(tx) });
     await finishedEvent(tx, runId);

@@ -10,6 +10,7 @@ import { badgeOfRun, currentStamp, type Badge } from "./badge";
 export interface RunView {
   id: string; slug: string; version: number; status: CheckRun["status"]; badge: Badge; trigger: string;
   report: Record<string, unknown> | null; error: string | null; attempts: number; durationMs: number | null;
+  progress: { done: number; total: number };
   engineVersion: string | null; ngspiceVersion: string | null; modelLibraryHash: string | null;
   createdAt: string; startedAt: string | null; finishedAt: string | null;
 }
@@ -28,6 +29,7 @@ async function loadRun(caller: Caller, id: string, populate: ("waveforms")[] = [
 const view = (run: CheckRun, stamp = currentStamp()): RunView => ({
   id: run.id, slug: run.version.block.slug, version: run.version.number, status: run.status,
   badge: badgeOfRun(run, stamp), trigger: run.trigger, report: run.report, error: run.error, attempts: run.attempts,
+  progress: { done: run.progressDone ?? 0, total: run.progressTotal ?? 0 },
   durationMs: run.durationMs, engineVersion: run.engineVersion, ngspiceVersion: run.ngspiceVersion,
   modelLibraryHash: run.modelLibraryHash, createdAt: run.createdAt.toISOString(),
   startedAt: run.startedAt?.toISOString() ?? null, finishedAt: run.finishedAt?.toISOString() ?? null,

@@ -8,6 +8,7 @@ await vi.hoisted(async () => { await (await import("./blocks-db")).usePrivateDat
 import { CheckRunSchema, OutboxEventSchema } from "@/entities";
 import { createBlock } from "@/lib/blocks/create";
 import { getBlock } from "@/lib/blocks/read";
+import { getRun } from "@/lib/runs/runs";
 import { closeOrm, getEm } from "@/lib/db/orm";
 import { workerHealth } from "@/lib/runs/worker-health";
 import { makeTeam, wienFixture, type TestTeam } from "./blocks-helpers";
@@ -81,6 +82,10 @@ describe("worker processes", () => {
     expect(done.attempts).toBe(2);
     expect(done.leasedBy).toBeNull();
     expect((done.report as { status: string }).status).toBe("verified");
+    // Progress counts the run's simulations; once done, every one of them (the report lists each).
+    const sims = (done.report as { simulations: unknown[] }).simulations.length;
+    expect(sims).toBeGreaterThan(0);
+    expect((await getRun(team.viewer, run.id)).progress).toEqual({ done: sims, total: sims });
     expect((await getBlock(team.viewer, slug)).badge).toBe("verified");
     const finished = await (await getEm()).find(OutboxEventSchema, { kind: "run.finished", payload: { runId: run.id } } as never);
     expect(finished).toHaveLength(1);

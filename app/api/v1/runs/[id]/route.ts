@@ -21,6 +21,8 @@ export const GET = route<{ id: string }>(async (req, params) => {
       badge: run.badge,
       report: run.report,
       durationMs: run.durationMs,
+      progress: run.progress,
+      error: run.error,
       createdAt: iso(run.createdAt),
       finishedAt: iso(run.finishedAt),
     },
