@@ -5,4 +5,4 @@ export { thd, THD_HARMONICS } from "./thd";
 export { f3db, gain_db, phase, HALF_POWER_DB } from "./ac";
 export { i, v } from "./op";
 export { waveformFor, MAX_PLOT_POINTS, type PlotWindow, type Waveform } from "./waveform";
-export { MeasureError } from "./signal";
+export { MeasureError, NothingToMeasure } from "./signal";

@@ -9,6 +9,17 @@ export class MeasureError extends Error {
   }
 }
 
+/**
+ * The result holds nothing to measure (a dead oscillator's window, a level never reached): the
+ * script gets NaN, so every check on it fails, and the check's detail carries this message.
+ */
+export class NothingToMeasure extends MeasureError {
+  constructor(message: string) {
+    super(message);
+    this.name = "NothingToMeasure";
+  }
+}
+
 export function expectAnalysis(res: SimResult, kind: SimResult["analysis"], measure: string) {
   if (res?.analysis !== kind)
     throw new MeasureError(`${measure}() needs the result of ${kind}(), not of ${res?.analysis ?? "no simulation"}()`);

@@ -1,4 +1,4 @@
-import { MeasureError, expectAnalysis, interpolate, maxOf, minOf, vectorOf, windowOf, type Window } from "./signal";
+import { MeasureError, NothingToMeasure, expectAnalysis, interpolate, maxOf, minOf, vectorOf, windowOf, type Window } from "./signal";
 import type { SimResult } from "../spice/types";
 
 export function peak(res: SimResult, node: string, from?: number, to?: number): number {
@@ -50,13 +50,28 @@ export function risingCrossings({ t, v }: Window, level: number, hysteresis: num
   return out;
 }
 
+// A window whose swing is this far below the largest value of the whole run holds only the
+// solver's rounding (double precision carries about 16 digits; its residue after thousands of
+// steps sits some 12 decades down): engineering judgement, not a standard.
+export const NUMERICAL_FLOOR = 1e-12;
+// A cycle drawn by fewer time steps than this is the solver alternating step to step, not a
+// waveform: a sine needs several points a period to be told from its alias (common practice).
+export const MIN_STEPS_PER_CYCLE = 8;
+
 /** Mean frequency: whole cycles between the first and last rising crossing of the window's mean. */
 export function freq(res: SimResult, node: string, from?: number, to?: number): number {
   const w = windowOf(res, node, from, to, "freq");
   const swing = maxOf(w.v) - minOf(w.v);
+  const where = `between ${w.from} s and ${w.to} s`;
+  const all = vectorOf(res, node);
+  const largest = Math.max(Math.abs(maxOf(all)), Math.abs(minOf(all)));
+  if (swing === 0 || swing < NUMERICAL_FLOOR * largest)
+    throw new NothingToMeasure(`"${node}" does not oscillate ${where}: its swing of ${+swing.toPrecision(3)} V is numerical noise (the run reaches ${+largest.toPrecision(3)} V)`);
   const xs = risingCrossings(w, mean(w), swing * 0.05);
-  if (swing === 0 || xs.length < 2)
-    throw new MeasureError(`freq(): "${node}" does not complete a cycle between ${w.from} s and ${w.to} s`);
+  if (xs.length < 2) throw new NothingToMeasure(`"${node}" does not complete a cycle ${where}`);
+  const steps = (w.t.filter((x) => x >= xs[0] && x <= xs[xs.length - 1]).length - 1) / (xs.length - 1);
+  if (steps < MIN_STEPS_PER_CYCLE)
+    throw new NothingToMeasure(`"${node}" does not oscillate ${where}: it alternates every ${steps.toFixed(1)} time steps, which is the solver, not a waveform`);
   return (xs.length - 1) / (xs[xs.length - 1] - xs[0]);
 }
 
@@ -68,7 +83,7 @@ export function at(res: SimResult, node: string, t: number): number {
   return interpolate(s, vectorOf(res, node), t);
 }
 
-/** First time |v| reaches `level`, interpolated; Infinity when it never does (a failing check, not an error). */
+/** First time |v| reaches `level`, interpolated; a level never reached is nothing to measure (never a time a check could pass on). */
 export function startup(res: SimResult, node: string, level: number): number {
   expectAnalysis(res, "tran", "startup");
   const t = res.scale;
@@ -80,5 +95,6 @@ export function startup(res: SimResult, node: string, level: number): number {
     const b = Math.abs(v[k]);
     if (b >= L) return a === b ? t[k] : t[k - 1] + ((L - a) / (b - a)) * (t[k] - t[k - 1]);
   }
-  return Infinity;
+  const largest = Math.max(Math.abs(maxOf(v)), Math.abs(minOf(v)));
+  throw new NothingToMeasure(`"${node}" never reaches ${+L.toPrecision(4)} V within ${t[t.length - 1]} s (largest |v| ${+largest.toPrecision(4)} V)`);
 }

@@ -56,6 +56,26 @@ const MEASURES: Record<string, { args: [string, string][]; unit: string; analysi
   i: { args: [], unit: "A", analysis: "op" },
 };
 
+// Why a measure gave NaN (nothing to measure), collected while a statement runs; evaluate.ts
+// takes them after each statement and puts them in the detail of every check that reads them.
+let reasons: string[] = [];
+export function takeReasons(): string[] {
+  const out = reasons;
+  reasons = [];
+  return out;
+}
+
+/** A measure's value, or NaN with its reason kept when the result holds nothing to measure. */
+function measured(hooks: SimHooks, name: string, result: unknown, node: string, args: (number | string)[]): number {
+  try {
+    return hooks.measure(name, result, node, args);
+  } catch (e) {
+    if ((e as Error).name !== "NothingToMeasure") throw e;
+    reasons.push(`${name}(): ${(e as Error).message}`);
+    return NaN;
+  }
+}
+
 export function builtins(hooks: SimHooks): Map<string, unknown> {
   const fns = new Map<string, unknown>();
   fns.set("near", (x: unknown, t: unknown, tol: unknown) => nearTest(x, t, tol).ok);
@@ -100,10 +120,10 @@ export function builtins(hooks: SimHooks): Map<string, unknown> {
       }
       if (rest.length !== spec.args.length) throw new Error(`${call} takes ${spec.args.length + 2} arguments`);
       const args = spec.args.map(([a, unit], k) => inUnit(rest[k], unit, `${name}() ${a}`));
-      const value = hooks.measure(name, res.result, node, args);
+      const value = measured(hooks, name, res.result, node, args);
       if (spec.args[0]?.[0] === "from") hooks.window(res.index, { node, from: args[0], to: args[1], measure: name, value });
       if (name === "gain_db" || name === "phase") hooks.mark(res.index, { node, x: args[0], label: name === "gain_db" ? "gain" : "phase", value });
-      if (name === "startup") hooks.mark(res.index, { node, x: value, label: "start-up" });
+      if (name === "startup" && Number.isFinite(value)) hooks.mark(res.index, { node, x: value, label: "start-up" });
       return spec.unit ? (math.unit(value, spec.unit) as Unit) : value;
     });
   }

@@ -141,7 +141,7 @@ export class ConditionJudge {
     const primary = { label: left.label, value: x, limits: [r.target - r.tolAbs, r.target + r.tolAbs], relations: ["≥", "≤"], target: r.target };
     if (!this.text) return { ok: r.ok, margin, text: "", primary };
     const tolText = isUnit(tol) ? formatValue(tol) : `${formatValue((tol as number) * 100)}%`;
-    const off = r.target !== 0 ? ` (off by ${formatValue((100 * (r.x - r.target)) / Math.abs(r.target), 2)}%)` : "";
+    const off = r.target !== 0 && Number.isFinite(r.x) ? ` (off by ${formatValue((100 * (r.x - r.target)) / Math.abs(r.target), 2)}%)` : "";
     return { ok: r.ok, margin, text: `${left.text} ≈ ${right.text} ± ${tolText} ${mark(r.ok)}${off}`, primary };
   }
 }

@@ -2,6 +2,7 @@ import type { MathNode } from "mathjs";
 import type { BlockError } from "../block/types";
 import type { Statement } from "./analyze";
 import { ConditionJudge, type Judged } from "./condition";
+import { takeReasons } from "./builtins";
 import { isComplexValue, math } from "./math";
 import { plainTypeMessage } from "./unit-rules";
 
@@ -39,6 +40,9 @@ export function runScript(statements: Statement[], scope: Map<string, unknown>, 
   const run: ScriptRun = { scope, checks: [], errors: [], assigned: [] };
   // Names whose statement failed: where, and why (a corner run keeps no error list of its own).
   const failed = new Map<string, { line: number; why: string }>();
+  // Names holding NaN from a measure with nothing to measure, and why.
+  const empty = new Map<string, string[]>();
+  takeReasons();
   for (const st of statements) {
     const broken = [...st.deps].find((d) => failed.has(d));
     if (st.kind === "check") {
@@ -63,8 +67,12 @@ export function runScript(statements: Statement[], scope: Map<string, unknown>, 
       }
       try {
         const j = new ConditionJudge(scope, text).judge(condition);
-        run.checks.push({ ...base, status: j.ok ? "pass" : "fail", detail: j.text, margin: j.margin, primary: j.primary });
+        const why = [...[...st.deps].flatMap((d) => empty.get(d) ?? []), ...takeReasons()];
+        const detail = why.length && text ? `${j.text} (${[...new Set(why)].join("; ")})` : j.text;
+        const ok = j.ok && why.length === 0; // a check never passes on a measure that had nothing to measure
+        run.checks.push({ ...base, status: ok ? "pass" : "fail", detail, margin: why.length || Number.isNaN(j.margin) ? -Infinity : j.margin, primary: j.primary });
       } catch (e) {
+        takeReasons();
         run.checks.push({ ...base, status: "error", detail: message(e), margin: -Infinity });
       }
       continue;
@@ -80,8 +88,14 @@ export function runScript(statements: Statement[], scope: Map<string, unknown>, 
       // one with complex(), or from a complex variable) is left alone.
       if (st.kind !== "function" && isComplexValue(value) && !/\bcomplex\s*\(/.test(st.source) && ![...st.deps].some((d) => isComplexValue(scope.get(d))))
         throw new Error(`the value became complex: ${st.name ? `${st.name} = ` : ""}${math.format(value as never, { precision: 4 })}, where a real number or quantity was expected`);
-      if (st.kind === "assign" && st.name) run.assigned.push({ name: st.name, simulated: st.simulated });
+      if (st.kind === "assign" && st.name) {
+        run.assigned.push({ name: st.name, simulated: st.simulated });
+        const why = [...[...st.deps].flatMap((d) => empty.get(d) ?? []), ...takeReasons()];
+        if (why.length) empty.set(st.name, why);
+        else empty.delete(st.name);
+      }
     } catch (e) {
+      takeReasons();
       // A refused netlist points at its own line in the block file rather than the script's.
       const at = (e as { blockLine?: number }).blockLine;
       run.errors.push({ message: message(e), line: at ?? st.line });

@@ -66,6 +66,20 @@ describe("demo library", () => {
     }, 120_000);
   }
 
+  // A fork damped so hard that the kick dies to the solver's residue (loop gain (1 + 1.1/40)/3 ≈ 0.34):
+  // freq, thd and startup on its last 10 ms have nothing to measure, so they give no number and
+  // every check on them fails with the reason (DESIGN.md "Check scripts").
+  it("wien-bridge-sine-1k damped to nothing: freq, thd and startup refuse to give a number", async () => {
+    const text = readFileSync(path.join(DIR, "wien-bridge-sine-1k.md"), "utf8");
+    const params = { Rf1: "1 kohm", Rf2: "100 ohm", Rg: "40 kohm" };
+    const { report } = await verifyBlock(text, { simulate: true, cacheDir, timeoutMs: 60_000, params });
+    const check = (label: string) => report.checks.find((c) => c.label === label)!;
+    expect(check("oscillates near f0")).toMatchObject({ status: "fail", detail: expect.stringMatching(/= NaN Hz .*freq\(\): "out" does not oscillate between 0.03 s and 0.04 s/) });
+    expect(check("distortion below 4%")).toMatchObject({ status: "fail", detail: expect.stringMatching(/thd\(\): "out" does not oscillate/) });
+    expect(check("start-up no faster than the linear growth")).toMatchObject({ status: "fail", detail: expect.stringMatching(/startup\(\): "out" never reaches/) });
+    expect(report.status).toBe("failing");
+  }, 120_000);
+
   // A fork of the Wien bridge that breaks the design must fail clearly, not stop with an error:
   // below a loop gain of one there is no oscillation (Barkhausen criterion, Sedra & Smith,
   // Microelectronic Circuits, 7th ed., op amp–RC oscillators, from memory); with A_on >= 3 the

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { at, avg, freq, MeasureError, peak, pp, rms, startup, thd, trough } from "@/checks/measures";
+import { at, avg, freq, MeasureError, NothingToMeasure, peak, pp, rms, startup, thd, trough } from "@/checks/measures";
 import type { SimResult } from "@/checks/spice";
 
 // A transient result built from a formula on an uneven time grid, as ngspice's adaptive steps are.
@@ -82,7 +82,30 @@ describe("startup()", () => {
     expect(t).toBeGreaterThanOrEqual(envelope);
     expect(t).toBeLessThan(envelope + 0.5e-4);
   });
-  it("is Infinity when the level is never reached", () => {
-    expect(startup(tran(1e-3, 101, sine(0.1, 1e3)), "out", 1)).toBe(Infinity);
+  it("refuses a level that is never reached instead of giving a time", () => {
+    expect(() => startup(tran(1e-3, 101, sine(0.1, 1e3)), "out", 1)).toThrow(NothingToMeasure);
+    expect(() => startup(tran(1e-3, 101, sine(0.1, 1e3)), "out", 1)).toThrow(/never reaches 1 V within 0.001 s/);
+  });
+});
+
+describe("a dead window", () => {
+  // A kick that decays to nothing: e^{-t/0.2 ms}, then the solver's residue alternating step to step.
+  const residue = (t: number) => (t < 5e-3 ? 0.1 * Math.exp(-t / 2e-4) * Math.cos(2 * Math.PI * 1e3 * t) : 2.5e-19 * Math.cos(Math.PI * Math.round(t / 5e-6)));
+  const res = tran(10e-3, 2001, residue);
+  it("freq and thd refuse a window of numerical noise", () => {
+    expect(() => freq(res, "out", 6e-3, 10e-3)).toThrow(NothingToMeasure);
+    expect(() => freq(res, "out", 6e-3, 10e-3)).toThrow(/does not oscillate .* numerical noise/);
+    expect(() => thd(res, "out", 6e-3, 10e-3)).toThrow(NothingToMeasure);
+  });
+  it("freq refuses a flat window and one that alternates every step", () => {
+    expect(() => freq(tran(1e-3, 101, () => 1.5), "out")).toThrow(NothingToMeasure);
+    // A 1e-3 V signal flipping sign every sample: two steps a cycle, the solver rather than a waveform.
+    const flip = tran(1e-3, 1001, (t) => 1e-3 * Math.sign(Math.sin(Math.PI * t * 1e6 + 0.5)));
+    expect(() => freq(flip, "out")).toThrow(NothingToMeasure);
+  });
+  it("freq still measures a small ringing well above the floor", () => {
+    // 25 µV of a 1 kHz ring beside a 0.35 V start (a decaying Wien bridge): a real waveform.
+    const ring = tran(10e-3, 20001, (t) => (t < 1e-4 ? 0.35 : 25e-6 * Math.sin(2 * Math.PI * 1e3 * t)));
+    expect(freq(ring, "out", 2e-3, 10e-3)).toBeCloseTo(1e3, 0);
   });
 });
