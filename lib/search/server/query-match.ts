@@ -1,6 +1,7 @@
 import type { IndexState } from "./index-state";
 import type { WordHit } from "./term-index";
 import type { QueryWord } from "./tokenize";
+import { proximityOf } from "./proximity";
 import { allowedTypos } from "./typo";
 
 export interface WordMatch {
@@ -10,6 +11,7 @@ export interface WordMatch {
   rank: number;
   exact: number;
   freq: number;
+  proximity: number;
 }
 
 type Coverage = (WordHit | undefined)[];
@@ -94,6 +96,8 @@ export function matchQuery(index: IndexState, words: QueryWord[], strategy: stri
       for (const [key, hit] of index.terms.match(joined, last.prefix, typo, len - 1)) cover(cov, n, key, i, i + len - 1, hit);
     }
   });
+  // The terms each word reaches, for the proximity rule's positions (a phrase reaches its own words).
+  const reach = words.map((w) => new Set(w.phrase ?? index.terms.candidates(w.word, w.prefix, typo).keys()));
   const out: WordMatch[] = [];
   for (const [key, c] of cov) {
     let covered = 0;
@@ -108,6 +112,7 @@ export function matchQuery(index: IndexState, words: QueryWord[], strategy: stri
       rank: Math.min(...used.map((h) => h.rank)),
       exact: used.filter((h) => h.exact).length,
       freq: used.reduce((s, h) => s + h.freq, 0),
+      proximity: strategy === "frequency" ? 0 : proximityOf(index, key, words, reach, covered),
     });
   }
   return out;

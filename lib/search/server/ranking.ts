@@ -9,6 +9,7 @@ export interface Candidate {
   rank: number;
   exact: number;
   freq: number;
+  proximity: number;
   sortKeys?: SortKey[];
 }
 
@@ -48,6 +49,7 @@ export function rankingSteps(index: IndexState, sort: { attr: string; desc: bool
   for (const rule of index.settings.rankingRules) {
     if (rule === "words" && !placeholder) steps.push((a, b) => b.words - a.words);
     else if (rule === "typo" && !placeholder) steps.push((a, b) => a.typos - b.typos);
+    else if (rule === "proximity" && !placeholder) steps.push((a, b) => a.proximity - b.proximity);
     else if (rule === "attribute" && !placeholder) steps.push((a, b) => a.rank - b.rank);
     else if (rule === "exactness" && !placeholder) steps.push((a, b) => b.exact - a.exact);
     else if (rule === "sort" && sort.length) {

@@ -69,7 +69,7 @@ export function executeSearch(index: IndexState, p: SearchParams) {
   if (candidates === null) {
     candidates = [];
     let seq = 0;
-    for (const key of index.docs.keys()) candidates.push({ key, seq: seq++, words: 0, typos: 0, rank: 0, exact: 0, freq: 0 });
+    for (const key of index.docs.keys()) candidates.push({ key, seq: seq++, words: 0, typos: 0, rank: 0, exact: 0, freq: 0, proximity: 0 });
   }
   if (predicate) candidates = candidates.filter((c) => predicate(index.flats.get(c.key)!));
 
