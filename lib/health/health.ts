@@ -1,4 +1,5 @@
 import { getEm } from "@/lib/db/orm";
+import { supervisedParts } from "./parts";
 
 export type PartHealth = "ok" | string;
 export interface Health {
@@ -6,6 +7,8 @@ export interface Health {
   search: PartHealth;
   worker: PartHealth;
   indexBacklog: number;
+  /** Under npm start: every part it runs (web, worker, search, mail, consumers), "ok" or why it is down. */
+  parts?: Record<string, string>;
 }
 
 type Probe = () => Promise<PartHealth>;
@@ -38,5 +41,11 @@ export async function checkHealth(): Promise<Health> {
   const search = await safely(probes.search, "not configured");
   const worker = await safely(probes.worker, "not configured");
   const backlog = await safely(probes.backlog, 0);
-  return { db, search, worker, indexBacklog: typeof backlog === "number" ? backlog : -1 };
+  const parts = supervisedParts();
+  const health: Health = { db, search, worker, indexBacklog: typeof backlog === "number" ? backlog : -1 };
+  if (Object.keys(parts).length === 0) return health;
+  // A part the supervisor is restarting is down whatever its last heartbeat says.
+  if (parts.worker && parts.worker !== "ok") health.worker = parts.worker;
+  if (parts.search && parts.search !== "ok") health.search = parts.search;
+  return { ...health, parts };
 }

@@ -46,7 +46,8 @@ export function registerRunPaths(r: OpenAPIRegistry): void {
     responses: {
       200: {
         description: "Each part ok or a reason",
-        content: json(z.object({ db: z.string(), search: z.string(), worker: z.string(), indexBacklog: z.number().int() })),
+        content: json(z.object({ db: z.string(), search: z.string(), worker: z.string(), indexBacklog: z.number().int(),
+          parts: z.record(z.string(), z.string()).optional().describe("Under npm start: each part it runs, ok or why it is down and when it restarts") })),
       },
       503: { description: "The database is down" },
     },
