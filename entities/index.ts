@@ -3,6 +3,7 @@ import { AttachmentSchema } from "./attachment.entity";
 import { BlockVersionSchema } from "./block-version.entity";
 import { BlockSchema } from "./block.entity";
 import { CheckRunSchema } from "./check-run.entity";
+import { EndedSessionSchema } from "./ended-session.entity";
 import { InvitationSchema } from "./invitation.entity";
 import { MembershipSchema } from "./membership.entity";
 import { OutboxEventSchema } from "./outbox-event.entity";
@@ -18,6 +19,7 @@ export * from "./attachment.entity";
 export * from "./block-version.entity";
 export * from "./block.entity";
 export * from "./check-run.entity";
+export * from "./ended-session.entity";
 export * from "./invitation.entity";
 export * from "./membership.entity";
 export * from "./outbox-event.entity";
@@ -44,4 +46,5 @@ export const allEntities = [
   ApiTokenSchema,
   OutboxEventSchema,
   WorkerHeartbeatSchema,
+  EndedSessionSchema,
 ];

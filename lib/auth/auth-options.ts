@@ -3,7 +3,7 @@ import CredentialsProvider from "next-auth/providers/credentials";
 import { withEm } from "@/lib/db/orm";
 import { acceptInvitation } from "./invitations";
 import { clientIp } from "./rate-limit";
-import { claimsOf, sessionIsCurrent, signedInAt } from "./session-token";
+import { claimsOf, endSession, newSessionId, sessionIsCurrent, signedInAt } from "./session-token";
 import { authorizePassword, redeemSignInLink } from "./sign-in";
 import { SESSION_MAX_AGE_S, appUrl, authSecret, useSecureCookies } from "./config";
 
@@ -46,11 +46,19 @@ export function authOptions(): NextAuthOptions {
           withEm((em) => acceptInvitation(em, str(c?.token), { name: str(c?.name) || undefined, password: str(c?.password) || undefined })),
       }),
     ],
+    events: {
+      // next-auth only clears the browser's cookie; this makes every copy of it worthless.
+      async signOut({ token }) {
+        const claims = claimsOf(token);
+        if (claims) await withEm((em) => endSession(em, claims));
+      },
+    },
     callbacks: {
       async jwt({ token, user }) {
         if (user) {
           token.sub = user.id;
           token.signedInAt = Date.now();
+          token.sid = newSessionId();
           return token;
         }
         // Every later read of the cookie (next-auth's /session refreshes it): a sign-in from before the person's
@@ -58,7 +66,7 @@ export function authOptions(): NextAuthOptions {
         token.signedInAt = signedInAt(token);
         const claims = claimsOf(token);
         if (!claims || !(await withEm((em) => sessionIsCurrent(em, claims)))) {
-          throw new Error("session ended: signed in before the last password change");
+          throw new Error("session ended: signed out, or signed in before the last password change");
         }
         return token;
       },

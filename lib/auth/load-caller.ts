@@ -1,7 +1,7 @@
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { MembershipSchema, UserSchema, type TokenScope } from "@/entities";
 import { anonymous, type Caller } from "./caller";
-import { stillValid, type SessionClaims } from "./session-token";
+import { sessionIsCurrent, type SessionClaims } from "./session-token";
 
 export interface TokenBinding {
   id: number;
@@ -29,9 +29,8 @@ export async function loadCaller(em: EntityManager, userId: number, token?: Toke
   };
 }
 
-/** The caller behind a session cookie: anonymous when the person has changed their password since it signed in. */
+/** The caller behind a session cookie: anonymous once it signed out or the person changed their password since. */
 export async function loadSessionCaller(em: EntityManager, claims: SessionClaims): Promise<Caller> {
-  const user = await em.findOne(UserSchema, { id: claims.userId });
-  if (!user || !stillValid(user.sessionsValidFrom, claims.signedInAt)) return anonymous;
+  if (!(await sessionIsCurrent(em, claims))) return anonymous;
   return loadCaller(em, claims.userId); // the user is in the identity map now: no second query
 }

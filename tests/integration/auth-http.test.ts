@@ -67,6 +67,30 @@ describe("sign-in over HTTP", () => {
     expect(body).not.toContain(people[0].email);
   });
 
+  it("ends the session on the server at sign-out: a kept copy of the old cookie is nobody", async () => {
+    const { people, slug: team, tag } = await makeTeam(["author"]);
+    const text = readFileSync("content/blocks/rc-lowpass-antialias.md", "utf8").replace(/^slug: .*$/m, `slug: out-${tag}`);
+    const { slug } = await createBlock(await loadCaller(await getEm(), people[0].id), { teamSlug: team, text });
+    const jar = new CookieJar();
+    await post(jar, "/api/auth/callback/password", { email: people[0].email, password: PASSWORD });
+    const kept = jar.header(); // what someone who copied the cookie before sign-out would replay
+    const other = new CookieJar(); // the same person in a second browser stays signed in
+    await post(other, "/api/auth/callback/password", { email: people[0].email, password: PASSWORD });
+    expect((await fetch(`${app.url}/api/v1/blocks/${slug}`, { headers: { cookie: kept } })).status).toBe(200);
+
+    await post(jar, "/api/auth/signout", {});
+    expect((await fetch(`${app.url}/api/v1/blocks/${slug}`, { headers: { cookie: kept } })).status).toBe(404);
+    const write = await fetch(`${app.url}/api/v1/blocks?team=${team}`, {
+      method: "POST", headers: { cookie: kept, "content-type": "text/markdown", origin: app.url }, body: text.replace(/^slug: .*$/m, `slug: out2-${tag}`),
+    });
+    expect(write.status).toBe(401);
+    const page = await fetch(`${app.url}/settings`, { headers: { cookie: kept }, redirect: "manual" });
+    expect(page.headers.get("location") ?? (await page.text())).toContain("/sign-in?callbackUrl=%2Fsettings");
+    const replayed = await fetch(`${app.url}/api/auth/session`, { headers: { cookie: kept } });
+    expect(((await replayed.json()) as { user?: unknown }).user).toBeUndefined();
+    expect((await session(other)).user?.email).toBe(people[0].email);
+  });
+
   it("refuses a wrong password with our message", async () => {
     const { people } = await makeTeam(["viewer"]);
     const jar = new CookieJar();
