@@ -7,6 +7,8 @@ export { parseBlock } from "./block/parse";
 export { withParams } from "./block/with-params";
 export { eseries } from "./eseries";
 export { spiceDeck } from "./spice-deck";
+export { circuitRefusal } from "./spice/refusal";
+export { SpiceError } from "./spice/types";
 export { importNetlist } from "./import-netlist";
 export { formatQuantity, readQuantity } from "./units";
 export type { BlockError, ParamSpec, ParsedBlock } from "./block/types";

@@ -1,11 +1,16 @@
 import { parseBlock } from "./block/parse";
 import { withParams } from "./block/with-params";
+import { circuitRefusal } from "./spice/refusal";
+import { SpiceError } from "./spice/types";
 
 /** The block as a SPICE deck for other tools: title, .param lines in SI numbers, the circuit, .end (no analysis). */
 export function spiceDeck(text: string, params?: Record<string, string>): string {
   const source = params && Object.keys(params).length ? withParams(text, params) : text;
   const { block, errors } = parseBlock(source);
   if (!block) throw new Error(`the block file has errors: ${errors.map((e) => (e.line ? `line ${e.line}: ` : "") + e.message).join("; ")}`);
+  // A deck is for running: never hand out one that the engine itself would refuse to run.
+  const refused = circuitRefusal(block.netlist);
+  if (refused) throw new SpiceError(`netlist: ${refused.message}`, refused.line === undefined ? undefined : block.netlistLine + refused.line - 1);
   const title = block.title.replace(/[\r\n]+/g, " ").trim();
   const lines = block.params.map((p) => `.param ${p.name}=${String(p.si)}`);
   return [title, ...lines, block.netlist.replace(/\s+$/, ""), ".end", ""].join("\n");

@@ -1,5 +1,5 @@
-import { spiceDeck } from "@/checks";
 import type { Caller } from "@/lib/auth/caller";
+import { deckOrThrow } from "@/lib/blocks/common";
 import { getBlock, getBlockWithLineage } from "@/lib/blocks/read";
 import { toBlockJson } from "./block-json";
 import { immutableHeaders, revalidateHeaders } from "./cache";
@@ -31,7 +31,7 @@ export async function blockResponse(req: Request, caller: Caller, slug: string, 
       ...cache,
     });
   }
-  return conditional(req, spiceDeck(view.text), {
+  return conditional(req, deckOrThrow(view.text), {
     "Content-Type": "text/plain; charset=utf-8",
     "Content-Disposition": `attachment; filename="${name}.cir"`,
     ...cache,

@@ -1,6 +1,6 @@
 import { createHash } from "node:crypto";
 import type { EntityManager } from "@mikro-orm/postgresql";
-import { parseBlock, type ParamSpec, type ParsedBlock } from "@/checks";
+import { SpiceError, circuitRefusal, parseBlock, spiceDeck, type ParamSpec, type ParsedBlock } from "@/checks";
 import { BlockSchema, BlockVersionSchema, type Block, type BlockVersion, type StoredParam } from "@/entities";
 import type { Caller } from "@/lib/auth/caller";
 import { assertCan, type Action, type BlockResource } from "@/lib/auth/permissions";
@@ -16,7 +16,27 @@ export function parseOrThrow(text: string): ParsedBlock {
     const where = first?.line ? ` (line ${first.line})` : "";
     throw new AppError("validation", `the block file is not valid: ${first?.message ?? "unreadable"}${where}`, { errors });
   }
+  // A netlist the engine would refuse (.control, shell, analysis cards…) is refused now, not served later.
+  const refused = circuitRefusal(block.netlist);
+  if (refused) {
+    const line = refused.line === undefined ? undefined : block.netlistLine + refused.line - 1;
+    const error = { message: `netlist: ${refused.message}`, ...(line ? { line } : {}) };
+    throw new AppError("validation", `the block file is not valid: ${error.message}${line ? ` (line ${line})` : ""}`, { errors: [error] });
+  }
   return block;
+}
+
+/** The runnable deck of a stored file, or 422 with the sanitiser's line for one stored before it was refused. */
+export function deckOrThrow(text: string): string {
+  try {
+    return spiceDeck(text);
+  } catch (e) {
+    if (!(e instanceof SpiceError)) throw e;
+    const where = e.line ? ` (line ${e.line})` : "";
+    throw new AppError("validation", `this version cannot be served as a SPICE deck: ${e.message}${where}`, {
+      errors: [{ message: e.message, ...(e.line ? { line: e.line } : {}) }],
+    });
+  }
 }
 
 export const storedParams = (params: ParamSpec[]): StoredParam[] =>

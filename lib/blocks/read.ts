@@ -1,11 +1,10 @@
 import type { EntityManager } from "@mikro-orm/postgresql";
-import { spiceDeck } from "@/checks";
 import { BlockVersionSchema } from "@/entities";
 import type { Caller } from "@/lib/auth/caller";
 import { getEm } from "@/lib/db/orm";
 import { approvedVersionIds } from "@/lib/reviews/approval";
 import { badgesFor, type Badge } from "@/lib/runs/badge";
-import { loadBlock } from "./common";
+import { deckOrThrow, loadBlock } from "./common";
 import { blockValidator, readCore, versionFile, type ReadCore } from "./read-core";
 
 export interface BlockView {
@@ -118,5 +117,5 @@ export async function blockFileText(caller: Caller, slug: string, version?: numb
 
 /** A runnable deck: title, .param lines, the circuit (the engine writes it). */
 export async function spiceDeckText(caller: Caller, slug: string, version?: number): Promise<string> {
-  return spiceDeck(await blockFileText(caller, slug, version));
+  return deckOrThrow(await blockFileText(caller, slug, version));
 }
