@@ -1,4 +1,4 @@
-import createDOMPurify, { type DOMPurify } from "dompurify";
+import createDOMPurify, { type Config, type DOMPurify } from "dompurify";
 import { JSDOM } from "jsdom";
 
 // Uploaded SVG goes through DOMPurify's SVG profile on a server DOM (jsdom): a maintained sanitiser that follows
@@ -19,17 +19,17 @@ function shared() {
   return purifier;
 }
 
-const OPTIONS = {
+const OPTIONS: Config & { RETURN_DOM: true } = {
   USE_PROFILES: { svg: true, svgFilters: true },
   FORBID_TAGS: ["style", "foreignObject", "a"], // style sheets and links: a drawing needs neither
   RETURN_DOM: true,
-} as const;
+};
 
 /** The SVG with everything but drawing removed, as an XML document; throws when it is not an SVG document. */
 export function sanitiseSvg(source: string): string {
   if (/<!DOCTYPE|<!ENTITY/i.test(source)) throw new Error("SVG with a DOCTYPE or entities is refused");
   const { purify, window } = shared();
-  const body = purify.sanitize(source, OPTIONS) as unknown as HTMLElement;
+  const body = purify.sanitize(source, OPTIONS);
   const roots = [...body.children];
   if (roots.length !== 1 || roots[0].localName !== "svg") throw new Error("not an SVG document (the root element must be <svg>)");
   // XML serialisation: the file is served as image/svg+xml on its own, where HTML's serialisation is not valid XML.
