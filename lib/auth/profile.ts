@@ -3,6 +3,7 @@ import { UserSchema } from "@/entities";
 import { AppError } from "@/lib/errors";
 import type { Caller } from "./caller";
 import { hashPassword, verifyPassword } from "./passwords";
+import { currentPasswordAccepted, currentPasswordAttempt } from "./rate-limit";
 
 function signedIn(caller: Caller) {
   if (!caller.user) throw new AppError("unauthenticated", "Sign in first.");
@@ -23,8 +24,10 @@ export async function updateName(em: EntityManager, caller: Caller, name: string
 export async function changePassword(em: EntityManager, caller: Caller, current: string, next: string, now = new Date()): Promise<Date> {
   const me = signedIn(caller);
   const user = await em.findOneOrFail(UserSchema, { id: me.id });
-  if (user.passwordHash && !(await verifyPassword(current, user.passwordHash))) {
-    throw new AppError("validation", "The current password is not right.");
+  if (user.passwordHash) {
+    currentPasswordAttempt(me.id); // a stolen session must not be a free oracle for the password
+    if (!(await verifyPassword(current, user.passwordHash))) throw new AppError("validation", "The current password is not right.");
+    currentPasswordAccepted(me.id);
   }
   await em.nativeUpdate(UserSchema, { id: me.id }, { passwordHash: await hashPassword(next), sessionsValidFrom: now });
   return now;

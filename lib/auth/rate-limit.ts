@@ -1,59 +1,63 @@
 import { RateLimiterMemory, RateLimiterRes } from "rate-limiter-flexible";
 import { AppError } from "@/lib/errors";
+import { GrowingDelay, attempt, waitText } from "./growing-delay";
 
-// Sign-in guesses and link requests, counted per address and per network (memory store: one app process).
-// Per address: 5 tries in 15 minutes stops guessing one person's password; per IP: 30 covers a shared office.
-// Without a trusted proxy there is no client IP we can believe (see clientIp), so each route falls back to one
-// bucket shared by everybody: it caps how fast anyone can spray guesses over many addresses, at the price that
-// such a spray also slows everyone's sign-in for a quarter hour (sessions already open are not touched).
-const holder = globalThis as unknown as { __assayLimiters?: Record<string, RateLimiterMemory> };
-
-function limiter(name: string, points: number, duration: number): RateLimiterMemory {
-  holder.__assayLimiters ??= {};
-  return (holder.__assayLimiters[name] ??= new RateLimiterMemory({ keyPrefix: name, points, duration }));
+// Password guesses slow down per account and per client (the client only when a trusted proxy names it, see
+// clientIp) with growing delays; there is no bucket shared by everybody, so guesses at other addresses never
+// lock the real owner out. Link requests are counted per address and per client (memory store: one app process).
+const holder = globalThis as unknown as { __assayLimits?: { delays: Record<string, GrowingDelay>; links: Record<string, RateLimiterMemory> } };
+function store() {
+  return (holder.__assayLimits ??= {
+    delays: { account: new GrowingDelay(5), client: new GrowingDelay(20, 5000), "password-change": new GrowingDelay(5) },
+    links: {
+      address: new RateLimiterMemory({ keyPrefix: "link:address", points: 3, duration: 15 * 60 }),
+      client: new RateLimiterMemory({ keyPrefix: "link:client", points: 20, duration: 15 * 60 }),
+    },
+  });
 }
 
-const limits = {
-  "sign-in:address": () => limiter("sign-in:address", 5, 15 * 60),
-  "sign-in:ip": () => limiter("sign-in:ip", 30, 15 * 60),
-  "sign-in:all": () => limiter("sign-in:all", 100, 15 * 60),
-  "link:address": () => limiter("link:address", 3, 15 * 60),
-  "link:ip": () => limiter("link:ip", 20, 15 * 60),
-  "link:all": () => limiter("link:all", 50, 15 * 60),
-} as const;
-
-export type LimitName = keyof typeof limits;
-
-/** The per-network limit of a route: the client's IP when a trusted proxy names it, else the route's shared bucket. */
-export function network(route: "sign-in" | "link", ip: string | null): [LimitName, string] {
-  return ip ? [`${route}:ip`, ip] : [`${route}:all`, "all"];
+/** Before a password is checked: refused while this address or this client must wait; else counted. */
+export function passwordAttempt(address: string, ip: string | null): void {
+  const { delays } = store();
+  attempt([
+    { delay: delays.account, key: address.toLowerCase(), who: "for this address" },
+    ...(ip ? [{ delay: delays.client, key: ip, who: "from this network" }] : []),
+  ]);
 }
 
-function minutes(ms: number): string {
-  const m = Math.max(1, Math.ceil(ms / 60_000));
-  return m === 1 ? "a minute" : `${m} minutes`;
+/** The right password forgives its account's failed attempts (the client's stay counted). */
+export function passwordAccepted(address: string): void {
+  store().delays.account.forgive(address.toLowerCase());
 }
 
-const who = (name: LimitName): string =>
-  name.endsWith(":ip") ? "from this network" : name.endsWith(":all") ? "just now" : "for this address";
+/** A sign-in link redeemed from a client: link tokens cannot be guessed, so only a named client is slowed. */
+export function linkRedeemAttempt(ip: string | null): void {
+  if (ip) attempt([{ delay: store().delays.client, key: ip, who: "from this network" }]);
+}
 
-/** Counts one attempt against each key; over the limit → AppError("rate_limited") with a readable wait. */
-export async function consume(pairs: [LimitName, string][]): Promise<void> {
-  for (const [name, key] of pairs) {
+/** The current password on the password-change form: guesses slow down per account like sign-in ones. */
+export function currentPasswordAttempt(userId: number): void {
+  attempt([{ delay: store().delays["password-change"], key: String(userId), who: "at the current password" }], "wrong guesses");
+}
+export function currentPasswordAccepted(userId: number): void {
+  store().delays["password-change"].forgive(String(userId));
+}
+
+/** At most three links to one address and twenty from one client per quarter hour. */
+export async function linkRequest(address: string, ip: string | null): Promise<void> {
+  const { links } = store();
+  const pairs: [RateLimiterMemory, string, string][] = [[links.address, address.toLowerCase(), "for this address"]];
+  if (ip) pairs.push([links.client, ip, "from this network"]);
+  for (const [limiter, key, who] of pairs) {
     try {
-      await limits[name]().consume(key.toLowerCase());
+      await limiter.consume(key);
     } catch (e) {
       if (!(e instanceof RateLimiterRes)) throw e;
-      throw new AppError("rate_limited", `Too many sign-in attempts ${who(name)}. Try again in ${minutes(e.msBeforeNext)}.`, {
+      throw new AppError("rate_limited", `Too many sign-in attempts ${who}. Try again in ${waitText(e.msBeforeNext)}.`, {
         retryAfter: Math.ceil(e.msBeforeNext / 1000),
       });
     }
   }
-}
-
-/** A successful sign-in forgives that address's failed attempts. */
-export async function forgive(name: LimitName, key: string): Promise<void> {
-  await limits[name]().delete(key.toLowerCase());
 }
 
 /** ASSAY_TRUSTED_PROXY=1: the app is reached only through a proxy that appends the peer to x-forwarded-for. */
@@ -64,7 +68,7 @@ export const trustsProxy = (): boolean => process.env.ASSAY_TRUSTED_PROXY === "1
  * action and next-auth's authorize no peer address (NextRequest.ip is gone), and sets x-forwarded-for to the socket
  * address only when the request has none — so a client talking to `next start` directly writes that header itself,
  * and no header is one Next refuses to take from the client. Only behind a trusted proxy, which appends the address it
- * saw, is the last x-forwarded-for entry the client's; otherwise the caller uses the route's shared bucket.
+ * saw, is the last x-forwarded-for entry the client's; otherwise only per-account limits apply.
  */
 export function clientIp(headers: Headers | Record<string, string | string[] | undefined> | undefined): string | null {
   if (!trustsProxy() || !headers) return null;

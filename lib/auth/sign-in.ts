@@ -5,7 +5,7 @@ import { sendMail } from "@/lib/mail/mailer";
 import { signInLinkMessage } from "@/lib/mail/messages";
 import { randomSecret, sha256Hex } from "@/lib/tokens/secret";
 import { hashPassword, verifyPassword } from "./passwords";
-import { clientIp, consume, forgive, network } from "./rate-limit";
+import { clientIp, linkRedeemAttempt, linkRequest, passwordAccepted, passwordAttempt } from "./rate-limit";
 
 export const LINK_MINUTES = 15;
 
@@ -21,15 +21,15 @@ export const normaliseEmail = (email: string): string => email.trim().toLowerCas
 let decoyHash: Promise<string> | undefined;
 
 /** E-mail + password; the same refusal for an unknown address and a wrong password. */
-/** `ip` is the client's IP when a trusted proxy names it (clientIp), else null: then the route's shared bucket counts. */
+/** `ip` is the client's IP when a trusted proxy names it (clientIp), else null: then only the account is slowed. */
 export async function authorizePassword(em: EntityManager, email: string, password: string, ip: string | null): Promise<SignedIn> {
   const address = normaliseEmail(email);
-  await consume([["sign-in:address", address], network("sign-in", ip)]);
+  passwordAttempt(address, ip);
   const user = await em.findOne(UserSchema, { email: address });
   decoyHash ??= hashPassword(randomSecret(16));
   const ok = await verifyPassword(password, user?.passwordHash ?? (await decoyHash));
   if (!user || !user.passwordHash || !ok) throw new AppError("unauthenticated", "That e-mail and password do not match.");
-  await forgive("sign-in:address", address);
+  passwordAccepted(address);
   return { id: String(user.id), email: user.email, name: user.name };
 }
 
@@ -39,7 +39,7 @@ export async function authorizePassword(em: EntityManager, email: string, passwo
  */
 export async function requestSignInLink(em: EntityManager, email: string, ip: string | null, now = new Date()): Promise<void> {
   const address = normaliseEmail(email);
-  await consume([["link:address", address], network("link", ip)]);
+  await linkRequest(address, ip);
   const user = await em.findOne(UserSchema, { email: address });
   if (!user) return;
   const token = randomSecret(32);
@@ -56,7 +56,7 @@ export async function requestSignInLink(em: EntityManager, email: string, ip: st
 
 /** Redeems a link once: the conditional update is the single-use guarantee even when two tabs race. */
 export async function redeemSignInLink(em: EntityManager, token: string, ip: string | null, now = new Date()): Promise<SignedIn> {
-  await consume([network("sign-in", ip)]);
+  linkRedeemAttempt(ip);
   const refused = new AppError("unauthenticated", "This sign-in link is not valid any more. Ask for a new one.");
   if (!/^[A-Za-z0-9_-]{20,100}$/.test(token)) throw refused;
   const hash = sha256Hex(token);

@@ -33,27 +33,26 @@ async function signInVia(app: AppServer, forwardedFor: string) {
 }
 
 describe("a forged x-forwarded-for", () => {
-  it("does not buy a fresh per-network allowance when the app is reached directly", async () => {
+  it("buys nothing when the app is reached directly, and 100 guesses elsewhere do not lock the owner out", async () => {
     const app = await startApp();
     apps.push(app);
     const { people } = await makeTeam(["viewer"]);
-    // 100 guesses at 100 addresses, each claiming another client address: the route's shared bucket counts them all.
+    // 100 wrong passwords at 100 addresses, each claiming another client address: none of them is believed, and
+    // with no bucket shared by everybody the owner of a real account signs in from another client at once.
     for (let i = 0; i < 100; i++) {
       const attempt = await signInVia(app, `198.51.${Math.floor(i / 250)}.${i % 250}`);
       expect((await attempt(`spray-${i}@fenwick.test`, "guess")).error).toBe("That e-mail and password do not match.");
     }
-    const fresh = await signInVia(app, "203.0.113.77");
-    const refused = await fresh(people[0].email, PASSWORD);
-    expect(refused.status).toBe(401);
-    expect(refused.error).toMatch(/^Too many sign-in attempts just now\. Try again in \d+ minutes\.$/);
-  }, 180_000);
+    const owner = await (await signInVia(app, "203.0.113.77"))(people[0].email, PASSWORD);
+    expect(owner).toEqual({ status: 200, error: null });
+  }, 300_000);
 
   it("counts per client behind a trusted proxy (ASSAY_TRUSTED_PROXY=1), by the hop the proxy appended", async () => {
     const app = await startApp({ env: { ASSAY_TRUSTED_PROXY: "1" } });
     apps.push(app);
     const { people } = await makeTeam(["viewer"]);
     // The proxy appends 203.0.113.7 to whatever the client sent; the client varies its own part.
-    for (let i = 0; i < 30; i++) {
+    for (let i = 0; i < 20; i++) {
       const attempt = await signInVia(app, `10.0.0.${i}, 203.0.113.7`);
       expect((await attempt(`spray-${i}@fenwick.test`, "guess")).status).toBe(401);
     }
