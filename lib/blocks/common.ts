@@ -5,6 +5,7 @@ import { BlockSchema, BlockVersionSchema, type Block, type BlockVersion, type St
 import type { Caller } from "@/lib/auth/caller";
 import { assertCan, type Action, type BlockResource } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/errors";
+import { assertStorable } from "./stored-fields";
 
 export const sha256 = (text: string): string => createHash("sha256").update(text, "utf8").digest("hex");
 
@@ -16,6 +17,7 @@ export function parseOrThrow(text: string): ParsedBlock {
     const where = first?.line ? ` (line ${first.line})` : "";
     throw new AppError("validation", `the block file is not valid: ${first?.message ?? "unreadable"}${where}`, { errors });
   }
+  assertStorable(block, text);
   // A netlist the engine would refuse (.control, shell, analysis cards…) is refused now, not served later.
   const refused = circuitRefusal(block.netlist);
   if (refused) {

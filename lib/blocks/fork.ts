@@ -19,17 +19,24 @@ export async function forkBlock({ em, caller }: Ctx, input: ForkInput): Promise<
   const from = await loadVersion(em, source, input.fromVersion);
   const team = await targetTeam(em, caller, source.team, input.team);
   assertCan(caller, "block.fork", { kind: "team", teamId: team.id });
-  const newSlug = input.slug ?? (await freeSlug(em, source.slug));
-
-  let text: string;
-  try {
-    text = withParams(from.text, input.params ?? {}, { slug: newSlug, ...(input.title ? { title: input.title } : {}) });
-  } catch (err) {
-    throw engineInputError(err);
-  }
-  const parsed = parseOrThrow(text);
+  const fileFor = (newSlug: string) => {
+    let text: string;
+    try {
+      text = withParams(from.text, input.params ?? {}, { slug: newSlug, ...(input.title ? { title: String(input.title) } : {}) });
+    } catch (err) {
+      throw engineInputError(err);
+    }
+    return { text, parsed: parseOrThrow(text) };
+  };
+  // A named slug is checked before the transaction, so a bad file is refused without touching the database.
+  const named = input.slug ? fileFor(String(input.slug)) : null;
+  let parsedSlug = named?.parsed.slug ?? "";
   try {
     return await em.transactional(async (tx) => {
+      // A generated slug is picked inside the transaction under a lock on its stem: concurrent bare forks of one
+      // block queue here and each sees the slugs the others committed.
+      const { text, parsed } = named ?? fileFor(await freeSlug(tx, source.slug));
+      parsedSlug = parsed.slug;
       if (await tx.count(BlockSchema, { slug: parsed.slug })) throw taken(parsed.slug);
       const block = tx.create(BlockSchema, {
         slug: parsed.slug, team: tx.getReference(TeamSchema, team.id), title: parsed.title, summary: parsed.summary,
@@ -45,7 +52,7 @@ export async function forkBlock({ em, caller }: Ctx, input: ForkInput): Promise<
       return result;
     });
   } catch (err) {
-    if (err instanceof UniqueConstraintViolationException) throw taken(parsed.slug);
+    if (err instanceof UniqueConstraintViolationException) throw taken(parsedSlug);
     throw err;
   }
 }
@@ -63,7 +70,8 @@ async function targetTeam(em: EntityManager, caller: Caller, sourceTeam: Team, w
 }
 
 async function freeSlug(em: EntityManager, base: string): Promise<string> {
-  const stem = base.slice(0, 90);
+  const stem = base.slice(0, 90).replace(/-+$/, "");
+  await em.getConnection().execute("select pg_advisory_xact_lock(hashtext(?))", [`fork-slug:${stem}`], "all", em.getTransactionContext());
   for (let i = 1; i < 1000; i++) {
     const candidate = i === 1 ? `${stem}-fork` : `${stem}-fork-${i}`;
     if (!(await em.count(BlockSchema, { slug: candidate }))) return candidate;

@@ -20,6 +20,10 @@ export const teamSlugSchema = z
   .regex(SLUG_RE, "lowercase letters, digits and single hyphens")
   .meta({ description: "Team slug", example: "fenwick" });
 
+/** Free text the database stores: PostgreSQL text cannot hold U+0000, so it is refused here, naming the field. */
+export const storedText = (max: number) =>
+  z.string().max(max).refine((s) => !s.includes("\u0000"), "must not contain the NUL character (U+0000)");
+
 /** A version number in a path or query: a positive integer written in decimal. */
 export const versionNumberSchema = z.coerce
   .number()

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { CATEGORIES } from "@/entities/block.entity";
-import { cursorSchema, limitSchema, slugSchema, teamSlugSchema, versionNumberSchema } from "./api";
+import { cursorSchema, limitSchema, slugSchema, storedText, teamSlugSchema, versionNumberSchema } from "./api";
 
 // Request bodies and the JSON the API answers with. These schemas are also the source of /api/v1/openapi.json.
 
@@ -24,13 +24,13 @@ export const paramValuesSchema = z
 export const newVersionJsonSchema = z.strictObject({
   params: paramValuesSchema,
   baseVersion: versionNumberSchema.meta({ description: "The head version the change was made against" }),
-  message: z.string().max(2000).optional().meta({ description: "What changed and why" }),
+  message: storedText(2000).optional().meta({ description: "What changed and why" }),
 });
 
 export const forkBodySchema = z.strictObject({
   fromVersion: versionNumberSchema.optional().meta({ description: "Version to fork (default: the head)" }),
   slug: slugSchema.optional().meta({ description: "Slug of the new block (default: derived from the parent's)" }),
-  title: z.string().trim().min(1).max(200).optional(),
+  title: storedText(200).trim().min(1).optional(),
   params: paramValuesSchema.optional(),
   team: teamSlugSchema.optional().meta({ description: "Team that owns the fork (default: the caller's team)" }),
 });
@@ -81,7 +81,7 @@ export const createQuerySchema = z.object({
 });
 export const fileVersionQuerySchema = z.object({
   baseVersion: versionNumberSchema,
-  message: z.string().max(2000).optional(),
+  message: storedText(2000).optional(),
 });
 export const formatQuerySchema = z.object({
   format: z.enum(["json", "md", "spice"]).default("json").meta({ description: "json (default), md = the block file, spice = a runnable deck" }),
