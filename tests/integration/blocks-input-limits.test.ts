@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createBlock } from "@/lib/blocks/create";
 import { forkBlock } from "@/lib/blocks/fork";
 import { addVersion } from "@/lib/blocks/versions";
+import { contextFor } from "@/lib/context";
 import { closeOrm } from "@/lib/db/orm";
 import { forkBodySchema, newVersionJsonSchema } from "@/lib/validation/blocks";
 import { contentBlock, makeTeam, type TestTeam } from "./blocks-helpers";
@@ -56,7 +57,7 @@ describe("concurrent bare forks of one block", () => {
   it("all succeed, each with its own generated slug", async () => {
     const slug = `src-${team.tag}`;
     await createBlock(team.author, { teamSlug: team.slug, text: file(slug) });
-    const results = await Promise.allSettled(Array.from({ length: 20 }, () => forkBlock(team.author, slug)));
+    const results = await Promise.allSettled(Array.from({ length: 20 }, async () => forkBlock(await contextFor(team.author), { source: slug })));
     const failed = results.filter((r) => r.status === "rejected").map((r) => (r as PromiseRejectedResult).reason.message);
     expect(failed).toEqual([]);
     const slugs = results.map((r) => (r as PromiseFulfilledResult<{ slug: string }>).value.slug);
