@@ -1,12 +1,10 @@
 import Link from "next/link";
 import { Hallmark } from "./hallmark";
 import { when } from "./eng";
-import type { HighlightRun } from "@/lib/search/search";
+import type { BlockSummary, HighlightRun } from "@/lib/search/types";
 
-export interface BlockRow {
-  slug: string; title: string; category: string; team: string; version: number; badge: string; approved: boolean;
-  updatedAt: string; summary: string; highlight?: { title: HighlightRun[]; summary: HighlightRun[] };
-}
+/** A row is the search result itself (lib/search/types.ts), whichever list it comes from. */
+export type BlockRow = Pick<BlockSummary, "slug" | "title" | "category" | "team" | "version" | "badge" | "approved" | "updatedAt" | "summary" | "highlight">;
 
 /** Search highlights arrive as plain and matched runs of text; React escapes every run. */
 function Marked({ runs, fallback }: { runs?: HighlightRun[]; fallback: string }) {

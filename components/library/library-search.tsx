@@ -1,9 +1,9 @@
 "use client";
-import { usePathname, useRouter } from "next/navigation";
+import { usePathname } from "next/navigation";
 import { useEffect, useRef, useState, type KeyboardEvent } from "react";
 import { BlockTable } from "@/components/block-table";
 import { EmptyState } from "@/components/empty-state";
-import { useSearchBlocks, type SearchAnswer, type SearchFilters } from "@/lib/queries/search-blocks";
+import { searchQueryString, useSearchBlocks, type SearchFilters, type SearchResult } from "@/lib/queries/search-blocks";
 import { FacetGroup } from "./facet-group";
 import { useDebounced } from "./use-debounced";
 
@@ -13,21 +13,25 @@ const FACETS: { facet: string; key: keyof SearchFilters }[] = [
 ];
 
 /** Search as you type: debounced, the previous results stay on screen while the next ones load. */
-export function LibrarySearch({ initial, initialFilters }: { initial: SearchAnswer | null; initialFilters: SearchFilters }) {
-  const router = useRouter();
+export function LibrarySearch({ initial, initialFilters }: { initial: SearchResult | null; initialFilters: SearchFilters }) {
   const pathname = usePathname();
   const [q, setQ] = useState(initialFilters.q ?? "");
   const [filters, setFilters] = useState<SearchFilters>({ ...initialFilters, q: undefined });
   const debouncedQ = useDebounced(q.trim(), 200);
   const current = { ...filters, q: debouncedQ || undefined };
-  const query = useSearchBlocks(current);
+  const qs = searchQueryString(current);
+  // The server rendered the first search; the query starts from it instead of asking again.
+  const [initialFor] = useState(qs);
+  const query = useSearchBlocks(current, { for: initialFor, data: initial });
   const data = query.data ?? initial;
 
   // Keep the address in step with the search, so a result list can be shared and the back button returns to it.
-  const qs = new URLSearchParams(Object.entries(current).filter((e): e is [string, string] => Boolean(e[1]))).toString();
+  // The browser's own history call: Next keeps its router in step without fetching the page again, so a
+  // keystroke costs one request (the API search), not a second server render of this page.
   useEffect(() => {
-    router.replace(qs ? `${pathname}?${qs}` : pathname, { scroll: false });
-  }, [qs, pathname, router]);
+    const next = qs ? `${pathname}?${qs}` : pathname;
+    if (`${window.location.pathname}${window.location.search}` !== next) window.history.replaceState(null, "", next);
+  }, [qs, pathname]);
 
   // Arrow keys walk from the box down the result titles and back, so a search is opened without a mouse.
   const results = useRef<HTMLDivElement>(null);

@@ -1,15 +1,12 @@
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { BlockSchema, type Block } from "@/entities";
-import type { Caller } from "@/lib/auth/caller";
 import { readableTeamIds } from "@/lib/auth/permissions";
-import { getEm } from "@/lib/db/orm";
+import type { Ctx } from "@/lib/context";
 import { approvedVersionIds } from "@/lib/reviews/approval";
-import { badgesFor, type Badge } from "@/lib/runs/badge";
+import { badgesFor } from "@/lib/runs/badge";
+import type { BlockSummary } from "@/lib/search/types";
 
-export interface BlockSummary {
-  slug: string; title: string; category: string; tags: string[]; team: string; version: number;
-  badge: Badge; approved: boolean; updatedAt: string; summary: string;
-}
+export type { BlockSummary };
 
 /** List rows for blocks (team and head loaded), with badges and approval in two queries. */
 export async function summarise(em: EntityManager, blocks: Block[]): Promise<BlockSummary[]> {
@@ -19,16 +16,15 @@ export async function summarise(em: EntityManager, blocks: Block[]): Promise<Blo
   return blocks.filter((b) => b.head).map((b) => ({
     slug: b.slug, title: b.title, category: b.category, tags: b.tags, team: b.team.slug, version: b.head!.number,
     badge: badges.get(b.head!.id)!.badge, approved: approved.has(b.head!.id), updatedAt: b.updatedAt.toISOString(),
-    summary: b.summary,
+    summary: b.summary, visibility: b.visibility,
   }));
 }
 
 const populate = ["team", "head"] as const;
 
 /** Blocks the caller started or added a version to, newest change first. */
-export async function myBlocks(caller: Caller): Promise<BlockSummary[]> {
+export async function myBlocks({ em, caller }: Ctx): Promise<BlockSummary[]> {
   if (!caller.user) return [];
-  const em = await getEm();
   const teams = readableTeamIds(caller);
   const mine = await em.getConnection().execute<{ block_id: number }[]>(
     `select distinct block_id from block_versions where author_id = ?`, [caller.user.id]);
@@ -39,8 +35,7 @@ export async function myBlocks(caller: Caller): Promise<BlockSummary[]> {
 }
 
 /** Readable heads whose latest run verified them, most recently verified first. */
-export async function recentlyVerified(caller: Caller, limit = 10): Promise<BlockSummary[]> {
-  const em = await getEm();
+export async function recentlyVerified({ em, caller }: Ctx, limit = 10): Promise<BlockSummary[]> {
   const teams = readableTeamIds(caller);
   const rows = await em.getConnection().execute<{ id: number }[]>(
     `select b.id from blocks b join lateral (
@@ -54,10 +49,9 @@ export async function recentlyVerified(caller: Caller, limit = 10): Promise<Bloc
 }
 
 /** Heads in the caller's teams that fail or cannot be evaluated: the work list of a maintainer. */
-export async function failingInMyTeams(caller: Caller): Promise<BlockSummary[]> {
+export async function failingInMyTeams({ em, caller }: Ctx): Promise<BlockSummary[]> {
   const teams = readableTeamIds(caller);
   if (teams.length === 0) return [];
-  const em = await getEm();
   const blocks = await em.find(BlockSchema, { archived: false, team: { $in: teams } }, { populate, orderBy: { updatedAt: "desc" } });
   return (await summarise(em, blocks)).filter((s) => s.badge === "failing" || s.badge === "error");
 }

@@ -105,7 +105,7 @@ export const blockSummarySchema = z.object({
   team: z.string(),
   visibility: z.enum(["team", "public"]),
   version: z.number().int(),
-  badge: z.string(),
+  badge: badgeSchema,
   approved: z.boolean(),
   updatedAt: z.string(),
   highlight: z.object({ title: z.array(highlightRun), summary: z.array(highlightRun) }).optional(),

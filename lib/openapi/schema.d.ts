@@ -251,7 +251,7 @@ export interface components {
         };
         BlockSummary: {
             approved: boolean;
-            badge: string;
+            badge: components["schemas"]["Badge"];
             category: string;
             highlight?: {
                 summary: {

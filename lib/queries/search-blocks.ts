@@ -1,21 +1,31 @@
 "use client";
 import { keepPreviousData, queryOptions, useQuery } from "@tanstack/react-query";
-import type { BlockRow } from "@/components/block-table";
+import type { SearchResult } from "@/lib/search/types";
+import type { SearchFilters } from "@/lib/validation/blocks";
 import { apiJson } from "./http";
 
-export interface SearchFilters { q?: string; category?: string; badge?: string; tag?: string; team?: string; approved?: string; sort?: string }
-export interface SearchAnswer { items: BlockRow[]; nextCursor: string | null; estimatedTotal: number; facets?: Record<string, Record<string, number>> }
+export type { SearchFilters, SearchResult };
 
-export function searchUrl(f: SearchFilters): string {
+/** The filters as a query string, empty values left out: the API's address and the library page's. */
+export function searchQueryString(f: Record<string, string | number | boolean | undefined>): string {
   const qs = new URLSearchParams();
-  for (const [k, v] of Object.entries(f)) if (v) qs.set(k, v);
-  qs.set("limit", "50");
-  return `/api/v1/blocks?${qs}`;
+  for (const [k, v] of Object.entries(f)) if (v !== undefined && v !== "") qs.set(k, String(v));
+  return qs.toString();
 }
 
-export const fetchSearchBlocks = (f: SearchFilters, signal?: AbortSignal) => apiJson<SearchAnswer>(searchUrl(f), { signal });
+export const searchUrl = (f: SearchFilters): string => `/api/v1/blocks?${searchQueryString({ ...f, limit: 50 })}`;
 
-export const searchBlocksQueryOptions = (f: SearchFilters) =>
-  queryOptions({ queryKey: ["blocks", "search", f], queryFn: ({ signal }) => fetchSearchBlocks(f, signal), placeholderData: keepPreviousData });
+export const fetchSearchBlocks = (f: SearchFilters, signal?: AbortSignal) => apiJson<SearchResult>(searchUrl(f), { signal });
 
-export const useSearchBlocks = (f: SearchFilters) => useQuery(searchBlocksQueryOptions(f));
+/** `initial` is what the server rendered for `initialFor`: that search is not asked again on arrival. */
+export const searchBlocksQueryOptions = (f: SearchFilters, initial?: { for: string; data: SearchResult | null }) =>
+  queryOptions({
+    queryKey: ["blocks", "search", f],
+    queryFn: ({ signal }) => fetchSearchBlocks(f, signal),
+    placeholderData: keepPreviousData,
+    initialData: initial?.data && initial.for === searchQueryString(f) ? initial.data : undefined,
+    staleTime: 30_000,
+  });
+
+export const useSearchBlocks = (f: SearchFilters, initial?: { for: string; data: SearchResult | null }) =>
+  useQuery(searchBlocksQueryOptions(f, initial));

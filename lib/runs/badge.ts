@@ -1,10 +1,10 @@
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { ENGINE_VERSION, modelLibraryHash } from "@/checks";
 import type { CheckRun } from "@/entities";
+import type { Badge } from "@/lib/badges/badges";
 import { getEm } from "@/lib/db/orm";
 
-export const BADGES = ["unchecked", "pending", "verified", "failing", "error", "stale"] as const;
-export type Badge = (typeof BADGES)[number];
+export { BADGES, type Badge } from "@/lib/badges/badges";
 
 /** What a run must have been made with to count as current. */
 export interface EngineStamp {

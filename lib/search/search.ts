@@ -1,40 +1,11 @@
-import type { Caller } from "@/lib/auth/caller";
-import { readableTeamIds } from "@/lib/auth/permissions";
+import type { Ctx } from "@/lib/context";
+import type { SearchQuery } from "@/lib/validation/blocks";
 import { blocksIndex, type BlockDocument } from "./client";
+import { searchFilter, toMeiliFilter } from "./filter";
 import { ensureBlocksIndex } from "./settings";
+import type { BlockSummary, HighlightRun, SearchResult } from "./types";
 
-export interface SearchParams {
-  q?: string;
-  category?: string;
-  badge?: string;
-  tag?: string;
-  team?: string;
-  approved?: boolean;
-  sort?: "relevance" | "updated" | "title";
-  cursor?: string;
-  limit?: number;
-}
-
-export interface BlockSummary {
-  slug: string;
-  title: string;
-  summary: string;
-  category: string;
-  tags: string[];
-  team: string;
-  visibility: "team" | "public";
-  version: number;
-  badge: string;
-  approved: boolean;
-  updatedAt: string;
-  /** Title and summary cut into plain and matched runs, so the page never renders stored text as HTML. */
-  highlight?: { title: HighlightRun[]; summary: HighlightRun[] };
-}
-
-export interface HighlightRun {
-  text: string;
-  match: boolean;
-}
+export type { BlockSummary, HighlightRun, SearchResult };
 
 // Control characters cannot occur in titles or summaries, so they mark matches unambiguously.
 const PRE = "\u0002";
@@ -55,31 +26,6 @@ export function splitHighlight(formatted: string): HighlightRun[] {
   return runs;
 }
 
-export interface SearchResult {
-  items: BlockSummary[];
-  nextCursor: string | null;
-  estimatedTotal: number;
-  facets: Record<string, Record<string, number>>;
-}
-
-const quote = (v: string) => `"${v.replace(/\\/g, "\\\\").replace(/"/g, '\\"')}"`;
-
-/** The reader's rights go inside the search filter itself, so hits and facet counts never show other teams' blocks. */
-export function visibilityFilter(caller: Caller): string {
-  const teams = readableTeamIds(caller);
-  return teams.length ? `(visibility = public OR teamId IN [${teams.join(", ")}])` : "visibility = public";
-}
-
-export function buildFilter(caller: Caller, p: SearchParams): string[] {
-  const filter = [visibilityFilter(caller)];
-  if (p.category) filter.push(`category = ${quote(p.category)}`);
-  if (p.badge) filter.push(`badge = ${quote(p.badge)}`);
-  if (p.tag) filter.push(`tags = ${quote(p.tag)}`);
-  if (p.team) filter.push(`team = ${quote(p.team)}`);
-  if (p.approved !== undefined) filter.push(`approved = ${p.approved}`);
-  return filter;
-}
-
 // Cursors are opaque offsets: stable enough for a library that changes slowly, and the API promises nothing more.
 const encodeCursor = (offset: number) => Buffer.from(`o:${offset}`).toString("base64url");
 function decodeCursor(cursor?: string): number {
@@ -98,7 +44,7 @@ export function toSummary(doc: BlockDocument & { _formatted?: Partial<Record<key
     team: doc.team,
     visibility: doc.visibility,
     version: doc.version,
-    badge: doc.badge,
+    badge: doc.badge as BlockSummary["badge"],
     approved: doc.approved,
     updatedAt: new Date(doc.updatedAt).toISOString(),
     highlight: doc._formatted
@@ -110,13 +56,14 @@ export function toSummary(doc: BlockDocument & { _formatted?: Partial<Record<key
   };
 }
 
-export async function searchBlocks(caller: Caller, p: SearchParams): Promise<SearchResult> {
+/** Blocks the caller may read that match the query, with facet counts; `input` is the API's parsed query. */
+export async function searchBlocks({ caller }: Ctx, p: SearchQuery): Promise<SearchResult> {
   await ensureBlocksIndex();
   const limit = Math.min(Math.max(p.limit ?? 20, 1), 100);
   const offset = decodeCursor(p.cursor);
   const sort = p.sort === "updated" ? ["updatedAt:desc"] : p.sort === "title" ? ["title:asc"] : p.q ? undefined : ["updatedAt:desc"];
   const res = await blocksIndex().search(p.q ?? "", {
-    filter: buildFilter(caller, p),
+    filter: toMeiliFilter(searchFilter(caller, p)),
     facets: ["category", "badge", "tags", "team", "approved"],
     limit,
     offset,

@@ -1,10 +1,10 @@
 import { z } from "zod";
 import { CATEGORIES } from "@/entities/block.entity";
+import { BADGES } from "@/lib/badges/badges";
 import { cursorSchema, limitSchema, slugSchema, storedText, teamSlugSchema, versionNumberSchema } from "./api";
 
 // Request bodies and the JSON the API answers with. These schemas are also the source of /api/v1/openapi.json.
 
-export const BADGES = ["unchecked", "pending", "verified", "failing", "error", "stale"] as const;
 export const badgeSchema = z.enum(BADGES).meta({ description: "State of one version's checks" }).openapi("Badge");
 export const categorySchema = z.enum(CATEGORIES);
 export const E_SERIES = ["E3", "E6", "E12", "E24", "E48", "E96", "E192"] as const;
@@ -108,3 +108,5 @@ export type RetuneForm = z.infer<typeof retuneFormSchema>;
 export type EvaluateBody = z.infer<typeof evaluateBodySchema>;
 export type RetuneBody = z.infer<typeof retuneBodySchema>;
 export type SearchQuery = z.infer<typeof searchQuerySchema>;
+/** The search as a form or an address holds it (strings), before the schema coerces it. */
+export type SearchFilters = Omit<z.input<typeof searchQuerySchema>, "limit" | "cursor">;

@@ -40,6 +40,30 @@ describe("the library in a browser", () => {
     await settle(page, "01-library-signed-in", errors);
   });
 
+  it("asks the server once per settled keystroke: the API search, never the page again", async () => {
+    const library = new LibraryPage(page);
+    await library.open();
+    await page.waitForLoadState("networkidle").catch(() => undefined);
+    const seen: string[] = [];
+    const count = (r: { url: () => string }) => {
+      const path = new URL(r.url()).pathname;
+      if (path === "/api/v1/blocks") seen.push("search");
+      else if (path === "/") seen.push("page");
+    };
+    page.on("request", count);
+    const box = page.getByLabel("Search blocks");
+    // Each key waits past the 200 ms debounce, so every key is a search of its own.
+    for (const key of "wien") {
+      await box.press(key);
+      await page.waitForTimeout(500);
+    }
+    await library.resultLink(/Wien/).first().waitFor({ timeout: 30_000 });
+    await page.waitForLoadState("networkidle").catch(() => undefined);
+    page.off("request", count);
+    expect(seen).toEqual(["search", "search", "search", "search"]);
+    expect(new URL(page.url()).search).toBe("?q=wien");
+  });
+
   it("finds the limiter despite a typo and opens the verified block", async () => {
     const library = new LibraryPage(page);
     await library.open();

@@ -7,6 +7,7 @@ import { getBlock, listVersions } from "@/lib/blocks/read";
 import { addVersion } from "@/lib/blocks/versions";
 import { archiveBlock, setVisibility } from "@/lib/blocks/archive";
 import { failingInMyTeams, myBlocks, recentlyVerified } from "@/lib/blocks/lists";
+import { contextFor } from "@/lib/context";
 import { anonymous } from "@/lib/auth/caller";
 import { closeOrm, getEm } from "@/lib/db/orm";
 import type { AppError } from "@/lib/errors";
@@ -82,9 +83,9 @@ describe("watches and the outbox", () => {
     await drain(team);
     const finished = await lastEvent("run.finished", slug);
     expect(finished.payload).toMatchObject({ version: 2, badge: "failing", previousBadge: "verified", isHead: true, watchers: [team.viewer.user!.email] });
-    expect((await failingInMyTeams(team.viewer)).map((b) => b.slug)).toContain(slug);
-    expect((await recentlyVerified(team.viewer, 50)).map((b) => b.slug)).not.toContain(slug);
-    expect((await myBlocks(team.author)).map((b) => b.slug)).toContain(slug);
+    expect((await failingInMyTeams(await contextFor(team.viewer))).map((b) => b.slug)).toContain(slug);
+    expect((await recentlyVerified(await contextFor(team.viewer), 50)).map((b) => b.slug)).not.toContain(slug);
+    expect((await myBlocks(await contextFor(team.author))).map((b) => b.slug)).toContain(slug);
 
     await unwatch(team.viewer, slug);
     expect(await isWatching(team.viewer, slug)).toBe(false);
@@ -99,7 +100,7 @@ describe("watches and the outbox", () => {
     expect((await lastEvent("block.updated", slug)).payload).toMatchObject({ change: "visibility", visibility: "public", previous: "team" });
     expect((await getBlock(anonymous, slug)).visibility).toBe("public");
     await drain(team);
-    expect((await recentlyVerified(anonymous, 100)).map((b) => b.slug)).toContain(slug);
+    expect((await recentlyVerified(await contextFor(anonymous), 100)).map((b) => b.slug)).toContain(slug);
     await archiveBlock(team.maintainer, slug);
     expect((await lastEvent("block.archived", slug)).payload).toMatchObject({ slug, archived: true });
     expect(await code(addVersion(team.author, slug, { params: { Rf: "24 kohm" }, baseVersion: 1 }))).toBe("conflict");

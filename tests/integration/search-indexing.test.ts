@@ -5,8 +5,13 @@ import { createBlock } from "@/lib/blocks/create";
 import { closeOrm, getEm } from "@/lib/db/orm";
 import { indexBacklog } from "@/lib/search/backlog";
 import { processIndexBacklog } from "@/lib/search/indexer";
+import type { Caller } from "@/lib/auth/caller";
+import { contextFor } from "@/lib/context";
 import { searchBlocks } from "@/lib/search/search";
+import { searchQuerySchema } from "@/lib/validation/blocks";
 import { makeTeam, rcBlock } from "../support/people";
+
+const search = async (caller: Caller, q: string) => searchBlocks(await contextFor(caller), searchQuerySchema.parse({ q }));
 
 afterAll(closeOrm);
 
@@ -20,23 +25,23 @@ describe("indexing from the outbox", () => {
     const slug = `quartzline-${tag}`;
     await createBlock(callers.author, { teamSlug: callers.author.memberships[0].teamSlug, text: rcBlock(slug, `Quartzline filter ${tag}`) });
     await drain();
-    const mine = await searchBlocks(callers.author, { q: `quartzline ${tag}` });
+    const mine = await search(callers.author, `quartzline ${tag}`);
     expect(mine.items.map((i) => i.slug)).toContain(slug);
     // Team visibility: nobody outside the team sees it, not even in facet counts.
-    const outside = await searchBlocks(anonymous, { q: `quartzline ${tag}` });
+    const outside = await search(anonymous, `quartzline ${tag}`);
     expect(outside.items.map((i) => i.slug)).not.toContain(slug);
     const other = await makeTeam(["admin"]);
-    const otherHits = await searchBlocks(other.callers.admin, { q: tag });
+    const otherHits = await search(other.callers.admin, tag);
     expect(otherHits.items).toHaveLength(0);
     expect(Object.values(otherHits.facets.category ?? {}).reduce((a, b) => a + b, 0)).toBe(0);
 
     await setVisibility(callers.maintainer, slug, "public");
     await drain();
-    expect((await searchBlocks(anonymous, { q: `quartzline ${tag}` })).items.map((i) => i.slug)).toContain(slug);
+    expect((await search(anonymous, `quartzline ${tag}`)).items.map((i) => i.slug)).toContain(slug);
 
     await archiveBlock(callers.maintainer, slug);
     await drain();
-    expect((await searchBlocks(callers.author, { q: `quartzline ${tag}` })).items).toHaveLength(0);
+    expect((await search(callers.author, `quartzline ${tag}`)).items).toHaveLength(0);
   });
 
   it("finds a block with a typo in a word of five letters or more", async () => {
@@ -45,7 +50,7 @@ describe("indexing from the outbox", () => {
     await createBlock(callers.author, { teamSlug: callers.author.memberships[0].teamSlug, text: rcBlock(slug, `Soft limiter ${tag}`) });
     await drain();
     // Meilisearch's documented typo rule: one typo allowed from five letters ("limitr" for "limiter").
-    const hits = await searchBlocks(callers.author, { q: `limitr ${tag}` });
+    const hits = await search(callers.author, `limitr ${tag}`);
     expect(hits.items.map((i) => i.slug)).toContain(slug);
     expect(hits.items.find((i) => i.slug === slug)?.highlight?.title.some((r) => r.match)).toBe(true);
   });
@@ -64,6 +69,6 @@ describe("indexing from the outbox", () => {
     }
     await drain();
     expect(await indexBacklog(await getEm())).toBe(0);
-    expect((await searchBlocks(callers.author, { q: `outage ${tag}` })).items.map((i) => i.slug)).toContain(slug);
+    expect((await search(callers.author, `outage ${tag}`)).items.map((i) => i.slug)).toContain(slug);
   });
 });

@@ -4,6 +4,7 @@ import { created } from "@/lib/api/created";
 import { route } from "@/lib/api/handler";
 import { callerFromRequest } from "@/lib/auth/request-caller";
 import { createBlock } from "@/lib/blocks/create";
+import { requestContext } from "@/lib/context";
 import { searchBlocks } from "@/lib/search/search";
 import { queryObject } from "@/lib/validation/api";
 import { createQuerySchema, searchQuerySchema } from "@/lib/validation/blocks";
@@ -12,8 +13,7 @@ export const dynamic = "force-dynamic";
 
 export const GET = route(async (req) => {
   const query = searchQuerySchema.parse(queryObject(req.url));
-  const caller = await callerFromRequest(req);
-  const { items, nextCursor, estimatedTotal, facets } = await searchBlocks(caller, query);
+  const { items, nextCursor, estimatedTotal, facets } = await searchBlocks(await requestContext(req), query);
   return Response.json({ items, nextCursor, estimatedTotal, facets }, { headers: { ...noStore, Vary: "Authorization, Cookie" } });
 });
 
