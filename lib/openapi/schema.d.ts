@@ -1343,6 +1343,10 @@ export interface operations {
                     "application/json": {
                         db: string;
                         indexBacklog: number;
+                        /** @description Under npm start: each part it runs, ok or why it is down and when it restarts */
+                        parts?: {
+                            [key: string]: string;
+                        };
                         search: string;
                         worker: string;
                     };
