@@ -5,12 +5,12 @@ import type { BlockError, ParamSpec } from "./types";
 // Names the script gives its own meaning; a parameter may shadow a unit but not these.
 export const RESERVED = new Set([
   "check", "near", "tran", "ac", "op", "peak", "trough", "pp", "rms", "avg", "freq", "thd", "at",
-  "startup", "gain_db", "phase", "f3db", "v", "i", "eseries",
+  "startup", "gain_db", "phase", "f3db", "v", "i", "eseries", "montecarlo", "sweep",
 ]);
 const IDENT = /^[A-Za-z_][A-Za-z0-9_]*$/;
 // A negative or zero part value is a typo, and ngspice would simulate it without complaint.
 const POSITIVE: Record<string, string> = { ohm: "a resistance", F: "a capacitance", H: "an inductance" };
-const PARAM_KEYS = new Set(["name", "value", "tol", "note"]);
+const PARAM_KEYS = new Set(["name", "value", "tol", "dist", "note"]);
 
 /** Why a resistance, capacitance or inductance value is refused, or null. */
 export function notPositive(name: string, value: string, q: { si: number; unit: string }): string | null {
@@ -54,7 +54,7 @@ export function readParams(node: Node | null | undefined, lineOf: (n: Node | nul
     const map = item as YAMLMap;
     for (const p of map.items) {
       const k = isScalar(p.key) ? String(p.key.value) : "";
-      if (!PARAM_KEYS.has(k)) errors.push({ message: `unknown parameter key "${k}" (use name, value, tol, note)`, line: lineOf(p.key as Node) });
+      if (!PARAM_KEYS.has(k)) errors.push({ message: `unknown parameter key "${k}" (use name, value, tol, dist, note)`, line: lineOf(p.key as Node) });
     }
     const str = (k: string) => {
       const v = map.get(k, true) as Node | undefined;
@@ -104,6 +104,9 @@ export function readParams(node: Node | null | undefined, lineOf: (n: Node | nul
           errors.push({ message: `parameter "${name}": ${(e as Error).message}`, line: lineOf(map.get("tol", true) as Node) });
         }
     }
+    const dist = str("dist");
+    if (dist === "normal" || dist === "uniform") spec.dist = dist;
+    else if (map.has("dist")) errors.push({ message: `parameter "${name}": dist is normal or uniform, not "${dist ?? ""}"`, line });
     const note = str("note");
     if (note !== undefined) spec.note = note;
     out.push(spec);

@@ -4,6 +4,8 @@ export type ParamSpec = {
   name: string;
   value: string;
   tol?: string;
+  /** Monte Carlo distribution: normal (default, tol = 3σ) or uniform over the band. */
+  dist?: "normal" | "uniform";
   note?: string;
   si: number;
   unit: string;

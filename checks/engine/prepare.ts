@@ -31,6 +31,8 @@ function slugGuess(text: string): string {
 /** A fresh script scope: the built-ins, then the parameters as quantities (they win over unit names). */
 export function scopeFor(block: ParsedBlock, values: Record<string, number>, hooks: SimHooks): Map<string, unknown> {
   const scope = builtins(hooks);
+  // Read by the engine before any run (engine/script-facts.ts); as a statement it does nothing.
+  scope.set("montecarlo", () => undefined);
   for (const p of block.params) scope.set(p.name, fromQuantity(values[p.name] ?? p.si, p.unit));
   return scope;
 }

@@ -68,6 +68,6 @@ export function retuneBlock(text: string, req: RetuneRequest): { value: string; 
   const snappedSi = eseries(solved, req.series);
   const value = formatQuantity(solved, spec.unit);
   const snapped = formatQuantity(snappedSi, spec.unit, 3);
-  const report = evaluateBlock(withParams(text, { [spec.name]: snapped }), { simulate: false }).report;
+  const report = evaluateBlock(withParams(text, { [spec.name]: snapped })).report;
   return { value, snapped, report };
 }

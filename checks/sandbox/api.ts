@@ -1,5 +1,7 @@
 // The sandboxed entry points. Kept apart from index.ts so a caller that only verifies (the CLI)
 // does not load mathjs in its own process: the child does all evaluation.
+import type { RunProgress, SimExecutor } from "../engine/executor";
+import { runCapFromEnv, type RunCap } from "../engine/plan";
 import type { Report, Waveform } from "../engine/types";
 import { reportStatus } from "../engine/status";
 import { previewLane, verifyLane } from "./client";
@@ -23,13 +25,24 @@ export function warmEngine(): void {
   verifyLane.warm();
 }
 
+export type VerifyOptions = {
+  simulate?: boolean;
+  params?: Record<string, string>;
+  timeoutMs?: number;
+  /** Simulation cache folder of the default (local) executor. */
+  cacheDir?: string;
+  /** Runs the simulations instead of ngspice processes in the sandbox child (e.g. a queue over workers). */
+  executor?: SimExecutor;
+  /** Simulations finished of those the run needs, as they finish. */
+  onProgress?: RunProgress;
+  /** Default: ASSAY_RUN_MAX_SIMULATIONS / ASSAY_RUN_MAX_SIM_SECONDS of this process. */
+  cap?: RunCap;
+};
+
 /** Full verification in the sandbox child. Never throws for bad input: errors go in the report. */
-export async function verifyBlock(
-  text: string,
-  opts: { simulate?: boolean; params?: Record<string, string>; timeoutMs?: number; cacheDir?: string } = {},
-): Promise<{ report: Report; waveforms: Waveform[] }> {
-  const { timeoutMs = VERIFY_TIMEOUT_MS, ...rest } = opts;
-  const reply = await verifyLane.request("verify", String(text ?? ""), rest, timeoutMs);
+export async function verifyBlock(text: string, opts: VerifyOptions = {}): Promise<{ report: Report; waveforms: Waveform[] }> {
+  const { timeoutMs = VERIFY_TIMEOUT_MS, executor, onProgress, cap = runCapFromEnv(), ...rest } = opts;
+  const reply = await verifyLane.request("verify", String(text ?? ""), { ...rest, cap, remote: Boolean(executor) }, timeoutMs, { executor, progress: onProgress });
   if (!reply.ok) return { report: errorReport(text, reply.error ?? "the check run failed"), waveforms: [] };
   return reply.value as { report: Report; waveforms: Waveform[] };
 }

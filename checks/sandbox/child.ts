@@ -1,43 +1,63 @@
 // Entry of the sandbox child: evaluates block files sent over IPC, one request at a time.
 // The parent kills it on a wall-clock timeout; --max-old-space-size bounds its memory.
-import { evaluateBlock } from "../engine/evaluate-block";
+import { evaluateBlock, evaluateBlockAsync } from "../engine/evaluate-block";
+import type { SimExecutor, SimOutcome } from "../engine/executor";
+import type { RunCap } from "../engine/plan";
+import type { SimSide } from "../engine/variant";
 import { retuneBlock } from "../engine/retune";
-import type { SimBackend } from "../engine/types";
 
 type Request = { id: number; op: "verify" | "preview" | "retune"; text: string; opts?: Record<string, unknown> };
+type Outcomes = { kind: "outcomes"; call: number; outcomes?: SimOutcome[]; error?: string };
 
-const backends = new Map<string, SimBackend>();
-function simulator(cacheDir?: string): SimBackend {
-  // Loaded on first use so previews never pay for the simulator side.
-  const key = cacheDir ?? "";
-  if (!backends.has(key)) {
-    const { simBackend } = require("./sim-backend") as { simBackend: (o: { cacheDir?: string }) => SimBackend };
-    backends.set(key, simBackend({ cacheDir }));
-  }
-  return backends.get(key)!;
-}
+// Loaded on first use so previews never pay for the simulator side.
+let side: SimSide | undefined;
+const simulator = () => (side ??= (require("./sim-side") as typeof import("./sim-side")).simSide());
+const local = (cacheDir?: string): SimExecutor =>
+  (require("../spice/local-executor") as typeof import("../spice/local-executor")).localExecutor({ cacheDir });
 
-function handle(req: Request): unknown {
+// The parent's executor (a queue spreading simulations over workers), reached over IPC.
+const calls = new Map<number, { resolve: (o: SimOutcome[]) => void; reject: (e: Error) => void }>();
+let nextCall = 1;
+const remote = (id: number): SimExecutor => ({
+  runMany: (reqs) =>
+    new Promise((resolve, reject) => {
+      const call = nextCall++;
+      calls.set(call, { resolve, reject });
+      process.send!({ id, kind: "runMany", call, reqs });
+    }),
+});
+
+async function handle(req: Request): Promise<unknown> {
   const opts = req.opts ?? {};
   switch (req.op) {
     case "verify": {
-      const simulate = opts.simulate !== false;
-      return evaluateBlock(req.text, { simulate, params: opts.params as Record<string, string>, backend: simulate ? simulator(opts.cacheDir as string | undefined) : undefined });
+      const params = opts.params as Record<string, string> | undefined;
+      if (opts.simulate === false) return evaluateBlock(req.text, { params });
+      const executor = opts.remote ? remote(req.id) : local(opts.cacheDir as string | undefined);
+      const progress = (done: number, total: number) => process.send!({ id: req.id, kind: "progress", done, total });
+      return evaluateBlockAsync(req.text, { simulate: true, params, executor, side: simulator(), progress, cap: opts.cap as RunCap | undefined });
     }
     case "preview":
-      return evaluateBlock(req.text, { simulate: false, params: opts.params as Record<string, string> }).report;
+      return evaluateBlock(req.text, { params: opts.params as Record<string, string> }).report;
     case "retune":
       return retuneBlock(req.text, opts as never);
   }
 }
 
-process.on("message", (req: Request) => {
+process.on("message", async (m: Request | Outcomes) => {
+  if ("kind" in m) {
+    const c = calls.get(m.call);
+    calls.delete(m.call);
+    if (m.outcomes) c?.resolve(m.outcomes);
+    else c?.reject(new Error(m.error ?? "the executor failed"));
+    return;
+  }
   let reply: { id: number; ok: boolean; value?: unknown; error?: string };
   try {
-    reply = { id: req.id, ok: true, value: handle(req) };
+    reply = { id: m.id, ok: true, value: await handle(m) };
   } catch (e) {
     const err = e as Error;
-    reply = { id: req.id, ok: false, error: err instanceof RangeError ? `the script ran too deep: ${err.message}` : err.message };
+    reply = { id: m.id, ok: false, error: err instanceof RangeError ? `the script ran too deep: ${err.message}` : err.message };
   }
   process.send!(reply);
 });

@@ -1,4 +1,5 @@
 import { fork, type ChildProcess } from "node:child_process";
+import type { RunProgress, SimExecutor, SimRequest } from "../engine/executor";
 import { assayRoot, childEntry } from "./root";
 
 // The child runs scripts from users: give it what it needs to run and no secrets (database URL, keys).
@@ -10,7 +11,10 @@ function childEnv(root: string): Record<string, string> {
 }
 
 type Reply = { id: number; ok: boolean; value?: unknown; error?: string };
-type Pending = { resolve: (r: Reply) => void; timer: NodeJS.Timeout; timeoutMs: number };
+/** What the child asks of the parent during a run: simulations, and news of progress. */
+type Ask = { id: number; kind: "runMany"; call: number; reqs: SimRequest[] } | { id: number; kind: "progress"; done: number; total: number };
+export type RunHooks = { executor?: SimExecutor; progress?: RunProgress };
+type Pending = { resolve: (r: Reply) => void; timer: NodeJS.Timeout; timeoutMs: number; hooks?: RunHooks };
 
 /**
  * One warm sandbox child: requests run one at a time; a request that runs past its time
@@ -32,8 +36,8 @@ export class SandboxLane {
     if (!this.child) this.start().then(() => this.idle(), () => undefined);
   }
 
-  request(op: string, text: string, opts: unknown, timeoutMs: number): Promise<Reply> {
-    const run = this.queue.then(() => this.send(op, text, opts, timeoutMs));
+  request(op: string, text: string, opts: unknown, timeoutMs: number, hooks?: RunHooks): Promise<Reply> {
+    const run = this.queue.then(() => this.send(op, text, opts, timeoutMs, hooks));
     this.queue = run.catch(() => undefined);
     return run;
   }
@@ -56,9 +60,10 @@ export class SandboxLane {
       child.on("message", onFirst);
       child.once("exit", (code) => reject(new Error(`the sandbox did not start (exit ${code}): ${this.stderr.trim().split("\n").slice(-3).join(" ")}`)));
     });
-    child.on("message", (m: Reply) => {
+    child.on("message", (m: Reply | Ask) => {
       const p = this.pending.get(m.id);
       if (!p) return;
+      if ("kind" in m) return this.answer(child, p, m);
       clearTimeout(p.timer);
       this.pending.delete(m.id);
       this.idle();
@@ -79,6 +84,17 @@ export class SandboxLane {
     return this.ready;
   }
 
+  /** Run the child's simulations on the caller's executor and pass its progress on. */
+  private answer(child: ChildProcess, p: Pending, m: Ask) {
+    if (m.kind === "progress") return p.hooks?.progress?.(m.done, m.total);
+    const executor = p.hooks?.executor;
+    if (!executor) return child.send({ kind: "outcomes", call: m.call, error: "no executor was given for this run" });
+    executor.runMany(m.reqs).then(
+      (outcomes) => child.connected && child.send({ kind: "outcomes", call: m.call, outcomes }),
+      (e: Error) => child.connected && child.send({ kind: "outcomes", call: m.call, error: e.message }),
+    );
+  }
+
   private idle() {
     if (this.pending.size === 0 && this.child) {
       this.child.unref();
@@ -87,7 +103,7 @@ export class SandboxLane {
     }
   }
 
-  private async send(op: string, text: string, opts: unknown, timeoutMs: number): Promise<Reply> {
+  private async send(op: string, text: string, opts: unknown, timeoutMs: number, hooks?: RunHooks): Promise<Reply> {
     if (!this.child || !this.ready) this.start();
     const child = this.child!;
     child.ref();
@@ -106,7 +122,7 @@ export class SandboxLane {
         if (this.child === child) [this.child, this.ready] = [null, null];
         child.kill("SIGKILL");
       }, timeoutMs);
-      this.pending.set(id, { resolve, timer, timeoutMs });
+      this.pending.set(id, { resolve, timer, timeoutMs, hooks });
       child.send({ id, op, text, opts });
     });
   }

@@ -35,6 +35,12 @@ export function simulate(req: SimRequest, opts: SimOptions = {}): SimResult {
   return { ...result, ms: Math.round((performance.now() - t0) * 10) / 10, cached: hit !== null };
 }
 
+/** A raw file ngspice wrote for this analysis, as the measures read it. */
+export function resultFromRaw(kind: SimResult["analysis"], raw: Uint8Array, ms: number, cached: boolean): SimResult {
+  const buf = Buffer.isBuffer(raw) ? raw : Buffer.from(raw.buffer, raw.byteOffset, raw.byteLength);
+  return { ...toResult(kind, parseRawFile(buf)), ms, cached };
+}
+
 const PLOT_NAME = { tran: /transient/i, ac: /^ac/i, op: /operating point/i } as const;
 
 function toResult(kind: SimResult["analysis"], plots: RawPlot[]): Omit<SimResult, "ms" | "cached"> {

@@ -1,4 +1,4 @@
-import { spawnSync } from "node:child_process";
+import { spawn, spawnSync } from "node:child_process";
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
@@ -18,43 +18,95 @@ export type NgspiceRun = { raw: Buffer; log: string; ms: number };
  */
 export function runNgspice(
   deck: string,
-  opts: { timeoutMs?: number; spinit?: string; circuitOffset?: number; circuit?: string; maxRawBytes?: number } = {},
+  opts: RunOptions = {},
 ): NgspiceRun {
+  const job = prepareRun(deck, opts);
+  try {
+    const t0 = performance.now();
+    const r = spawnSync(job.command, job.args, { ...job.spawn, encoding: "utf8", timeout: job.timeoutMs, killSignal: "SIGKILL", maxBuffer: 8 * 1024 * 1024 });
+    const code = (r.error as NodeJS.ErrnoException | undefined)?.code;
+    return finishRun(job, { status: r.status, signal: r.signal, stdout: r.stdout ?? "", stderr: r.stderr ?? "", error: r.error, timedOut: code === "ETIMEDOUT", overflow: code === "ENOBUFS" }, performance.now() - t0, opts);
+  } finally {
+    fs.rmSync(job.dir, { recursive: true, force: true });
+  }
+}
+
+/** The same run without blocking the event loop, so an executor can keep several ngspice processes busy. */
+export async function runNgspiceAsync(deck: string, opts: RunOptions = {}): Promise<NgspiceRun> {
+  const job = prepareRun(deck, opts);
+  try {
+    const t0 = performance.now();
+    const r = await new Promise<Exit>((resolve) => {
+      const child = spawn(job.command, job.args, { ...job.spawn, stdio: ["ignore", "pipe", "pipe"] });
+      let stdout = "";
+      let stderr = "";
+      let overflow = false;
+      let timedOut = false;
+      const take = (add: string, to: "out" | "err") => {
+        if (stdout.length + stderr.length + add.length > 8 * 1024 * 1024) {
+          overflow = true;
+          child.kill("SIGKILL");
+          return;
+        }
+        if (to === "out") stdout += add;
+        else stderr += add;
+      };
+      child.stdout!.setEncoding("utf8").on("data", (d: string) => take(d, "out"));
+      child.stderr!.setEncoding("utf8").on("data", (d: string) => take(d, "err"));
+      const timer = setTimeout(() => {
+        timedOut = true;
+        child.kill("SIGKILL");
+      }, job.timeoutMs);
+      child.on("error", (error) => {
+        clearTimeout(timer);
+        resolve({ status: null, signal: null, stdout, stderr, error, timedOut, overflow });
+      });
+      child.on("close", (status, signal) => {
+        clearTimeout(timer);
+        resolve({ status, signal, stdout, stderr, timedOut, overflow });
+      });
+    });
+    return finishRun(job, r, performance.now() - t0, opts);
+  } finally {
+    await fs.promises.rm(job.dir, { recursive: true, force: true });
+  }
+}
+
+type RunOptions = { timeoutMs?: number; spinit?: string; circuitOffset?: number; circuit?: string; maxRawBytes?: number };
+type Job = { dir: string; command: string; args: string[]; spawn: { cwd: string; env: NodeJS.ProcessEnv }; timeoutMs: number; cpu: number; maxRaw: number };
+type Exit = { status: number | null; signal: NodeJS.Signals | null; stdout: string; stderr: string; error?: Error; timedOut: boolean; overflow: boolean };
+
+function prepareRun(deck: string, opts: RunOptions): Job {
   const timeoutMs = opts.timeoutMs ?? DEFAULT_TIMEOUT_MS;
   const maxRaw = opts.maxRawBytes ?? MAX_RAW_BYTES;
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), "assay-spice-"));
-  try {
-    fs.mkdirSync(path.join(dir, "scripts"));
-    fs.writeFileSync(path.join(dir, "scripts", "spinit"), opts.spinit ?? "");
-    fs.writeFileSync(path.join(dir, "deck.cir"), deck);
-    const cpu = Math.ceil(timeoutMs / 1000) + 1;
-    const t0 = performance.now();
-    const r = spawnSync(
-      "prlimit",
-      [`--as=${MAX_MEMORY_BYTES}`, `--cpu=${cpu}`, `--fsize=${maxRaw}`, "--", "ngspice", "-b", "-r", "out.raw", "deck.cir"],
-      {
-        cwd: dir, encoding: "utf8", timeout: timeoutMs, killSignal: "SIGKILL", maxBuffer: 8 * 1024 * 1024,
-        // A minimal environment: nothing of the app (secrets, URLs) reaches the simulator.
-        env: { PATH: process.env.PATH ?? "/usr/bin:/bin", HOME: dir, TMPDIR: dir, LANG: "C", SPICE_SCRIPTS: path.join(dir, "scripts"), NODE_ENV: process.env.NODE_ENV },
-      },
-    );
-    const ms = performance.now() - t0;
-    const log = `${r.stderr ?? ""}\n${r.stdout ?? ""}`;
-    if (r.error && (r.error as NodeJS.ErrnoException).code === "ETIMEDOUT")
-      throw new SpiceError(`ngspice did not finish within ${timeoutMs / 1000} s`);
-    if (r.error && (r.error as NodeJS.ErrnoException).code === "ENOBUFS") throw new SpiceError("ngspice printed more than 8 MB of messages");
-    if (r.error) throw new SpiceError(`cannot run ngspice: ${r.error.message}`);
-    if (r.signal === "SIGXCPU") throw new SpiceError(`ngspice used more than ${cpu} s of CPU`);
-    if (r.signal === "SIGXFSZ") throw new SpiceError(`simulation output exceeds ${+(maxRaw / 2 ** 20).toFixed(2)} MB`);
-    if (r.signal) throw new SpiceError(`ngspice was stopped by ${r.signal} (CPU limit ${cpu} s, memory limit ${MAX_MEMORY_BYTES / 2 ** 20} MB)`);
-    const rawPath = path.join(dir, "out.raw");
-    // ngspice warns on stderr and carries on; only a bad exit, no raw file or an aborted analysis fails.
-    if (r.status !== 0 || !fs.existsSync(rawPath) || ABORTED.test(log))
-      throw ngspiceFailure(r.stderr ?? "", opts.circuitOffset ?? 0, opts.circuit ?? "") ?? new SpiceError(`ngspice failed (exit ${r.status ?? r.signal}): ${lastLines(log)}`);
-    return { raw: fs.readFileSync(rawPath), log, ms };
-  } finally {
-    fs.rmSync(dir, { recursive: true, force: true });
-  }
+  fs.mkdirSync(path.join(dir, "scripts"));
+  fs.writeFileSync(path.join(dir, "scripts", "spinit"), opts.spinit ?? "");
+  fs.writeFileSync(path.join(dir, "deck.cir"), deck);
+  const cpu = Math.ceil(timeoutMs / 1000) + 1;
+  return {
+    dir, timeoutMs, cpu, maxRaw,
+    command: "prlimit",
+    args: [`--as=${MAX_MEMORY_BYTES}`, `--cpu=${cpu}`, `--fsize=${maxRaw}`, "--", "ngspice", "-b", "-r", "out.raw", "deck.cir"],
+    // A minimal environment: nothing of the app (secrets, URLs) reaches the simulator.
+    spawn: { cwd: dir, env: { PATH: process.env.PATH ?? "/usr/bin:/bin", HOME: dir, TMPDIR: dir, LANG: "C", SPICE_SCRIPTS: path.join(dir, "scripts"), NODE_ENV: process.env.NODE_ENV } },
+  };
+}
+
+function finishRun(job: Job, r: Exit, ms: number, opts: RunOptions): NgspiceRun {
+  const { cpu, maxRaw, timeoutMs } = job;
+  const log = `${r.stderr}\n${r.stdout}`;
+  if (r.timedOut) throw new SpiceError(`ngspice did not finish within ${timeoutMs / 1000} s`);
+  if (r.overflow) throw new SpiceError("ngspice printed more than 8 MB of messages");
+  if (r.error) throw new SpiceError(`cannot run ngspice: ${r.error.message}`);
+  if (r.signal === "SIGXCPU") throw new SpiceError(`ngspice used more than ${cpu} s of CPU`);
+  if (r.signal === "SIGXFSZ") throw new SpiceError(`simulation output exceeds ${+(maxRaw / 2 ** 20).toFixed(2)} MB`);
+  if (r.signal) throw new SpiceError(`ngspice was stopped by ${r.signal} (CPU limit ${cpu} s, memory limit ${MAX_MEMORY_BYTES / 2 ** 20} MB)`);
+  const rawPath = path.join(job.dir, "out.raw");
+  // ngspice warns on stderr and carries on; only a bad exit, no raw file or an aborted analysis fails.
+  if (r.status !== 0 || !fs.existsSync(rawPath) || ABORTED.test(log))
+    throw ngspiceFailure(r.stderr, opts.circuitOffset ?? 0, opts.circuit ?? "") ?? new SpiceError(`ngspice failed (exit ${r.status ?? r.signal}): ${lastLines(log)}`);
+  return { raw: fs.readFileSync(rawPath), log, ms };
 }
 
 // ngspice reports netlist trouble on stderr, naming the deck line as "Netlist line no. N".

@@ -15,12 +15,20 @@ describe("verifyBlock with ngspice", () => {
     const { report, waveforms } = await verifyBlock(rc, { cacheDir });
     expect(report.errors).toEqual([]);
     expect(report.status).toBe("verified");
-    expect(report.quantities.fc).toEqual({ value: expect.closeTo(1 / (2 * Math.PI * 3300 * 22e-9), 6), unit: "Hz", text: "2.192 kHz" });
+    const fc = (r: number, c: number) => 1 / (2 * Math.PI * r * c);
+    expect(report.quantities.fc).toEqual({
+      value: expect.closeTo(fc(3300, 22e-9), 6), unit: "Hz", text: "2.192 kHz",
+      // R ±1 %, C ±5 %: all four corners of the formula.
+      spread: { min: expect.closeTo(fc(3333, 23.1e-9), 6), max: expect.closeTo(fc(3267, 20.9e-9), 6), over: "corners" },
+    });
     expect(report.checks[1]).toMatchObject({ simulated: true, status: "pass" });
     expect(report.checks[1].detail).toMatch(/^f3db\(res, "out"\) = 2\.19\d? kHz ≈ fc = 2\.192 kHz ± 1% ✓/);
-    // 10 Hz to 1 MHz at 50 points a decade: 5 decades, 251 points.
-    expect(report.simulations).toEqual([{ analysis: "ac", points: 251, ms: expect.any(Number), cached: false }]);
-    expect(waveforms).toHaveLength(1);
+    // 10 Hz to 1 MHz at 50 points a decade: 5 decades, 251 points; nominal and the 2^2 corners.
+    expect(report.simulations).toHaveLength(5);
+    expect(report.simulations[0]).toEqual({ analysis: "ac", points: 251, ms: expect.any(Number), cached: false, corner: null });
+    expect(report.checks[1]).toMatchObject({ over: "corners", simulations: 5 });
+    // The nominal sweep and the same sweep at the worst corner of the simulated check.
+    expect(waveforms.map((w) => w.variant)).toEqual(["nominal", "worst"]);
     const w = waveforms[0];
     expect(w.analysis).toBe("ac");
     expect(w.series[0].node).toBe("out");

@@ -52,20 +52,28 @@ describe("tolerance corners", () => {
     expect(corners.find((c) => c.values.Vs === 4.75)!.label.Vs).toBe("-0.25 V");
   });
 
-  it("switches to a seeded Monte Carlo of 500 samples above 10 toleranced parameters", () => {
-    // 2^k corners for k <= 10 and a Monte Carlo above: DESIGN.md "Check scripts".
-    const extra = Array.from({ length: 10 }, (_, k) => `  - { name: X${k}, value: 1 kohm, tol: 5% }\n`).join("");
-    const { block } = parseBlock(rc("1 kHz", extra));
+  it("above 10 toleranced parameters finds the worst corner from sensitivities, not from a random sample", () => {
+    // A gain set by twelve 1 % resistors in a product: its worst error is all twelve at +1 %,
+    // 20·log10(1.01^12) = 1.037 dB (exact arithmetic). 500 uniform samples stay far below it:
+    // their sum of twelve uniform deviations has σ = 2 % and almost never reaches 12 %.
+    const extra = Array.from({ length: 12 }, (_, k) => `  - { name: X${k}, value: 1 kohm, tol: 1% }\n`).join("");
+    const product = Array.from({ length: 12 }, (_, k) => `(X${k} / 1 kohm)`).join(" * ");
+    const text = rc("1 kHz", extra, `err_db = 20 log10(${product})\ncheck("gain error under 1 dB", abs(err_db) < 1)\ncheck("RC only", fc < 1 kHz)\n`);
+    const { block } = parseBlock(text);
     const a = toleranceCorners(block!.params);
-    expect(a.method).toBe("monte-carlo");
+    expect(a.method).toBe("worst-case");
     expect(a.corners).toHaveLength(500);
-    for (const c of a.corners) {
-      expect(c.values.R).toBeGreaterThanOrEqual(9.9e3);
-      expect(c.values.R).toBeLessThanOrEqual(10.1e3);
-    }
     expect(toleranceCorners(block!.params).corners).toEqual(a.corners);
+    const r = evaluateBlock(text).report;
+    const gain = r.checks[1];
+    expect(gain).toMatchObject({ status: "fail", over: "worst-case" });
+    expect(gain.worst!.corner).toEqual(Object.fromEntries(Array.from({ length: 12 }, (_, k) => [`X${k}`, "+1%"])));
+    expect(gain.worst!.detail).toMatch(/^abs\(err_db\) = 1\.037 < 1 ✗$/);
+    expect(r.quantities.err_db.spread!.max).toBeCloseTo(20 * Math.log10(1.01 ** 12), 9);
+    // The worst-corner line names only the parameters a check reads.
+    expect(r.checks[2].worst!.corner).toEqual({ R: "-1%", C: "-10%" });
     // R, C and eight more: exactly 10 toleranced parameters, still every corner.
-    const ten = parseBlock(rc("1 kHz", extra.split("\n").slice(2).join("\n"))).block!;
+    const ten = parseBlock(rc("1 kHz", extra.split("\n").slice(4).join("\n"))).block!;
     expect(ten.params.filter((p) => p.tol)).toHaveLength(10);
     expect(toleranceCorners(ten.params)).toMatchObject({ method: "corners" });
     expect(toleranceCorners(ten.params).corners).toHaveLength(1024);

@@ -1,0 +1,89 @@
+import type { ParsedBlock } from "../block/types";
+import type { Statement } from "../script/analyze";
+import type { Analysis, SimHooks } from "../script/builtins";
+import { runScript, type ScriptRun } from "../script/evaluate";
+import type { SimResult } from "../spice/types";
+import type { SimRequest } from "./executor";
+import { deckValues, scopeFor } from "./prepare";
+import type { Waveform } from "./types";
+
+/** What the engine knows of one simulation: its parsed result, or why it failed. */
+export type Known = { ok: true; result: SimResult; ms: number; cached: boolean } | { ok: false; error: string; line?: number };
+
+/** The simulator-facing side a variant needs: requests from inputs, measures and plots of results. */
+export type SimSide = {
+  request: (input: { title: string; circuit: string; params: Record<string, number>; analysis: Analysis }) => SimRequest;
+  measure: (name: string, result: SimResult, node: string, args: (number | string)[]) => number;
+  waveform: (result: SimResult, nodes: string[]) => Waveform | null;
+  /** The raw file an executor returned, read for this request's analysis. */
+  parse: (req: SimRequest, raw: Uint8Array) => SimResult;
+};
+
+export type SimUse = { analysis: Analysis; key: string; result: SimResult; windows: Waveform["windows"]; marks: Waveform["marks"]; nodes: Set<string> };
+
+export type VariantRun = {
+  run: ScriptRun;
+  /** Simulations the script asked for that are not known yet: the run is incomplete. */
+  pending: SimRequest[];
+  sims: SimUse[];
+};
+
+/** Thrown into the script when a simulation's result is not known yet; the variant reruns later. */
+class Pending extends Error {}
+
+/**
+ * Run the script once at these parameter values, answering simulations from `known`. A miss
+ * records the request and stops that statement (and what depends on it); the rest runs on,
+ * so every independent simulation of the variant is requested in the same pass.
+ */
+export function runVariant(
+  block: ParsedBlock,
+  statements: Statement[],
+  values: Record<string, number>,
+  known: Map<string, Known>,
+  side: SimSide | null,
+  text: boolean,
+): VariantRun {
+  const pending: SimRequest[] = [];
+  const sims: SimUse[] = [];
+  const hooks: SimHooks = {
+    simulate: (analysis) => {
+      if (!side) throw new Error("simulations run only in a full verification");
+      if (!block.netlist.trim()) throw new Error("the block has no ```spice fence to simulate");
+      let req: SimRequest;
+      try {
+        req = side.request({ title: block.title, circuit: block.netlist, params: deckValues(block, values), analysis });
+      } catch (e) {
+        throw located(e, (e as { line?: number }).line, block.netlistLine);
+      }
+      const k = known.get(req.key);
+      if (!k) {
+        pending.push(req);
+        throw new Pending("waiting for a simulation");
+      }
+      if (!k.ok) throw located(new Error(k.error), k.line, block.netlistLine);
+      sims.push({ analysis, key: req.key, result: k.result, windows: [], marks: [], nodes: new Set() });
+      return { result: k.result, index: sims.length - 1 };
+    },
+    measure: (name, result, node, args) => {
+      sims.find((s) => s.result === result)?.nodes.add(node);
+      return side!.measure(name, result as SimResult, node, args);
+    },
+    window: (i, w) => pushOnce(sims[i].windows, w),
+    mark: (i, m) => pushOnce(sims[i].marks, m),
+  };
+  const run = runScript(statements, scopeFor(block, values, hooks), side !== null, text);
+  return { run, pending, sims };
+}
+
+function located(e: unknown, line: number | undefined, netlistLine: number): Error {
+  const blockLine = line !== undefined && netlistLine > 0 ? netlistLine + line - 1 : undefined;
+  const message = (e as Error).message.replace(/^simulation: /, "");
+  return Object.assign(new Error(`simulation: ${message}`), blockLine !== undefined ? { blockLine } : {});
+}
+
+// The same window measured twice (peak for two checks) is drawn once.
+export function pushOnce<T>(list: T[], item: T) {
+  const key = JSON.stringify(item);
+  if (!list.some((x) => JSON.stringify(x) === key)) list.push(item);
+}

@@ -1,0 +1,24 @@
+import * as measures from "../measures";
+import type { SimSide } from "../engine/variant";
+import { resultFromRaw, type SimResult } from "../spice";
+import { simRequest } from "../spice/request";
+
+type Measure = (res: SimResult, node: string, ...args: (number | string)[]) => number;
+
+/** ngspice decks and the waveform measures, as the engine's simulator side (loaded in the sandbox child only). */
+export function simSide(): SimSide {
+  return {
+    request: (input) => simRequest(input),
+    parse: (req, raw) => resultFromRaw(req.analysis.kind, raw, 0, false),
+    measure: (name, result, node, args) => {
+      const fn = (measures as unknown as Record<string, Measure>)[name];
+      if (typeof fn !== "function") throw new Error(`no measure named ${name}`);
+      return fn(result, node, ...args);
+    },
+    waveform: (res, nodes) => {
+      if (res.analysis === "op") return null;
+      const names = nodes.length ? nodes : ["out"].filter((n) => n in res.vectors);
+      return names.length ? measures.waveformFor(res, names) : null;
+    },
+  };
+}
