@@ -51,7 +51,7 @@ describe("verifyBlock waveforms", () => {
     expect(waveforms.map((w) => w.analysis)).toEqual(["tran", "ac"]);
     const [tran, ac] = waveforms;
     expect(tran.series.map((s) => s.node)).toEqual(["out"]);
-    const w = (measure: string, from: number, to: number) => ({ node: "out", measure, from: expect.closeTo(from, 9), to: expect.closeTo(to, 9) });
+    const w = (measure: string, from: number, to: number) => ({ node: "out", measure, from: expect.closeTo(from, 9), to: expect.closeTo(to, 9), value: expect.any(Number) });
     // One window per distinct measure and span; peak measured twice is listed once.
     expect(tran.windows).toEqual([
       w("peak", 6e-3, 10e-3), w("trough", 6e-3, 10e-3), w("pp", 6e-3, 10e-3), w("rms", 6e-3, 10e-3),
