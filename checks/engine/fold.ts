@@ -38,8 +38,10 @@ export function foldCheck(
 
   const all: Point[] = [...points, ...samples];
   let worst = -1;
+  // A NaN margin (a measure with nothing to measure) is as bad as it gets.
+  const m = (p: Point) => (Number.isNaN(p.outcome.margin) ? -Infinity : p.outcome.margin);
   all.forEach((p, k) => {
-    if (worst < 0 || p.outcome.margin < all[worst].outcome.margin) worst = k;
+    if (worst < 0 || m(p) < m(all[worst])) worst = k;
   });
   const failing = points.filter((p) => p.outcome.status !== "pass").length;
   const brokenAt = points.findIndex((p) => broken(p.outcome));

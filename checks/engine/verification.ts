@@ -1,6 +1,6 @@
 import type { ParsedBlock } from "../block/types";
 import { EXHAUSTIVE_LIMIT, allCorners, cornerAt, monteCarloSamples, toleranceCorners, toleranced, worstSigns, type Corner, type Toleranced } from "../corners";
-import type { Statement } from "../script/analyze";
+import { SIM_CALLS, type Statement } from "../script/analyze";
 import type { CheckOutcome } from "../script/evaluate";
 import { toQuantity } from "../units";
 import type { SimOutcome, SimRequest } from "./executor";
@@ -177,7 +177,9 @@ export type { SimUse };
 
 /**
  * The toleranced parameters a simulation can see: named in the circuit (comments aside) or read
- * by a statement that simulates. Moving any other one cannot change a simulated check.
+ * by a statement that starts one (a tran() stop time from a formula). A parameter only the hand
+ * side of a check reads (a zener voltage the diode model fixes) stays nominal in simulated
+ * checks' corners: moving it there would compare the circuit with a different circuit.
  */
 export function simulationTolerances(block: ParsedBlock, statements: Statement[]): Toleranced[] {
   const circuit = block.netlist
@@ -186,7 +188,15 @@ export function simulationTolerances(block: ParsedBlock, statements: Statement[]
     .map((l) => l.replace(/[;$].*$/, ""))
     .join("\n");
   const deps = paramDeps(statements, block.params.map((p) => p.name));
-  const read = new Set(statements.filter((s) => s.simulated).flatMap((s) => [...deps.get(s)!]));
+  const read = new Set(statements.filter(startsSimulation).flatMap((s) => [...deps.get(s)!]));
   const escape = (n: string) => n.replace(/[^A-Za-z0-9_]/g, "");
   return toleranced(block.params).filter(({ p }) => read.has(p.name) || new RegExp(`(^|[^A-Za-z0-9_])${escape(p.name)}($|[^A-Za-z0-9_])`, "i").test(circuit));
+}
+
+function startsSimulation(s: Statement): boolean {
+  let found = false;
+  s.node.traverse((n) => {
+    if (n.type === "FunctionNode" && SIM_CALLS.has((n as unknown as { fn: { name?: string } }).fn.name ?? "")) found = true;
+  });
+  return found;
 }
