@@ -1,5 +1,6 @@
 import type { Report } from "@/checks";
 import { typesetUnits } from "./eng";
+import { marginSentence } from "./limit-margin";
 
 type Check = Report["checks"][number];
 
@@ -29,6 +30,9 @@ export function CheckList({ checks, lines }: { checks: Check[]; lines?: boolean 
               {lines && c.line ? <span className="ml-1 text-xs text-graphite">line {c.line}</span> : null}
             </p>
             {c.detail ? <p className="mt-0.5 break-words font-mono text-xs text-graphite">{typesetUnits(c.detail)}</p> : null}
+            {c.compared && (c.status === "pass" || c.status === "fail") && marginSentence(c.compared) ? (
+              <p className="mt-0.5 text-xs" data-testid="check-margin">{typesetUnits(marginSentence(c.compared) ?? "")}</p>
+            ) : null}
             {c.worst ? (
               <p className="mt-0.5 break-words text-xs text-graphite">
                 worst corner {corner(c.worst.corner)}: <span className="font-mono">{typesetUnits(c.worst.detail)}</span>

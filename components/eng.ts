@@ -6,14 +6,16 @@ const PREFIXES: [number, string][] = [
 // Units where a prefix would read wrong (dB, degrees, plain ratios) keep the plain number.
 const NO_PREFIX = new Set(["dB", "deg", "%", ""]);
 
-export function eng(value: number, unit = "", digits = 3): string {
+/** keepZeros keeps trailing zeros, so `2.5750 V` shows it was read to five digits. */
+export function eng(value: number, unit = "", digits = 3, keepZeros = false): string {
   if (!Number.isFinite(value)) return `${value}${unit ? ` ${unit}` : ""}`;
   const u = unit === "ohm" ? "Ω" : unit;
   if (value === 0) return `0${u ? ` ${u}` : ""}`;
-  if (NO_PREFIX.has(unit)) return `${trim(value.toPrecision(digits))}${u ? ` ${u}` : ""}`;
+  const tidy = keepZeros ? (x: string) => x : trim;
+  if (NO_PREFIX.has(unit)) return `${tidy(value.toPrecision(digits))}${u ? ` ${u}` : ""}`;
   const abs = Math.abs(value);
   const [scale, prefix] = PREFIXES.find(([s]) => abs >= s * 0.9995) ?? PREFIXES[PREFIXES.length - 1];
-  return `${trim((value / scale).toPrecision(digits))} ${prefix}${u}`.trim();
+  return `${tidy((value / scale).toPrecision(digits))} ${prefix}${u}`.trim();
 }
 
 const trim = (s: string) => (s.includes("e") ? s : s.includes(".") ? s.replace(/0+$/, "").replace(/\.$/, "") : s);

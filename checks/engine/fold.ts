@@ -79,6 +79,7 @@ export function foldCheck(
       values: points.map((c) => siOf(c.outcome.primary!.value)),
       nominal: siOf(p.value),
       limits: p.limits.map(siOf),
+      labels: points.map((c) => only(c.corner.label, o.depends)),
     };
   }
   return out;

@@ -14,7 +14,8 @@ export type CheckReport = {
   simulations?: number;
   /** The worst point: a corner (or Monte Carlo sample) naming only the parameters the check depends on. */
   worst?: { corner: Record<string, string>; detail: string; sample?: number };
-  corners?: { quantity: string; unit: string; values: number[]; nominal: number; limits: number[] };
+  /** `labels[k]` names the parameter ends of corner k (`{ R: "+1%", C: "-5%" }`), in the order of `values`. */
+  corners?: { quantity: string; unit: string; values: number[]; nominal: number; limits: number[]; labels?: Record<string, string>[] };
   /** What the check compared, in SI numbers, so a plot can draw it: the value, its limits (with `relations`), a near()'s target. */
   compared?: { quantity: string; unit: string; value: number; limits: number[]; relations: string[]; target?: number };
   /** After montecarlo(N): the passing fraction and its 95 % interval. */

@@ -10,8 +10,8 @@ export function RunPlots({ waveforms, checks }: { waveforms: Waveform[]; checks:
   if (waveforms.length === 0 && cornered.length === 0) return <p className="text-sm text-graphite">This run stored no waveforms.</p>;
   return (
     <div className="space-y-4">
-      {waveforms.map((w, i) => (w.analysis === "ac" ? <BodePlot key={i} wave={w} /> : <WaveformPlot key={i} wave={w} />))}
-      {cornered.map((c) => <CornerChart key={c.label} label={c.label} corners={c.corners!} />)}
+      {waveforms.map((w, i) => (w.analysis === "ac" ? <BodePlot key={i} wave={w} checks={checks} fileName={`ac-sweep-${i + 1}`} /> : <WaveformPlot key={i} wave={w} checks={checks} fileName={`transient-${i + 1}`} />))}
+      {cornered.map((c) => <CornerChart key={c.label} check={c} />)}
     </div>
   );
 }

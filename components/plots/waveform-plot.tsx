@@ -1,13 +1,16 @@
 "use client";
 import { useMemo } from "react";
 import type uPlot from "uplot";
-import type { Waveform } from "@/checks";
+import type { Report, Waveform } from "@/checks";
 import { eng } from "../eng";
 import { COPPER_PALE, INKS, engAxis } from "./axes";
+import { PlotLegend } from "./plot-legend";
 import { UPlotChart } from "./uplot-chart";
+import { verdictOn } from "./verdict-guides";
 
-/** A transient: node voltages against time, the windows the checks measured over shaded pale copper. */
-export function WaveformPlot({ wave }: { wave: Waveform }) {
+/** A transient: node voltages against time, the measured windows shaded, each check's guides and measured value drawn. */
+export function WaveformPlot({ wave, checks = [], fileName = "transient" }: { wave: Waveform; checks?: Report["checks"]; fileName?: string }) {
+  const verdict = useMemo(() => verdictOn(wave, checks, "V", "s"), [wave, checks]);
   const { options, data } = useMemo(() => {
     const shade: uPlot.Plugin = {
       hooks: {
@@ -28,25 +31,28 @@ export function WaveformPlot({ wave }: { wave: Waveform }) {
         ],
       },
     };
+    // The y range takes in the guides, so a limit far from the trace is still on the plot.
+    const guideYs = verdict.guides.map((g) => g.value);
     const options: Omit<uPlot.Options, "width"> = {
       height: 240,
       plugins: [shade],
-      scales: { x: { time: false } },
-      axes: [engAxis("s", "time"), engAxis("V", "voltage")],
-      series: [
-        { label: "t", value: (_u, v) => (v == null ? "—" : eng(v, "s")) },
-        ...wave.series.map((s, i) => ({ label: s.node, stroke: INKS[i % INKS.length], width: 1.4, value: (_u: uPlot, v: number | null) => (v == null ? "—" : eng(v, "V")) })),
-      ],
+      scales: {
+        x: { time: false },
+        y: { range: (_u, lo, hi) => { const a = Math.min(lo, ...guideYs); const b = Math.max(hi, ...guideYs); const pad = (b - a || 1) * 0.06; return [a - pad, b + pad]; } },
+      },
+      axes: [engAxis("s", "time"), engAxis("V", "voltage", {}, true)],
+      series: [{ label: "t" }, ...wave.series.map((s, i) => ({ label: s.node, stroke: INKS[i % INKS.length], width: 1.4 }))],
     };
     return { options, data: [wave.x, ...wave.series.map((s) => s.values)] as uPlot.AlignedData };
-  }, [wave]);
-  const windows = wave.windows.map((w) => `${w.measure} of ${w.node} from ${eng(w.from, "s")} to ${eng(w.to, "s")}`).join("; ");
+  }, [wave, verdict]);
+  const readout = (i: number) => `t = ${eng(wave.x[i], "s", 4)}: ${wave.series.map((s) => `${s.node} ${eng(s.values[i], "V", 4)}`).join(", ")}`;
+  const windows = wave.windows.map((w) => `${w.measure} of ${w.node} from ${eng(w.from, "s")} to ${eng(w.to, "s")}${w.value !== undefined ? ` = ${eng(w.value, w.measure === "freq" ? "Hz" : w.measure === "thd" ? "" : "V", 4)}` : ""}`);
   return (
-    <figure className="rounded border border-rule bg-panel p-2">
-      <UPlotChart options={options} data={data} label={`Transient of ${wave.series.map((s) => s.node).join(", ")}`} />
-      <figcaption className="mt-1 text-xs text-graphite">
-        Transient. {windows ? <>Shaded: the measured window ({windows}).</> : null}
-      </figcaption>
+    <figure className="rounded border border-rule bg-panel p-2" data-testid="transient-plot">
+      <UPlotChart options={options} data={data} label={`Transient of ${wave.series.map((s) => s.node).join(", ")}`} verdict={verdict} readout={readout}
+        legend={<PlotLegend traces={wave.series.map((s, i) => ({ name: s.node, color: INKS[i % INKS.length] }))} verdict={verdict} windows={wave.windows.length > 0} />}
+        csv={{ fileName: `${fileName}.csv`, headers: ["time (s)", ...wave.series.map((s) => `${s.node} (V)`)] }} />
+      {windows.length ? <figcaption className="mt-1 text-xs text-graphite">Measured: {[...new Set(windows)].join("; ")}.</figcaption> : null}
     </figure>
   );
 }
