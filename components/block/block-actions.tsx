@@ -24,9 +24,9 @@ export function BlockActions({ slug, version, allowed, watching, versions }: {
 }) {
   return (
     <div className="space-y-3" data-testid="bench">
-      <div className="flex flex-wrap items-stretch divide-x divide-rule rounded-md border border-rule bg-panel shadow-[inset_0_-2px_0_var(--color-copper-pale)]">
+      <div className="flex w-fit max-w-full flex-wrap items-stretch divide-x divide-rule rounded-md border border-rule bg-panel shadow-[inset_0_-2px_0_var(--color-copper-pale)]">
         {allowed.fork ? <Verb href={`/blocks/${slug}/fork?from=${version}#retune`} glyph="⇄" hint="Move one value until a quantity hits its target">Retune</Verb> : null}
-        {allowed.fork ? <Verb href={`/blocks/${slug}/fork?from=${version}`} glyph="⑂" hint="A new block from this version, with its lineage recorded">Derive a variant</Verb> : null}
+        {allowed.fork ? <Verb href={`/blocks/${slug}/fork?from=${version}`} glyph="↳" hint="A new block from this version, with its lineage recorded">Derive a variant</Verb> : null}
         {allowed.editThisVersion ? <Verb href={`/blocks/${slug}/edit`} glyph="✎" hint="Change the note, netlist or script as the next version">Revise</Verb> : null}
         {allowed.requestReview ? <ReviewRequest slug={slug} version={version} /> : null}
         {allowed.watch ? <WatchButton slug={slug} watching={watching} /> : null}

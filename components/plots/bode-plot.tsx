@@ -41,7 +41,7 @@ function chart(wave: Waveform, kind: "magnitude" | "phase", guideYs: number[]): 
       height: kind === "magnitude" ? 220 : 160,
       plugins: [marksPlugin(wave.marks)],
       scales: {
-        x: { time: false, distr: 3 },
+        x: { time: false, distr: 3, range: (_u, lo, hi) => [lo, hi] },
         y: { range: (_u, lo, hi) => { const a = Math.min(lo, ...guideYs); const b = Math.max(hi, ...guideYs); const pad = (b - a || 1) * 0.06; return [a - pad, b + pad]; } },
       },
       axes: [engAxis("Hz", "frequency"), engAxis(unit, kind === "magnitude" ? "gain (dB)" : "phase (°)", {}, true)],

@@ -15,7 +15,7 @@ export function PlotLegend({ traces, verdict, windows = false }: { traces: Trace
     <ul className="flex flex-wrap gap-x-4 gap-y-0.5 text-graphite" data-testid="plot-legend">
       {traces.map((t) => <li key={t.name}><Swatch color={t.color} /><span className="font-mono text-ink">{t.name}</span></li>)}
       {windows ? <li><span aria-hidden className="mr-1 inline-block h-2.5 w-4 align-middle" style={{ background: COPPER_PALE }} />measured window</li> : null}
-      {roles.has("target") ? <li><Swatch color={GUIDE_INK.target} dash="7 3" width={1.4} />hand value</li> : null}
+      {roles.has("target") ? <li><Swatch color={GUIDE_INK.target} dash="7 3" width={1.4} />target (hand value)</li> : null}
       {roles.has("band") ? <li><Swatch color={GUIDE_INK.band} dash="3 3" width={1.4} />tolerance band</li> : null}
       {roles.has("limit") ? <li><Swatch color={GUIDE_INK.limit} dash="3 3" width={1.4} />limit</li> : null}
       {statuses.has("pass") ? <li><Swatch color={VERDICT_INK.pass} width={3} />measured, passes</li> : null}

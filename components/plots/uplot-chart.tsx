@@ -27,7 +27,9 @@ export function UPlotChart({ options, data, label, legend, csv, verdict, readout
   const readoutRef = useRef(readout);
   readoutRef.current = readout;
   const gutter = verdict && verdict.guides.some((g) => g.axis === "y") ? 112 : 12;
-  const topBand = verdict && verdict.guides.some((g) => g.axis === "x") ? 26 : 10;
+  const xLabels = verdict ? verdict.guides.filter((g) => g.axis === "x").length + verdict.measured.filter((m) => m.y === null).length : 0;
+  // Room above the plotting area for the rows of x-guide labels (about one row per three labels).
+  const topBand = xLabels ? 12 + 13 * Math.min(4, Math.ceil(xLabels / 3)) : 10;
 
   useEffect(() => {
     const el = box.current;

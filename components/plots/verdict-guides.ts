@@ -17,7 +17,7 @@ function guidesOf(c: Compared, check: Check, axis: "x" | "y", sign: number): Gui
   const out: Guide[] = [];
   const status = check.status;
   if (c.target !== undefined) {
-    out.push({ axis, value: sign * c.target, role: "target", text: `hand ${eng(sign * c.target, c.unit)}`, check: check.label, status });
+    out.push({ axis, value: sign * c.target, role: "target", text: `target ${eng(sign * c.target, c.unit)}`, check: check.label, status });
     const pct = c.target !== 0 ? Math.abs((c.limits[1] - c.target) / c.target) * 100 : null;
     c.limits.forEach((l, i) => {
       const edge = pct !== null ? `${i === 0 ? "−" : "+"}${Number(pct.toPrecision(2))} % ` : "";
@@ -62,7 +62,8 @@ export function verdictOn(wave: Waveform, checks: Check[], yUnit: string, xUnit:
         measured.push({ x0: m.x, x1: m.x, y: m.value, text: `${m.label} ${eng(m.value, c.unit, 4)} ${mark(check.status)}`.trim(), check: check.label, status: check.status });
         break;
       }
-      if (c.unit === xUnit && near(m.x, c.value)) {
+      // Only a mark whose x is itself the measured value (a −3 dB point, a start-up time), not a frequency a gain was read at.
+      if (m.value === undefined && c.unit === xUnit && near(m.x, c.value)) {
         guides.push(...guidesOf(c, check, "x", 1));
         measured.push({ x0: m.x, x1: m.x, y: null, text: `${m.label} ${engApart(m.x, c.limits[0] ?? m.x, c.unit)} ${mark(check.status)}`.trim(), check: check.label, status: check.status });
         break;
@@ -70,6 +71,23 @@ export function verdictOn(wave: Waveform, checks: Check[], yUnit: string, xUnit:
     }
   }
   return { guides, measured };
+}
+
+/** Labels along the top, left to right in rows: each starts after the one before it in its row, else opens a new row. */
+export function rowLabels(xs: number[], widths: number[], span: number, gap = 8): { x: number; row: number }[] {
+  const order = xs.map((x, i) => ({ x, i })).sort((a, b) => a.x - b.x);
+  const ends: number[] = [];
+  const out: { x: number; row: number }[] = new Array(xs.length);
+  for (const { x, i } of order) {
+    const w = widths[i];
+    const want = Math.min(Math.max(0, x - w / 2), Math.max(0, span - w));
+    let row = ends.findIndex((end) => end + gap <= want);
+    if (row < 0) row = ends.length;
+    const at = want;
+    ends[row] = at + w;
+    out[i] = { x: at, row };
+  }
+  return out;
 }
 
 /** Pushes labels apart so none overlaps the next: positions in px, sorted, at least `gap` apart, inside [lo, hi]. */

@@ -1,6 +1,6 @@
 "use client";
 import { GUIDE_INK, VERDICT_INK } from "./axes";
-import { spreadLabels } from "./verdict-guides";
+import { rowLabels, spreadLabels } from "./verdict-guides";
 import type { PlotVerdict } from "./uplot-chart";
 
 /** The plotting area in CSS px within the chart, and value → px along each axis (relative to that area). */
@@ -27,10 +27,11 @@ export function VerdictLayer({ verdict, geom }: { verdict: PlotVerdict; geom: Ge
   const rightLabels = [...ys.map((o) => ({ y: o.at, text: o.g.text, color: GUIDE_INK[o.g.role], bold: false })),
     ...marks.filter((o) => o.y !== null).map((o) => ({ y: o.y!, text: o.m.text, color: VERDICT_INK[o.m.status], bold: true }))];
   const placed = spreadLabels(rightLabels.map((l) => l.y), LABEL_GAP, 6, height - 2);
-  const topLabels = [...xs.map((o) => ({ x: o.at, text: o.g.text, color: GUIDE_INK[o.g.role], bold: false })),
+  const topAll = [...xs.map((o) => ({ x: o.at, text: o.g.text, color: GUIDE_INK[o.g.role], bold: false })),
     ...marks.filter((o) => o.y === null).map((o) => ({ x: o.x0, text: o.m.text, color: VERDICT_INK[o.m.status], bold: true }))];
-  const widths = topLabels.map((l) => l.text.length * 6.2 + 8);
-  const placedX = spreadLabels(topLabels.map((l, i) => l.x - widths[i] / 2), Math.max(0, ...widths), 0, Math.max(0, width - Math.max(0, ...widths)));
+  // The same label twice (two checks on one start-up time) is written once.
+  const topLabels = topAll.filter((l, i) => topAll.findIndex((k) => k.text === l.text && Math.abs(k.x - l.x) < 1) === i);
+  const placedX = rowLabels(topLabels.map((l) => l.x), topLabels.map((l) => l.text.length * 7 + 4), width);
 
   return (
     <svg className="pointer-events-none absolute inset-0 h-full w-full overflow-visible" aria-hidden data-testid="verdict-layer">
@@ -63,7 +64,7 @@ export function VerdictLayer({ verdict, geom }: { verdict: PlotVerdict; geom: Ge
         </g>
       ))}
       {topLabels.map((l, i) => (
-        <text key={`tl${i}`} x={left + placedX[i]} y={top - 8} fontSize={11} fill={l.color} fontWeight={l.bold ? 600 : 400} fontFamily="'IBM Plex Mono', monospace">{l.text}</text>
+        <text key={`tl${i}`} x={left + placedX[i].x} y={top - 6 - 13 * placedX[i].row} fontSize={11} fill={l.color} fontWeight={l.bold ? 600 : 400} fontFamily="'IBM Plex Mono', monospace">{l.text}</text>
       ))}
     </svg>
   );
