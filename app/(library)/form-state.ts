@@ -11,11 +11,32 @@ export interface FormState {
   data?: Record<string, unknown>;
 }
 
-/** A service's AppError becomes words for the form; anything else is logged and reported plainly. */
-export function failure(err: unknown): FormState {
+/**
+ * The form field a refusal belongs to: `parameter "R": …` is the field `param.R`; a taken slug is the form's slug
+ * field (its name given in `names`). Unplaced refusals stay in the message under the form.
+ */
+export function fieldErrorsOf(messages: string[], extra: { slug?: unknown }, names: { slug?: string } = {}): Record<string, string[]> {
+  const errors: Record<string, string[]> = {};
+  const add = (field: string, m: string) => (errors[field] ??= []).push(m);
+  for (const m of messages) {
+    const param = /^parameter "([A-Za-z_][A-Za-z0-9_]*)"/.exec(m);
+    if (param) add(`param.${param[1]}`, m);
+  }
+  if (extra.slug && names.slug) add(names.slug, messages[0] ?? "taken");
+  return errors;
+}
+
+/** A service's AppError becomes words for the form, at their fields where one is named; anything else is logged. */
+export function failure(err: unknown, names: { slug?: string } = {}): FormState {
   if (isAppError(err)) {
-    const extra = err.extra as { errors?: { message: string; line?: number }[]; head?: number };
-    return { ok: false, message: err.message, lines: extra.errors, head: extra.head };
+    const extra = err.extra as { errors?: { message: string; line?: number }[]; head?: number; slug?: unknown };
+    const messages = [err.message, ...(extra.errors ?? []).map((e) => e.message)];
+    const errors = fieldErrorsOf([...new Set(messages)], extra, names);
+    const placed = Object.keys(errors).length > 0;
+    return {
+      ok: false, message: placed ? "Some fields need attention; the rest is kept as you typed it." : err.message,
+      lines: placed ? extra.errors?.filter((e) => !/^parameter "/.test(e.message)) : extra.errors, head: extra.head, errors: placed ? errors : undefined,
+    };
   }
   console.error(err);
   return { ok: false, message: "Something went wrong on the server; the change was not saved." };

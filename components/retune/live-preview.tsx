@@ -9,7 +9,7 @@ export function LivePreview({ query }: { query: ReturnType<typeof useEvaluateBlo
   const failing = report?.checks.filter((c) => c.status === "fail").length ?? 0;
   const errors = report?.errors ?? [];
   return (
-    <section aria-label="Live preview" className="space-y-3 rounded border border-rule bg-panel p-3" data-testid="live-preview">
+    <section id="live-preview" aria-label="Live preview" className="scroll-mt-4 space-y-3 rounded border border-rule bg-panel p-3" data-testid="live-preview">
       <header className="flex items-baseline justify-between gap-2">
         <h2 className="text-xs font-semibold uppercase tracking-wide text-graphite">Live preview</h2>
         <span aria-live="polite" className="text-xs text-graphite" data-testid="preview-summary">

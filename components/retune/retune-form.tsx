@@ -6,6 +6,7 @@ import type { ParamRow } from "@/components/param-table";
 import { useEvaluateBlock } from "@/lib/queries/evaluate-block";
 import { LivePreview } from "./live-preview";
 import { ParamInput } from "./param-input";
+import { PreviewStrip } from "./preview-strip";
 import { RetuneAssistant } from "./retune-assistant";
 
 /** preview: "exact" when the head's file with this version's values is this version; else the head the server computes from. */
@@ -37,9 +38,11 @@ export function RetuneForm({ slug, version, params, baseValues, head, preview: p
         <fieldset className="rounded border border-rule bg-panel p-3">
           <legend className="px-1 text-sm font-semibold">Parameters</legend>
           <div className="space-y-2">
-            {params.map((p) => <ParamInput key={p.name} param={p} value={values[p.name] ?? ""} onChange={(v) => set(p.name, v)} />)}
+            {params.map((p) => <ParamInput key={p.name} param={p} value={values[p.name] ?? ""} onChange={(v) => set(p.name, v)}
+              error={state.errors?.[`param.${p.name}`]?.[0]} />)}
           </div>
           {state.errors?.params ? <p className="mt-1 text-sm text-brick">{state.errors.params[0]}</p> : null}
+          <PreviewStrip query={preview} />
         </fieldset>
 
         <fieldset className="space-y-2 rounded border border-rule bg-panel p-3">
@@ -59,7 +62,8 @@ export function RetuneForm({ slug, version, params, baseValues, head, preview: p
                 {state.errors?.newSlug ? <span className="text-xs text-brick">{state.errors.newSlug[0]}</span> : null}
               </label>
               <label className="text-sm" htmlFor="fork-title">Title (optional)
-                <input id="fork-title" name="title" value={meta.title} onChange={setMetaField("title")} className={field} />
+                <input id="fork-title" name="title" value={meta.title} onChange={setMetaField("title")} className={field} aria-invalid={Boolean(state.errors?.title)} />
+                {state.errors?.title ? <span className="text-xs text-brick">{state.errors.title[0]}</span> : null}
               </label>
               <label className="text-sm" htmlFor="fork-team">Team
                 <select id="fork-team" name="team" value={meta.team} onChange={setMetaField("team")} disabled={teams.length === 0} className={field}>
@@ -69,7 +73,8 @@ export function RetuneForm({ slug, version, params, baseValues, head, preview: p
             </div>
           ) : null}
           <label className="block text-sm" htmlFor="retune-message">Message
-            <input id="retune-message" name="message" value={meta.message} onChange={setMetaField("message")} className={field} placeholder="What you changed and why" />
+            <input id="retune-message" name="message" value={meta.message} onChange={setMetaField("message")} className={field} placeholder="What you changed and why" aria-invalid={Boolean(state.errors?.message)} />
+            {state.errors?.message ? <span className="text-xs text-brick">{state.errors.message[0]}</span> : null}
           </label>
         </fieldset>
 
@@ -95,9 +100,11 @@ export function RetuneForm({ slug, version, params, baseValues, head, preview: p
             built from v{version} and checked in full.
           </p>
         ) : null}
+        <div id="retune" className="scroll-mt-4">
+          <RetuneAssistant slug={slug} params={params.map((p) => p.name)} quantities={previewQuantities.length ? previewQuantities : quantities} onUse={set}
+            values={values} head={head} />
+        </div>
         <LivePreview query={preview} />
-        <RetuneAssistant slug={slug} params={params.map((p) => p.name)} quantities={previewQuantities.length ? previewQuantities : quantities} onUse={set}
-          values={values} head={head} />
       </div>
     </div>
   );

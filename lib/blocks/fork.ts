@@ -46,7 +46,7 @@ export async function forkBlock({ em, caller }: Ctx, input: ForkInput): Promise<
       await tx.flush();
       await tx.populate(block, ["team"]);
       const { result } = await storeVersion(tx, {
-        block, number: 1, text, parsed, authorId: user.id, message: `forked from ${source.slug} v${from.number}`,
+        block, number: 1, text, parsed, authorId: user.id, message: input.message?.trim() || `forked from ${source.slug} v${from.number}`,
         extra: { forkedFrom: { slug: source.slug, version: from.number } },
       });
       return result;

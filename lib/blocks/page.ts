@@ -19,6 +19,8 @@ export interface BlockAllowed {
   editThisVersion: boolean;
   requestReview: boolean;
   decide: boolean;
+  /** May queue this version's checks again (a maintainer's call, as approving is). */
+  rerun: boolean;
   attach: boolean;
   watch: boolean;
 }
@@ -46,6 +48,7 @@ export function allowedOn(caller: Ctx["caller"], resource: BlockResource, state:
     editThisVersion: edit && state.isHead,
     requestReview: can(caller, "review.request", resource) && state.isHead,
     decide: can(caller, "version.approve", resource) && state.isHead,
+    rerun: can(caller, "version.approve", resource),
     attach: edit && !state.archived,
     watch: signedIn,
   };

@@ -1,7 +1,6 @@
 import "server-only";
-import type { EntityManager } from "@mikro-orm/postgresql";
 import { BlockVersionSchema, CheckRunSchema } from "@/entities";
-import type { Caller } from "@/lib/auth/caller";
+import type { Ctx } from "@/lib/context";
 import { loadBlock, loadVersion } from "@/lib/blocks/common";
 import { AppError } from "@/lib/errors";
 import { enqueueRun } from "./enqueue";
@@ -10,7 +9,7 @@ import { enqueueRun } from "./enqueue";
  * A maintainer asks for a version's checks to run again (a flaky host, a doubt about a cached result).
  * One open run per version: a second request while one is queued or running is refused, not queued twice.
  */
-export async function rerunVersion(ctx: { em: EntityManager; caller: Caller }, input: { slug: string; version: number }): Promise<{ id: string; status: "queued" }> {
+export async function rerunVersion(ctx: Ctx, input: { slug: string; version: number }): Promise<{ id: string; status: "queued" }> {
   const block = await loadBlock(ctx.em, ctx.caller, input.slug, "version.approve");
   const version = await loadVersion(ctx.em, block, input.version);
   return ctx.em.transactional(async (tx) => {

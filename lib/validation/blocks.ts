@@ -33,6 +33,7 @@ export const forkBodySchema = z.strictObject({
   title: storedText(200).trim().min(1).optional(),
   params: paramValuesSchema.optional(),
   team: teamSlugSchema.optional().meta({ description: "Team that owns the fork (default: the caller's team)" }),
+  message: storedText(2000).optional().meta({ description: "Why the fork was made (default: where it came from)" }),
 });
 
 /** One version of a block (the head when version is left out): what read services take. */

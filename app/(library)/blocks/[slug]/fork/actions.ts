@@ -21,12 +21,12 @@ export async function saveRetuneAction(_prev: FormState, form: FormData): Promis
   try {
     const res = d.saveAs === "fork"
       ? await forkBlock(ctx, {
-          source: d.source, fromVersion: d.fromVersion, params: d.params, slug: d.newSlug || undefined, title: d.title || undefined, team: d.team || undefined,
+          source: d.source, fromVersion: d.fromVersion, params: d.params, slug: d.newSlug || undefined, title: d.title || undefined, team: d.team || undefined, message: d.message || undefined,
         })
       : await addVersion(ctx.caller, d.source, { params: d.params, baseVersion: d.fromVersion, message: d.message || "retuned" });
     target = `/blocks/${res.slug}`;
   } catch (err) {
-    return failure(err);
+    return failure(err, { slug: d.saveAs === "fork" ? "newSlug" : undefined });
   }
   revalidatePath("/");
   redirect(target);

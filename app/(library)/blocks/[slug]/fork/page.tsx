@@ -6,7 +6,7 @@ import { pageContext } from "@/lib/next-context";
 import { orNotFound } from "../../../or-not-found";
 import { sameFileUpToValues } from "./base-match";
 
-export const metadata: Metadata = { title: "Fork and retune" };
+export const metadata: Metadata = { title: "Retune or derive a variant" };
 export const dynamic = "force-dynamic";
 
 export default async function ForkPage({ params, searchParams }: {
@@ -29,7 +29,7 @@ export default async function ForkPage({ params, searchParams }: {
   return (
     <div className="space-y-4">
       <header>
-        <p className="text-sm text-graphite">Fork and retune</p>
+        <p className="text-sm text-graphite">Retune or derive a variant</p>
         <h1 className="font-serif text-2xl font-semibold">{block.title} <span className="font-mono text-lg text-graphite">v{block.version}</span></h1>
         <p className="mt-1 max-w-prose text-sm text-graphite">
           Change values and watch the quantities and expression checks follow as you type. Simulated checks run when you save.

@@ -1,8 +1,7 @@
 "use server";
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
-import { getCaller } from "@/lib/auth/session";
-import { getEm } from "@/lib/db/orm";
+import { actionContext } from "@/lib/next-context";
 import { rerunVersion } from "@/lib/runs/rerun";
 import { failure, type FormState } from "../../../form-state";
 
@@ -12,10 +11,10 @@ const target = z.object({ slug: z.string().regex(/^[a-z0-9-]{1,100}$/), version:
 export async function rerunAction(_prev: FormState, form: FormData): Promise<FormState> {
   const parsed = target.safeParse(Object.fromEntries(form));
   if (!parsed.success) return { ok: false, message: "Pick a version to verify again." };
-  const caller = await getCaller();
-  if (!caller.user) return { ok: false, message: "Sign in to verify again." };
+  const ctx = await actionContext();
+  if (!ctx.caller.user) return { ok: false, message: "Sign in to verify again." };
   try {
-    await rerunVersion({ em: await getEm(), caller }, parsed.data);
+    await rerunVersion(ctx, parsed.data);
   } catch (err) {
     return failure(err);
   }

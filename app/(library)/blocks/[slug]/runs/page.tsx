@@ -3,8 +3,8 @@ import Link from "next/link";
 import { EmptyState } from "@/components/empty-state";
 import { RerunButton } from "@/components/runs/rerun-button";
 import { RunEntry } from "@/components/runs/run-entry";
-import { getCaller } from "@/lib/auth/session";
-import { getBlock } from "@/lib/blocks/read";
+import { loadBlockVersion } from "@/lib/blocks/page";
+import { pageContext } from "@/lib/next-context";
 import { listRuns } from "@/lib/runs/runs";
 import { orNotFound } from "../../../or-not-found";
 
@@ -13,10 +13,9 @@ export const dynamic = "force-dynamic";
 
 export default async function RunsPage({ params }: { params: Promise<{ slug: string }> }) {
   const { slug } = await params;
-  const caller = await getCaller();
-  const [block, runs] = await Promise.all([orNotFound(getBlock(caller, slug)), orNotFound(listRuns(caller, slug))]);
-  const role = caller.memberships.find((m) => m.teamSlug === block.team)?.role;
-  const maintainer = role === "maintainer" || role === "admin";
+  const ctx = await pageContext();
+  const { block, allowed } = await orNotFound(loadBlockVersion(ctx, { slug }));
+  const runs = await orNotFound(listRuns(ctx.caller, slug));
   // The button sits on each version's latest verification, and not while one is waiting or running.
   const latest = new Set<string>();
   const seen = new Set<number>();
@@ -32,7 +31,7 @@ export default async function RunsPage({ params }: { params: Promise<{ slug: str
         <ol className="relative max-w-3xl space-y-4 before:absolute before:bottom-2 before:left-[8px] before:top-2 before:w-px before:bg-rule" data-testid="run-history">
           {runs.map((r) => (
             <RunEntry key={r.id} slug={slug} run={r}
-              action={maintainer && latest.has(r.id) && (r.status === "done" || r.status === "error") ? <RerunButton slug={slug} version={r.version} /> : null} />
+              action={allowed.rerun && latest.has(r.id) && (r.status === "done" || r.status === "error") ? <RerunButton slug={slug} version={r.version} /> : null} />
           ))}
         </ol>
       )}
