@@ -1,6 +1,6 @@
 "use client";
 import { useActionState, useId, useState } from "react";
-import { addAttachmentAction } from "@/app/(library)/blocks/[slug]/attachment-actions";
+import { addAttachmentAction } from "@/lib/actions/attachments";
 import { formatBytes } from "./format-bytes";
 
 const LIMIT = 1024 * 1024;

@@ -1,7 +1,7 @@
 "use client";
 import { useRouter } from "next/navigation";
 import { useActionState, useEffect, useId } from "react";
-import { decideAction } from "@/app/(library)/blocks/[slug]/actions";
+import { decideAction } from "@/lib/actions/block";
 
 /** Approve a version, or ask for changes with a comment saying which. */
 export function ReviewDecision({ slug, version, refresh = false }: { slug: string; version: number; refresh?: boolean }) {

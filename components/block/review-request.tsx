@@ -1,6 +1,6 @@
 "use client";
 import { useActionState } from "react";
-import { requestReviewAction } from "@/app/(library)/blocks/[slug]/actions";
+import { requestReviewAction } from "@/lib/actions/block";
 import { workVerb } from "./work-verb";
 
 export function ReviewRequest({ slug, version }: { slug: string; version: number }) {

@@ -1,6 +1,6 @@
 "use client";
 import { useActionState } from "react";
-import { toggleWatchAction } from "@/app/(library)/blocks/[slug]/actions";
+import { toggleWatchAction } from "@/lib/actions/block";
 import { workVerb } from "./work-verb";
 
 export function WatchButton({ slug, watching }: { slug: string; watching: boolean }) {

@@ -2,7 +2,7 @@
 import Link from "next/link";
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
 import { useActionState, useRef, useState } from "react";
-import { checkDraftAction, saveEditAction } from "@/app/(library)/blocks/[slug]/edit/actions";
+import { checkDraftAction, saveEditAction } from "@/lib/actions/edit";
 import { useDebounced } from "@/components/library/use-debounced";
 
 /** The block file in a monospace editor; the engine's errors sit beside the lines they name. */

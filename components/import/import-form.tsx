@@ -1,6 +1,6 @@
 "use client";
 import { useActionState, useEffect, useState } from "react";
-import { convertNetlistAction, createImportAction } from "@/app/(library)/import/actions";
+import { convertNetlistAction, createImportAction } from "@/lib/actions/import";
 
 const field = "w-full rounded border border-rule bg-panel px-2 py-1 text-sm";
 

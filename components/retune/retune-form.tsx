@@ -1,6 +1,6 @@
 "use client";
 import { useActionState, useMemo, useState } from "react";
-import { saveRetuneAction } from "@/app/(library)/blocks/[slug]/fork/actions";
+import { saveRetuneAction } from "@/lib/actions/retune";
 import { useDebounced } from "@/components/library/use-debounced";
 import type { ParamRow } from "@/components/param-table";
 import { useEvaluateBlock } from "@/lib/queries/evaluate-block";

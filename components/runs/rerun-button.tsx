@@ -1,6 +1,6 @@
 "use client";
 import { useActionState } from "react";
-import { rerunAction } from "@/app/(library)/blocks/[slug]/runs/actions";
+import { rerunAction } from "@/lib/actions/runs";
 
 export function RerunButton({ slug, version }: { slug: string; version: number }) {
   const [state, action, pending] = useActionState(rerunAction, {});

@@ -1,12 +1,13 @@
 import { z } from "zod";
 import { ROLES } from "@/entities";
+import { SLUG_RE } from "./api";
 
 // Form and CLI input for accounts, teams and tokens; services re-check rights, these only check shape.
 export const email = z.string().trim().toLowerCase().email("Enter an e-mail address.").max(320);
 export const password = z.string().min(10, "Use at least 10 characters.").max(200, "Use at most 200 characters.");
 export const personName = z.string().trim().min(1, "Enter your name.").max(200);
 export const role = z.enum(ROLES);
-export const teamSlug = z.string().trim().regex(/^[a-z0-9-]{1,64}$/, "Not a team slug.");
+export const teamSlug = z.string().trim().max(64, "Not a team slug.").regex(SLUG_RE, "Not a team slug.");
 
 export const passwordSignIn = z.object({ email, password: z.string().min(1, "Enter your password.").max(200) });
 export const linkRequest = z.object({ email });

@@ -4,7 +4,7 @@ import { changePassword, updateName } from "@/lib/auth/profile";
 import { getCaller, restartSession } from "@/lib/auth/session";
 import { withEm } from "@/lib/db/orm";
 import { firstIssue, passwordChange, profileName } from "@/lib/validation/accounts";
-import { failure, type FormState } from "../form-state";
+import { failure, type FormState } from "@/lib/actions/form-state";
 
 export async function updateNameAction(_prev: FormState, form: FormData): Promise<FormState> {
   const parsed = profileName.safeParse({ name: form.get("name") });

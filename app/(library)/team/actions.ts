@@ -6,7 +6,7 @@ import { getCaller } from "@/lib/auth/session";
 import { changeRole, removeMember } from "@/lib/auth/teams";
 import { withEm } from "@/lib/db/orm";
 import { firstIssue, invitation, role, teamSlug } from "@/lib/validation/accounts";
-import { failure, type FormState } from "../form-state";
+import { failure, type FormState } from "@/lib/actions/form-state";
 
 // Every action re-resolves the caller and the services check the admin role themselves.
 const memberTarget = z.object({ teamSlug, userId: z.coerce.number().int().positive() });

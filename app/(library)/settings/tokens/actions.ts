@@ -5,7 +5,7 @@ import { getCaller } from "@/lib/auth/session";
 import { withEm } from "@/lib/db/orm";
 import { createOwnToken, revokeTokenAs } from "@/lib/tokens/manage";
 import { firstIssue, newToken } from "@/lib/validation/accounts";
-import { failure, type FormState } from "../../form-state";
+import { failure, type FormState } from "@/lib/actions/form-state";
 
 /** The new token travels back once in `data.token`; it is never stored or shown again. */
 export async function createTokenAction(_prev: FormState, form: FormData): Promise<FormState> {

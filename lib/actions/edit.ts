@@ -2,11 +2,12 @@
 import { redirect } from "next/navigation";
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
+import { slugSchema } from "@/lib/validation/api";
 import { parseBlock, previewBlock, type BlockError } from "@/checks";
 import { getCaller } from "@/lib/auth/session";
 import { addVersion } from "@/lib/blocks/versions";
 import { isAppError } from "@/lib/errors";
-import { failure, type FormState } from "../../../form-state";
+import { failure, type FormState } from "@/lib/actions/form-state";
 
 const MAX_FILE = 256 * 1024;
 
@@ -25,7 +26,7 @@ export async function checkDraftAction(text: string): Promise<{ errors: BlockErr
 }
 
 const editForm = z.object({
-  slug: z.string().regex(/^[a-z0-9-]{1,100}$/),
+  slug: slugSchema,
   baseVersion: z.coerce.number().int().min(1),
   // Browsers send a textarea's line ends as CRLF; block files use LF.
   text: z.string().transform((t) => t.replace(/\r\n?/g, "\n")).pipe(z.string().min(1, "the block file is empty").max(MAX_FILE, "the block file is larger than 256 KiB")),

@@ -1,12 +1,13 @@
 "use server";
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
+import { slugSchema } from "@/lib/validation/api";
 import { getCaller } from "@/lib/auth/session";
 import { decide, requestReview } from "@/lib/reviews/reviews";
 import { unwatch, watch } from "@/lib/watches/watches";
-import { failure, type FormState } from "../../form-state";
+import { failure, type FormState } from "@/lib/actions/form-state";
 
-const target = z.object({ slug: z.string().regex(/^[a-z0-9-]{1,100}$/), version: z.coerce.number().int().min(1) });
+const target = z.object({ slug: slugSchema, version: z.coerce.number().int().min(1) });
 
 export async function toggleWatchAction(_prev: FormState, form: FormData): Promise<FormState> {
   const parsed = target.pick({ slug: true }).extend({ watching: z.enum(["true", "false"]) }).safeParse(Object.fromEntries(form));

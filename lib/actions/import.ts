@@ -6,7 +6,7 @@ import { importNetlist } from "@/checks";
 import { addAttachment, MAX_ATTACHMENT_BYTES } from "@/lib/attachments/attachments";
 import { getCaller } from "@/lib/auth/session";
 import { createBlock } from "@/lib/blocks/create";
-import { failure, type FormState } from "../form-state";
+import { failure, type FormState } from "@/lib/actions/form-state";
 
 const MAX_FILE = 256 * 1024;
 const NETLIST = /\.(cir|sp|net)$/i;

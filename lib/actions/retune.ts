@@ -6,7 +6,7 @@ import { forkBlock } from "@/lib/blocks/fork";
 import { addVersion } from "@/lib/blocks/versions";
 import { actionContext } from "@/lib/next-context";
 import { retuneFormSchema } from "@/lib/validation/blocks";
-import { failure, type FormState } from "../../../form-state";
+import { failure, type FormState } from "@/lib/actions/form-state";
 
 /** Save retuned values: as a fork (a new block with lineage) or as the next version of this block. */
 export async function saveRetuneAction(_prev: FormState, form: FormData): Promise<FormState> {

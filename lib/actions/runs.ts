@@ -2,10 +2,11 @@
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
 import { actionContext } from "@/lib/next-context";
+import { slugSchema } from "@/lib/validation/api";
 import { rerunVersion } from "@/lib/runs/rerun";
-import { failure, type FormState } from "../../../form-state";
+import { failure, type FormState } from "@/lib/actions/form-state";
 
-const target = z.object({ slug: z.string().regex(/^[a-z0-9-]{1,100}$/), version: z.coerce.number().int().min(1) });
+const target = z.object({ slug: slugSchema, version: z.coerce.number().int().min(1) });
 
 /** A maintainer's "verify again" on the runs page. */
 export async function rerunAction(_prev: FormState, form: FormData): Promise<FormState> {

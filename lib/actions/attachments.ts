@@ -1,13 +1,14 @@
 "use server";
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
+import { slugSchema } from "@/lib/validation/api";
 import { addAttachment, MAX_ATTACHMENT_BYTES } from "@/lib/attachments/attachments";
 import { getCaller } from "@/lib/auth/session";
-import { failure, type FormState } from "../../form-state";
+import { failure, type FormState } from "@/lib/actions/form-state";
 
 const TYPES: Record<string, string> = { "image/png": ".png", "image/svg+xml": ".svg" };
 const fields = z.object({
-  slug: z.string().regex(/^[a-z0-9-]{1,100}$/),
+  slug: slugSchema,
   name: z.string().trim().max(100).optional(),
 });
 
