@@ -17,6 +17,8 @@ export VITE_CONFIG_NATIVE_IGNORE_WARNING=true
 status=0
 say "type check"
 npx tsc --noEmit -p . || status=$?
+say "import rules (.dependency-cruiser.cjs)"
+npm run -s lint:imports || status=$?
 say "unit and integration tests"
 npx vitest run || status=$?
 if [ -f vitest.e2e.config.mts ] && [ "$status" -eq 0 ]; then

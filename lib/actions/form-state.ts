@@ -1,3 +1,4 @@
+import "server-only";
 import { isAppError } from "@/lib/errors";
 
 /** What a server action hands back to its form: per-field errors and one message, shown in an aria-live region. */

@@ -1,3 +1,4 @@
+import "server-only";
 import type { z } from "zod";
 import type { BlockView, Lineage } from "@/lib/blocks/read";
 import type { blockSchema, checkCountsSchema } from "@/lib/openapi/responses";

@@ -1,3 +1,4 @@
+import "server-only";
 import type { Caller } from "@/lib/auth/caller";
 import { deckOrThrow } from "@/lib/blocks/common";
 import { getBlock, getBlockWithLineage } from "@/lib/blocks/read";

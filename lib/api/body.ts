@@ -1,3 +1,4 @@
+import "server-only";
 import { AppError } from "@/lib/errors";
 
 export const MAX_BLOCK_FILE_BYTES = 256 * 1024;

@@ -1,3 +1,4 @@
+import "server-only";
 // Cache policy of the API, in one place.
 // - JSON of a head or a version: `no-cache` + a strong ETag over the exact body. A version's text never changes,
 //   but its badge, approval, latest report and lineage do, so clients revalidate every time and get 304 while the body

@@ -1,3 +1,4 @@
+import "server-only";
 import { appUrl } from "@/lib/auth/config";
 import { noStore } from "./cache";
 

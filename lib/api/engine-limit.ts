@@ -1,3 +1,4 @@
+import "server-only";
 import { RateLimiterMemory, RateLimiterRes } from "rate-limiter-flexible";
 import type { Caller } from "@/lib/auth/caller";
 import { AppError } from "@/lib/errors";

@@ -1,3 +1,4 @@
+import "server-only";
 import { createHash } from "node:crypto";
 
 /** A strong validator over the exact bytes sent: it covers badge, approval and report, which change after a version is written. */

@@ -1,3 +1,4 @@
+import "server-only";
 import { ZodError, type ZodType, type z } from "zod";
 import { AppError } from "@/lib/errors";
 import { problem } from "./problem";

@@ -1,3 +1,4 @@
+import "server-only";
 import { AppError } from "@/lib/errors";
 
 // Cursor pages over a list already in memory (versions of one block: tens, not thousands).

@@ -1,3 +1,4 @@
+import "server-only";
 import { ZodError } from "zod";
 import { AppError, ERROR_STATUS, type ErrorCode } from "@/lib/errors";
 

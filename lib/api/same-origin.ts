@@ -1,3 +1,4 @@
+import "server-only";
 import { AppError } from "@/lib/errors";
 
 const SAFE = new Set(["GET", "HEAD", "OPTIONS"]);

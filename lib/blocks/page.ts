@@ -1,3 +1,4 @@
+import "server-only";
 import type { Waveform } from "@/checks";
 import { attachmentsOf, type AttachmentInfo } from "@/lib/attachments/attachments";
 import type { Role } from "@/entities";
