@@ -41,7 +41,6 @@ const json = (path: string, body: unknown): Call => ({ path, method: "POST", bod
 const MATRIX: Record<string, Entry> = {
   "GET /api/v1/health": { call: async () => ({ path: "/api/v1/health", method: "GET" }), expect: all(200) },
   "GET /api/v1/openapi.json": { call: async () => ({ path: "/api/v1/openapi.json", method: "GET" }), expect: all(200) },
-  "GET /api/v1/bench/constant": { call: async () => ({ path: "/api/v1/bench/constant", method: "GET" }), expect: all(404) },
   "GET /api/v1/blocks": { call: async () => ({ path: `/api/v1/blocks?team=${w.teamA.slug}`, method: "GET" }), expect: all(200) },
   "POST /api/v1/blocks": {
     call: async () => ({ path: `/api/v1/blocks?team=${w.teamA.slug}`, method: "POST", body: rcBlockText(`rc-new-${unique()}`), type: "text/markdown" }),

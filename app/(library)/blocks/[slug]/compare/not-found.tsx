@@ -1,3 +1,0 @@
-import { NotInLibrary } from "@/components/not-in-library";
-
-export default NotInLibrary;
