@@ -856,6 +856,8 @@ export interface operations {
                      * @example 3
                      */
                     fromVersion?: number;
+                    /** @description Why the fork was made (default: where it came from) */
+                    message?: string;
                     /**
                      * @description New parameter values by name
                      * @example {
