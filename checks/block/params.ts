@@ -1,11 +1,11 @@
 import { isMap, isScalar, isSeq, type Node, type YAMLMap } from "yaml";
+import { MEASURES } from "../script/measure-specs";
 import { readQuantity } from "../units";
 import type { BlockError, ParamSpec } from "./types";
 
 // Names the script gives its own meaning; a parameter may shadow a unit but not these.
 export const RESERVED = new Set([
-  "check", "near", "tran", "ac", "op", "peak", "trough", "pp", "rms", "avg", "freq", "thd", "at",
-  "startup", "gain_db", "phase", "f3db", "v", "i", "eseries", "montecarlo", "sweep",
+  "check", "near", "tran", "ac", "op", "dc", "noise", "tf", "eseries", "montecarlo", "sweep", ...Object.keys(MEASURES),
 ]);
 const IDENT = /^[A-Za-z_][A-Za-z0-9_]*$/;
 // A negative or zero part value is a typo, and ngspice would simulate it without complaint.

@@ -49,8 +49,11 @@ export type Report = {
  * corner's trace (`variant: "worst"`, `corner`), or a sweep's members (`variant: "member"`, `sweep`).
  */
 export type Waveform = {
-  analysis: "tran" | "ac";
+  analysis: "tran" | "ac" | "dc" | "noise";
   x: number[];
+  /** dc and noise plots: the x and y units ("degC" for a temperature sweep, "V/Hz^0.5" for noise). */
+  xUnit?: string;
+  yUnit?: string;
   series: { node: string; values: number[]; phase?: number[] }[];
   windows: { node: string; from: number; to: number; measure: string; value?: number }[];
   marks: { node: string; x: number; label: string; value?: number }[];

@@ -38,7 +38,7 @@ export function phaseCurve(res: SimResult, node: string, measure = "phase"): Flo
   return out;
 }
 
-function atFrequency(res: SimResult, curve: Float64Array, f: number, measure: string): number {
+export function atFrequency(res: SimResult, curve: Float64Array, f: number, measure: string): number {
   const s = res.scale;
   const lo = s[0];
   const hi = s[s.length - 1];

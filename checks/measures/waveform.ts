@@ -1,5 +1,6 @@
 import { f3db, gainCurve, phaseCurve } from "./ac";
 import { MeasureError, vectorOf } from "./signal";
+import { sweepWaveform } from "./sweep-plot";
 import type { SimResult } from "../spice/types";
 
 export const MAX_PLOT_POINTS = 2000;
@@ -23,8 +24,11 @@ function cornerMarks(res: SimResult, node: string): { node: string; x: number; l
 
 export type PlotWindow = { node: string; from: number; to: number; measure: string; value?: number };
 export type Waveform = {
-  analysis: "tran" | "ac";
+  analysis: "tran" | "ac" | "dc" | "noise";
   x: number[];
+  /** dc and noise plots: the x and y units ("degC" for a temperature sweep, "V/Hz^0.5" for noise). */
+  xUnit?: string;
+  yUnit?: string;
   series: { node: string; values: number[]; phase?: number[] }[];
   windows: PlotWindow[];
   marks: { node: string; x: number; label: string; value?: number }[];
@@ -57,8 +61,9 @@ const pick = (v: Float64Array, idx: number[]) => idx.map((k) => v[k]);
 
 /** The plot data for a simulation: tran in volts over time; ac in dB and degrees, with the -3 dB point marked. */
 export function waveformFor(res: SimResult, nodes: string[], windows: PlotWindow[] = []): Waveform {
-  if (res.analysis === "op") throw new MeasureError("an operating point has no waveform to plot");
+  if (res.analysis === "op" || res.analysis === "tf") throw new MeasureError(`a ${res.analysis} result has no waveform to plot`);
   if (nodes.length === 0) throw new MeasureError("waveformFor() needs at least one node");
+  if (res.analysis === "dc" || res.analysis === "noise") return sweepWaveform(res, nodes, windows);
   if (res.analysis === "tran") {
     const curves = nodes.map((n) => vectorOf(res, n));
     const idx = plotIndices(res.scale.length, curves[0]);

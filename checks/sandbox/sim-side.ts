@@ -9,15 +9,15 @@ type Measure = (res: SimResult, node: string, ...args: (number | string)[]) => n
 export function simSide(): SimSide {
   return {
     request: (input) => simRequest(input),
-    parse: (req, raw) => resultFromRaw(req.analysis.kind, raw, 0, false),
+    parse: (req, raw) => resultFromRaw(req.analysis, raw, 0, false),
     measure: (name, result, node, args) => {
       const fn = (measures as unknown as Record<string, Measure>)[name];
       if (typeof fn !== "function") throw new Error(`no measure named ${name}`);
       return fn(result, node, ...args);
     },
     waveform: (res, nodes) => {
-      if (res.analysis === "op") return null;
-      const names = nodes.length ? nodes : ["out"].filter((n) => n in res.vectors);
+      if (res.analysis === "op" || res.analysis === "tf") return null;
+      const names = nodes.length ? nodes : ["out"].filter((n) => n in res.vectors || res.analysis === "noise");
       return names.length ? measures.waveformFor(res, names) : null;
     },
   };

@@ -1,11 +1,10 @@
 import type { MathNode } from "mathjs";
 import type { BlockError } from "../block/types";
 import { math, parseExpression } from "./math";
+import { MEASURES } from "./measure-specs";
 
-export const SIM_CALLS = new Set(["tran", "ac", "op"]);
-export const MEASURE_CALLS = new Set([
-  "peak", "trough", "pp", "rms", "avg", "freq", "thd", "at", "startup", "gain_db", "phase", "f3db", "v", "i",
-]);
+export const SIM_CALLS = new Set(["tran", "ac", "op", "dc", "noise", "tf"]);
+export const MEASURE_CALLS = new Set(Object.keys(MEASURES));
 
 const OTHER_CALLS = new Set(["check", "near", "eseries"]);
 

@@ -3,11 +3,10 @@ import { eseries } from "../eseries";
 import { formatValue, fromQuantity, toQuantity } from "../units";
 import { nearTest } from "./condition";
 import { isUnit, math } from "./math";
+import { MEASURES, unitIn, type Context } from "./measure-specs";
+import type { Analysis } from "../spice/types";
 
-export type Analysis =
-  | { kind: "tran"; stop: number; step: number; uic?: boolean }
-  | { kind: "ac"; f1: number; f2: number; perDecade: number }
-  | { kind: "op" };
+export type { Analysis } from "../spice/types";
 
 /** A simulation result as the script holds it; only measures look inside. */
 export class SimHandle {
@@ -38,24 +37,6 @@ function inUnit(x: unknown, unit: string, what: string): number {
 // The same label as the plot's own -3 dB mark, so a measured corner is drawn once.
 const F3DB_LABEL = "−3 dB";
 
-// What each measure reads after (res, node) and the unit of its result.
-const MEASURES: Record<string, { args: [string, string][]; unit: string; analysis: Analysis["kind"] }> = {
-  peak: { args: [["from", "s"], ["to", "s"]], unit: "V", analysis: "tran" },
-  trough: { args: [["from", "s"], ["to", "s"]], unit: "V", analysis: "tran" },
-  pp: { args: [["from", "s"], ["to", "s"]], unit: "V", analysis: "tran" },
-  rms: { args: [["from", "s"], ["to", "s"]], unit: "V", analysis: "tran" },
-  avg: { args: [["from", "s"], ["to", "s"]], unit: "V", analysis: "tran" },
-  freq: { args: [["from", "s"], ["to", "s"]], unit: "Hz", analysis: "tran" },
-  thd: { args: [["from", "s"], ["to", "s"]], unit: "", analysis: "tran" },
-  at: { args: [["t", "s"]], unit: "V", analysis: "tran" },
-  startup: { args: [["level", "V"]], unit: "s", analysis: "tran" },
-  gain_db: { args: [["f", "Hz"]], unit: "dB", analysis: "ac" },
-  phase: { args: [["f", "Hz"]], unit: "deg", analysis: "ac" },
-  f3db: { args: [], unit: "Hz", analysis: "ac" },
-  v: { args: [], unit: "V", analysis: "op" },
-  i: { args: [], unit: "A", analysis: "op" },
-};
-
 // Why a measure gave NaN (nothing to measure), collected while a statement runs; evaluate.ts
 // takes them after each statement and puts them in the detail of every check that reads them.
 let reasons: string[] = [];
@@ -74,6 +55,34 @@ function measured(hooks: SimHooks, name: string, result: unknown, node: string, 
     reasons.push(`${name}(): ${(e as Error).message}`);
     return NaN;
   }
+}
+
+// Optional edge for a band-pass: f3db(res, node, "lower" | "upper").
+function f3dbOf(hooks: SimHooks, res: SimHandle, node: string, rest: unknown[]): Unit {
+  if (rest.length > 1 || (rest.length === 1 && rest[0] !== "lower" && rest[0] !== "upper"))
+    throw new Error('f3db(res, node) or f3db(res, node, "lower" | "upper")');
+  const value = hooks.measure("f3db", res.result, node, rest as string[]);
+  hooks.mark(res.index, { node, x: value, label: F3DB_LABEL });
+  return math.unit(value, "Hz") as Unit;
+}
+
+const TEMPERATURE_STEP: Record<string, number> = { degC: 1, K: 1, degF: 5 / 9, degR: 5 / 9 };
+
+/** A temperature in K; a step (a difference) read in its own unit, so `5 degC` is 5 K, not 278.15 K. */
+function temperature(x: unknown, what: string, difference = false): number {
+  if (!isUnit(x) || toQuantity(x)!.unit !== "K") throw new Error(`${what} is a temperature with its unit (-40 degC, 358.15 K), got ${formatValue(x)}`);
+  const own = x.units.length === 1 ? x.units[0].unit.name : "";
+  return difference && own in TEMPERATURE_STEP ? x.toNumber(own) * TEMPERATURE_STEP[own] : toQuantity(x)!.si;
+}
+
+const name = (x: unknown, what: string) => {
+  if (typeof x !== "string" || !x.trim()) throw new Error(`${what} is a name in quotes, such as "V1" or "out"`);
+  return x.trim();
+};
+
+function perDecade(n: unknown, call: string): number {
+  if (typeof n !== "number" || !Number.isInteger(n) || n < 1) throw new Error(`${call}: points per decade is a whole number`);
+  return n;
 }
 
 export function builtins(hooks: SimHooks): Map<string, unknown> {
@@ -99,32 +108,52 @@ export function builtins(hooks: SimHooks): Map<string, unknown> {
     const { result, index } = hooks.simulate(a);
     return new SimHandle(a, result, index);
   });
+  const run = (a: Analysis) => {
+    const { result, index } = hooks.simulate(a);
+    return new SimHandle(a, result, index);
+  };
+  fns.set("dc", (source: unknown, from: unknown, to: unknown, step: unknown) => {
+    const src = name(source, "dc(source, from, to, step): the source");
+    if (src.toLowerCase() === "temp")
+      return run({ kind: "dc", source: "temp", from: temperature(from, "dc() from"), to: temperature(to, "dc() to"), step: temperature(step, "dc() step", true) });
+    const unit = /^i/i.test(src) ? "A" : "V";
+    return run({ kind: "dc", source: src, from: inUnit(from, unit, "dc() from"), to: inUnit(to, unit, "dc() to"), step: inUnit(step, unit, "dc() step") });
+  });
+  fns.set("noise", (node: unknown, source: unknown, f1: unknown, f2: unknown, n: unknown) =>
+    run({
+      kind: "noise", node: name(node, "noise(node, source, f1, f2, per_decade): the node"), source: name(source, "noise(): the source"),
+      f1: inUnit(f1, "Hz", "noise() f1"), f2: inUnit(f2, "Hz", "noise() f2"), perDecade: perDecade(n, "noise(node, source, f1, f2, per_decade)"),
+    }),
+  );
+  fns.set("tf", (node: unknown, source: unknown) => run({ kind: "tf", node: name(node, "tf(node, source): the node"), source: name(source, "tf(node, source): the source") }));
   fns.set("op", () => {
     const a: Analysis = { kind: "op" };
     const { result, index } = hooks.simulate(a);
     return new SimHandle(a, result, index);
   });
   for (const [name, spec] of Object.entries(MEASURES)) {
-    fns.set(name, (res: unknown, node: unknown, ...rest: unknown[]) => {
-      const call = `${name}(res, node${spec.args.map(([a]) => `, ${a}`).join("")})`;
+    fns.set(name, (res: unknown, ...given: unknown[]) => {
+      const names = [...(spec.node === false ? [] : ["node"]), ...spec.args.map(([a]) => a)];
+      const call = `${name}(res${names.map((a) => `, ${a}`).join("")})`;
       if (!(res instanceof SimHandle)) throw new Error(`${call}: the first argument must be a simulation result`);
-      if (res.analysis.kind !== spec.analysis) throw new Error(`${call} needs a ${spec.analysis}() result, got ${res.analysis.kind}()`);
+      if (!spec.analyses.includes(res.analysis.kind))
+        throw new Error(`${call} needs a ${spec.analyses.map((a) => `${a}()`).join(" or ")} result, got ${res.analysis.kind}()`);
+      const node = spec.node === false ? "" : given.shift();
       if (typeof node !== "string") throw new Error(`${call}: the node is a string such as "out"`);
-      if (name === "f3db") {
-        // Optional edge for a band-pass: f3db(res, node, "lower" | "upper").
-        if (rest.length > 1 || (rest.length === 1 && rest[0] !== "lower" && rest[0] !== "upper"))
-          throw new Error('f3db(res, node) or f3db(res, node, "lower" | "upper")');
-        const value = hooks.measure(name, res.result, node, rest as string[]);
-        hooks.mark(res.index, { node, x: value, label: F3DB_LABEL });
-        return math.unit(value, "Hz") as Unit;
-      }
-      if (rest.length !== spec.args.length) throw new Error(`${call} takes ${spec.args.length + 2} arguments`);
-      const args = spec.args.map(([a, unit], k) => inUnit(rest[k], unit, `${name}() ${a}`));
+      if (name === "f3db") return f3dbOf(hooks, res, node, given);
+      const optional = spec.defaults?.length ?? 0;
+      if (given.length > spec.args.length || given.length < spec.args.length - optional)
+        throw new Error(`${call} takes ${optional ? `${names.length + 1 - optional} to ` : ""}${names.length + 1} arguments`);
+      const ctx: Context = { analysis: res.analysis, node };
+      const args = spec.args.map(([a, unit], k) =>
+        k < given.length ? inUnit(given[k], unitIn(unit, ctx), `${name}() ${a}`) : spec.defaults![k - (spec.args.length - optional)],
+      );
       const value = measured(hooks, name, res.result, node, args);
       if (spec.args[0]?.[0] === "from") hooks.window(res.index, { node, from: args[0], to: args[1], measure: name, value });
       if (name === "gain_db" || name === "phase") hooks.mark(res.index, { node, x: args[0], label: name === "gain_db" ? "gain" : "phase", value });
-      if (name === "startup" && Number.isFinite(value)) hooks.mark(res.index, { node, x: value, label: "start-up" });
-      return spec.unit ? (math.unit(value, spec.unit) as Unit) : value;
+      if (spec.mark && Number.isFinite(value)) hooks.mark(res.index, { node, x: value, label: spec.mark });
+      const unit = unitIn(spec.unit, ctx);
+      return unit ? (math.unit(value, unit) as Unit) : value;
     });
   }
   return fns;

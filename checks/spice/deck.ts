@@ -1,5 +1,6 @@
 import { sanitizeNetlist } from "./sanitize";
 import { SpiceError, type Analysis, type SimRequest } from "./types";
+import { dcCard, noiseCard, tfCard } from "./cards";
 import { defaultModelsDir } from "./paths";
 
 // Refused before ngspice runs: a run this large is a mistake or an attack, not a check.
@@ -11,6 +12,9 @@ const IDENT = /^[A-Za-z_][A-Za-z0-9_]*$/;
 /** The analysis card for a request, after checking its numbers and the points cap. */
 export function analysisLine(a: Analysis): string {
   if (a.kind === "op") return ".op";
+  if (a.kind === "dc") return dcCard(a);
+  if (a.kind === "noise") return noiseCard(a);
+  if (a.kind === "tf") return tfCard(a);
   if (a.kind === "tran") {
     if (!(a.stop > 0 && a.step > 0 && Number.isFinite(a.stop / a.step)))
       throw new SpiceError(`tran: stop and step must be positive times (got stop=${a.stop} s, step=${a.step} s)`);

@@ -3,7 +3,8 @@ import { circuitOffset, writeDeck as deckFor } from "./deck";
 import { defaultCacheDir, defaultModelsDir } from "./paths";
 import { parseRawFile, type RawPlot } from "./raw-file";
 import { runNgspice } from "./run-ngspice";
-import { SpiceError, type ComplexVector, type SimOptions, type SimRequest, type SimResult } from "./types";
+import { sweepScale } from "./cards";
+import { SpiceError, type Analysis, type ComplexVector, type SimOptions, type SimRequest, type SimResult } from "./types";
 import { SPICE_RUNNER_VERSION, ngspiceVersion } from "./version";
 import { ENGINE_VERSION } from "../version";
 
@@ -30,23 +31,26 @@ export function simulate(req: SimRequest, opts: SimOptions = {}): SimResult {
   const dir = opts.cacheDir ?? defaultCacheDir();
   const hit = opts.noCache ? null : readCached(dir, key);
   const raw = hit ?? runNgspice(deck, { timeoutMs: opts.timeoutMs, circuitOffset: circuitOffset(req), circuit: req.circuit }).raw;
-  const result = toResult(req.analysis.kind, parseRawFile(raw));
+  const result = toResult(req.analysis, parseRawFile(raw));
   if (!hit && !opts.noCache) writeCached(dir, key, raw);
   return { ...result, ms: Math.round((performance.now() - t0) * 10) / 10, cached: hit !== null };
 }
 
 /** A raw file ngspice wrote for this analysis, as the measures read it. */
-export function resultFromRaw(kind: SimResult["analysis"], raw: Uint8Array, ms: number, cached: boolean): SimResult {
+export function resultFromRaw(analysis: Analysis, raw: Uint8Array, ms: number, cached: boolean): SimResult {
   const buf = Buffer.isBuffer(raw) ? raw : Buffer.from(raw.buffer, raw.byteOffset, raw.byteLength);
-  return { ...toResult(kind, parseRawFile(buf)), ms, cached };
+  return { ...toResult(analysis, parseRawFile(buf)), ms, cached };
 }
 
-const PLOT_NAME = { tran: /transient/i, ac: /^ac/i, op: /operating point/i } as const;
+const PLOT_NAME = {
+  tran: /transient/i, ac: /^ac/i, op: /operating point/i, dc: /^dc transfer/i, noise: /noise spectral density/i, tf: /transfer function/i,
+} as const;
 
-function toResult(kind: SimResult["analysis"], plots: RawPlot[]): Omit<SimResult, "ms" | "cached"> {
+function toResult(analysis: Analysis, plots: RawPlot[]): Omit<SimResult, "ms" | "cached"> {
+  const kind = analysis.kind;
   const plot = plots.find((p) => PLOT_NAME[kind].test(p.plotname));
   if (!plot) throw new SpiceError(`ngspice wrote no ${kind} result (plots: ${plots.map((p) => p.plotname).join(", ")})`);
-  const hasScale = kind !== "op";
+  const hasScale = kind !== "op" && kind !== "tf";
   const vectors: Record<string, Float64Array> = {};
   const complex: Record<string, ComplexVector> = {};
   plot.variables.forEach((v, i) => {
@@ -59,11 +63,16 @@ function toResult(kind: SimResult["analysis"], plots: RawPlot[]): Omit<SimResult
       if (im) complex[name] = { re, im };
     }
   });
+  // .noise writes the band's integrated rms noise as a second plot of one point.
+  const integrated = kind === "noise" ? plots.find((p) => /integrated noise/i.test(p.plotname)) : undefined;
+  const totals = integrated && Object.fromEntries(integrated.variables.map((v, i) => [namesOf(v.name).at(-1)!, integrated.real[i][0]]));
   return {
     analysis: kind,
-    scale: hasScale ? plot.real[0] : new Float64Array(0),
+    scale: hasScale ? sweepScale(analysis, plot.real[0]) : new Float64Array(0),
     vectors,
     ...(plot.complex ? { complex } : {}),
+    ...(totals ? { totals } : {}),
+    ...(analysis.kind === "dc" ? { sweep: analysis.source } : {}),
     points: plot.points,
   };
 }

@@ -1,7 +1,11 @@
 export type Analysis =
   | { kind: "tran"; stop: number; step: number; uic?: boolean }
   | { kind: "ac"; f1: number; f2: number; perDecade: number }
-  | { kind: "op" };
+  | { kind: "op" }
+  /** `source` is an independent source's name or "temp"; temperatures are in K here, °C in the deck. */
+  | { kind: "dc"; source: string; from: number; to: number; step: number }
+  | { kind: "noise"; node: string; source: string; f1: number; f2: number; perDecade: number }
+  | { kind: "tf"; node: string; source: string };
 
 export type SimRequest = {
   title: string;
@@ -22,10 +26,12 @@ export type ComplexVector = { re: Float64Array; im: Float64Array };
 
 export type SimResult = {
   analysis: Analysis["kind"];
-  scale: Float64Array;                     // time (tran) or frequency (ac); empty for op
+  scale: Float64Array;                     // time (tran), frequency (ac, noise), the swept value (dc; K for temp); empty for op and tf
   // Lowercase names: "v(out)", "i(v1)" and the plain node name "out". For ac these hold magnitudes.
   vectors: Record<string, Float64Array>;
   complex?: Record<string, ComplexVector>; // ac only, same names as vectors
+  totals?: Record<string, number>;
+  sweep?: string;                          // dc only: the swept source's name, or "temp"         // noise only: "onoise_total", "inoise_total" (rms over the band)
   points: number;
   ms: number;
   cached: boolean;

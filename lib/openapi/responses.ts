@@ -33,7 +33,7 @@ export const reportSchema = z
     quantities: z.record(z.string(), quantity),
     checks: z.array(checkResult),
     simulations: z.array(
-      z.object({ analysis: z.enum(["tran", "ac", "op"]), points: z.number().int(), ms: z.number(), cached: z.boolean().optional() }),
+      z.object({ analysis: z.enum(["tran", "ac", "op", "dc", "noise", "tf"]), points: z.number().int(), ms: z.number(), cached: z.boolean().optional() }),
     ),
     errors: z.array(blockError),
   })
