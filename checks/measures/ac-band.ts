@@ -3,8 +3,8 @@ import { MeasureError, NothingToMeasure } from "./signal";
 import type { SimResult } from "../spice/types";
 
 // AC measures over a band, computed from the sweep: the extreme sample's neighbourhood is
-// refined with the parabola through three points (gain in dB against log10 f), so a peak
-// between two sweep points is found rather than the nearest sample.
+// refined with the parabola through three points against log10 f, so a peak between two
+// sweep points is found rather than the nearest sample.
 
 type Extreme = { f: number; db: number };
 
@@ -37,8 +37,12 @@ function extreme(res: SimResult, node: string, f1: number, f2: number, sign: 1 |
   for (let k = 1; k < gs.length; k++) if (sign * gs[k] > sign * gs[best]) best = k;
   let out: Extreme = { f: fs[best], db: gs[best] };
   if (best > 0 && best < gs.length - 1) {
-    const v = vertex([best - 1, best, best + 1].map((k) => Math.log10(fs[k])), [gs[best - 1], gs[best], gs[best + 1]]);
-    if (v && sign * v.y >= sign * out.db) out = { f: 10 ** v.x, db: v.y };
+    // Fit the power ratio's reciprocal (1/|H|² at a maximum, |H|² at a minimum): near a resonance
+    // it is a parabola in log f, where the dB curve is not.
+    const p = (db: number) => 10 ** ((-sign * db) / 10);
+    const v = vertex([best - 1, best, best + 1].map((k) => Math.log10(fs[k])), [best - 1, best, best + 1].map((k) => p(gs[k])));
+    const db = v && v.y > 0 ? -sign * 10 * Math.log10(v.y) : NaN;
+    if (v && sign * db >= sign * out.db) out = { f: 10 ** v.x, db };
   }
   return out;
 }
