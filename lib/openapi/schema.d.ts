@@ -382,7 +382,7 @@ export interface components {
             };
             simulations: {
                 /** @enum {string} */
-                analysis: "tran" | "ac" | "op";
+                analysis: "tran" | "ac" | "op" | "dc" | "noise" | "tf";
                 cached?: boolean;
                 ms: number;
                 points: number;
