@@ -21,7 +21,7 @@ function ngspiceMeas(deck: string): Record<string, number> {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), "assay-meas-"));
   fs.writeFileSync(path.join(dir, "spinit"), "");
   fs.writeFileSync(path.join(dir, "deck.cir"), `meas deck\n${deck}\n.end\n`);
-  const r = spawnSync("ngspice", ["-b", "deck.cir"], { cwd: dir, encoding: "utf8", env: { PATH: process.env.PATH, HOME: dir, SPICE_SCRIPTS: dir } });
+  const r = spawnSync("ngspice", ["-b", "deck.cir"], { cwd: dir, encoding: "utf8", env: { PATH: process.env.PATH, HOME: dir, SPICE_SCRIPTS: dir, NODE_ENV: process.env.NODE_ENV } });
   fs.rmSync(dir, { recursive: true, force: true });
   const log = `${r.stdout}\n${r.stderr}`;
   return Object.fromEntries([...log.matchAll(/^(\w+)\s+=\s+([-+0-9.e]+)/gim)].map((m) => [m[1].toLowerCase(), Number(m[2])]));
