@@ -3,7 +3,7 @@ import type { RunProgress, SimExecutor, SimRequest } from "../engine/executor";
 import { assayRoot, childEntry } from "./root";
 
 // The child runs scripts from users: give it what it needs to run and no secrets (database URL, keys).
-const PASSED_ENV = /^(PATH|HOME|TMPDIR|TMP|TEMP|LANG|LC_ALL|NODE_ENV|TZ|ASSAY_(SIM_CACHE|SIM_CACHE_MB|MODELS_DIR)|SPICE_.*)$/;
+const PASSED_ENV = /^(PATH|HOME|TMPDIR|TMP|TEMP|LANG|LC_ALL|NODE_ENV|TZ|ASSAY_(SIM_CACHE|SIM_CACHE_MB|MODELS_DIR|NGSPICE_CODEMODELS)|SPICE_.*)$/;
 function childEnv(root: string): Record<string, string> {
   const env: Record<string, string> = { ASSAY_ROOT: root };
   for (const [k, v] of Object.entries(process.env)) if (PASSED_ENV.test(k) && v !== undefined) env[k] = v;

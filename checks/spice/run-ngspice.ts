@@ -2,6 +2,7 @@ import { spawn, spawnSync } from "node:child_process";
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
+import { engineSpinit } from "./spinit";
 import { SpiceError } from "./types";
 
 export const DEFAULT_TIMEOUT_MS = 20_000;
@@ -13,7 +14,8 @@ export type NgspiceRun = { raw: Buffer; log: string; ms: number };
 /**
  * One `ngspice -b -r out.raw deck.cir` in a private temp dir, under prlimit (it execs ngspice,
  * so still one process): address space, CPU seconds and file size are capped, and the wall
- * clock kills it. An empty spinit keeps XSPICE code models (some read files) unloaded.
+ * clock kills it. The engine's spinit loads only spice2poly (POLY sources); other XSPICE code
+ * models (some read files) stay unloaded.
  * `spinit` lets the raw-reader test ask ngspice for its ASCII form of the same run.
  */
 export function runNgspice(
@@ -81,7 +83,7 @@ function prepareRun(deck: string, opts: RunOptions): Job {
   const maxRaw = opts.maxRawBytes ?? MAX_RAW_BYTES;
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), "assay-spice-"));
   fs.mkdirSync(path.join(dir, "scripts"));
-  fs.writeFileSync(path.join(dir, "scripts", "spinit"), opts.spinit ?? "");
+  fs.writeFileSync(path.join(dir, "scripts", "spinit"), opts.spinit ?? engineSpinit());
   fs.writeFileSync(path.join(dir, "deck.cir"), deck);
   const cpu = Math.ceil(timeoutMs / 1000) + 1;
   return {
@@ -119,9 +121,24 @@ function ngspiceFailure(stderr: string, offset: number, circuit: string): SpiceE
   if (!lines.some((l) => FATAL.test(l))) return null;
   const at = lines.map((l) => /^(?:Netlist line no\.|Error on line)\s*(\d+)/i.exec(l)).find(Boolean);
   const deckLine = at ? Number(at[1]) : undefined;
-  const line = deckLine !== undefined && deckLine > offset ? deckLine - offset : quotedLine(lines.join(" "), circuit);
+  const said = lines.join(" ");
+  const line = deckLine !== undefined && deckLine > offset ? deckLine - offset : (quotedLine(said, circuit) ?? checkNodeLine(said, circuit));
   const message = lines.filter((l) => !/^(Netlist line no\.|Error on line)/i.test(l) && !/fatal error in ngspice/i.test(l)).slice(0, 4).join("; ");
   return new SpiceError(`ngspice: ${message || lines.join("; ")}`, line);
+}
+
+// "singular matrix: check node X" names a node, or a source's branch ("v2#branch"): point at the
+// source's line, or at the first element line that connects the node.
+function checkNodeLine(text: string, circuit: string): number | undefined {
+  const m = /check node\s+(\S+)/i.exec(text);
+  if (!m) return undefined;
+  const name = m[1].toLowerCase();
+  const branch = /^(.*)#branch$/.exec(name);
+  const lines = circuit.split("\n").map((l) => l.trim().toLowerCase().split(/\s+/));
+  const k = branch
+    ? lines.findIndex((t) => t[0] === branch[1])
+    : lines.findIndex((t) => /^[a-z]/.test(t[0] ?? "") && !t[0].startsWith(".") && t.slice(1, 5).includes(name));
+  return k >= 0 ? k + 1 : undefined;
 }
 
 // Some messages quote the offending card instead of numbering it: find it in the circuit.

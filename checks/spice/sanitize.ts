@@ -55,6 +55,11 @@ export function sanitizeNetlist(circuit: string, modelsDir = defaultModelsDir())
     if (first.startsWith(".")) return void out.push(checkCard(first, text, raw, line, modelsDir));
     if (first[0] === "a")
       throw new SpiceError(`XSPICE code-model instance "${first}" (A element) is not allowed: code models are not loaded, and some read files`, line);
+    if ((first[0] === "e" || first[0] === "g") && /\btable\b/i.test(text))
+      throw new SpiceError(
+        `"${first}": a TABLE source needs ngspice's analog code-model library, which also holds models that read files; write it as a B source with pwl(), e.g. B${first.slice(1)} out 0 V = pwl(V(in), 0, 0, 1, 1.5)`,
+        line,
+      );
     if (!ELEMENTS.includes(first[0]))
       throw new SpiceError(`"${first}" is not a SPICE element line; a block circuit holds ${ALLOWED_TEXT}`, line);
     out.push(raw);

@@ -1,7 +1,7 @@
 import { spawnSync } from "node:child_process";
 
 // Bump when the deck text or how ngspice is run changes what a raw file holds.
-export const SPICE_RUNNER_VERSION = "1";
+export const SPICE_RUNNER_VERSION = "2";
 
 let cached: string | undefined;
 
