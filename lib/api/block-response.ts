@@ -1,5 +1,5 @@
 import "server-only";
-import type { Caller } from "@/lib/auth/caller";
+import type { Ctx } from "@/lib/context";
 import { deckOrThrow } from "@/lib/blocks/common";
 import { getBlock, getBlockWithLineage } from "@/lib/blocks/read";
 import { toBlockJson } from "./block-json";
@@ -12,16 +12,16 @@ export type BlockFormat = "json" | "md" | "spice";
  * GET of a head (version undefined) or of one version, in one of three representations, with a strong ETag
  * and If-None-Match → 304. See lib/api/cache.ts for the cache policy.
  */
-export async function blockResponse(req: Request, caller: Caller, slug: string, version: number | undefined, format: BlockFormat) {
+export async function blockResponse(req: Request, ctx: Ctx, slug: string, version: number | undefined, format: BlockFormat) {
   if (format === "json") {
     // One load gives block and lineage; the validator comes from what determines the body, so a 304 builds no JSON.
-    const read = await getBlockWithLineage(caller, slug, version);
+    const read = await getBlockWithLineage(ctx, { slug, version });
     return conditionalBuilt(req, read.etag, async () => JSON.stringify(toBlockJson(await read.view(), read.lineage)), {
       "Content-Type": "application/json",
       ...revalidateHeaders(read.visibility),
     });
   }
-  const view = await getBlock(caller, slug, version);
+  const view = await getBlock(ctx, { slug, version });
   const fixed = version !== undefined;
   const name = `${view.slug}-v${view.version}`;
   const cache = fixed ? immutableHeaders(view.visibility) : revalidateHeaders(view.visibility);

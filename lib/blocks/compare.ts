@@ -1,7 +1,7 @@
 import { diffLines, type ChangeObject } from "diff";
 import { parseBlock } from "@/checks";
-import type { Caller } from "@/lib/auth/caller";
-import { getEm } from "@/lib/db/orm";
+import type { Ctx } from "@/lib/context";
+import type { CompareInput } from "@/lib/validation/blocks";
 import { latestRuns } from "@/lib/runs/badge";
 import { loadBlock, loadVersion } from "./common";
 
@@ -22,11 +22,10 @@ const parts = (a: string, b: string): DiffPart[] =>
   diffLines(a, b).map((c: ChangeObject<string>) => ({ value: c.value, ...(c.added ? { added: true } : {}), ...(c.removed ? { removed: true } : {}) }));
 
 /** What changed from version a to version b of one block: values, note, circuit, script and check outcomes. */
-export async function compareVersions(caller: Caller, slug: string, a: number, b: number): Promise<Comparison> {
-  const em = await getEm();
-  const block = await loadBlock(em, caller, slug);
-  const va = await loadVersion(em, block, Number(a));
-  const vb = await loadVersion(em, block, Number(b));
+export async function compareVersions({ em, caller }: Ctx, input: CompareInput): Promise<Comparison> {
+  const block = await loadBlock(em, caller, input.slug);
+  const va = await loadVersion(em, block, input.a);
+  const vb = await loadVersion(em, block, input.b);
   const pa = parseBlock(va.text).block;
   const pb = parseBlock(vb.text).block;
 

@@ -1,7 +1,7 @@
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { BlockVersionSchema } from "@/entities";
-import type { Caller } from "@/lib/auth/caller";
-import { getEm } from "@/lib/db/orm";
+import type { Ctx } from "@/lib/context";
+import type { BlockInput, BlockVersionInput } from "@/lib/validation/blocks";
 import { approvedVersionIds } from "@/lib/reviews/approval";
 import { badgesFor, type Badge } from "@/lib/runs/badge";
 import { deckOrThrow, loadBlock } from "./common";
@@ -68,22 +68,20 @@ export function lineageOf(core: ReadCore): Lineage {
 }
 
 /** One version of a block (the head by default) as DESIGN.md's Block JSON plus what the pages need. */
-export async function getBlock(caller: Caller, slug: string, version?: number): Promise<BlockView> {
-  const em = await getEm();
-  return viewOf(em, await readCore(em, caller, slug, version, { forks: false }));
+export async function getBlock({ em, caller }: Ctx, input: BlockVersionInput): Promise<BlockView> {
+  return viewOf(em, await readCore(em, caller, input.slug, input.version, { forks: false }));
 }
 
-export async function getLineage(caller: Caller, slug: string): Promise<Lineage> {
-  return lineageOf(await readCore(await getEm(), caller, slug, undefined, { forks: true, versionOptional: true }));
+export async function getLineage({ em, caller }: Ctx, input: BlockInput): Promise<Lineage> {
+  return lineageOf(await readCore(em, caller, input.slug, undefined, { forks: true, versionOptional: true }));
 }
 
 /**
  * Block and lineage from one load, with the validator of their JSON. `view()` reads the version file (cached per
  * process), so a revalidation that matches the validator builds nothing.
  */
-export async function getBlockWithLineage(caller: Caller, slug: string, version?: number) {
-  const em = await getEm();
-  const core = await readCore(em, caller, slug, version, { forks: true });
+export async function getBlockWithLineage({ em, caller }: Ctx, input: BlockVersionInput) {
+  const core = await readCore(em, caller, input.slug, input.version, { forks: true });
   const lineage = lineageOf(core);
   return { lineage, visibility: core.block.visibility, etag: blockValidator(core, lineage.parentNewerVersions), view: () => viewOf(em, core) };
 }
@@ -92,9 +90,8 @@ export interface VersionRow {
   version: number; badge: Badge; approved: boolean; author: string; message: string; createdAt: string; contentHash: string;
 }
 
-export async function listVersions(caller: Caller, slug: string): Promise<VersionRow[]> {
-  const em = await getEm();
-  const block = await loadBlock(em, caller, slug);
+export async function listVersions({ em, caller }: Ctx, input: BlockInput): Promise<VersionRow[]> {
+  const block = await loadBlock(em, caller, input.slug);
   return versionRowsOf(em, block.id);
 }
 
@@ -109,13 +106,12 @@ export async function versionRowsOf(em: EntityManager, blockId: number): Promise
   }));
 }
 
-export async function blockFileText(caller: Caller, slug: string, version?: number): Promise<string> {
-  const em = await getEm();
-  const core = await readCore(em, caller, slug, version, { forks: false });
+export async function blockFileText({ em, caller }: Ctx, input: BlockVersionInput): Promise<string> {
+  const core = await readCore(em, caller, input.slug, input.version, { forks: false });
   return (await versionFile(em, core.version.id, core.version.contentHash)).text;
 }
 
 /** A runnable deck: title, .param lines, the circuit (the engine writes it). */
-export async function spiceDeckText(caller: Caller, slug: string, version?: number): Promise<string> {
-  return deckOrThrow(await blockFileText(caller, slug, version));
+export async function spiceDeckText(ctx: Ctx, input: BlockVersionInput): Promise<string> {
+  return deckOrThrow(await blockFileText(ctx, input));
 }

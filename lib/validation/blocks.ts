@@ -36,8 +36,13 @@ export const forkBodySchema = z.strictObject({
   message: storedText(2000).optional().meta({ description: "Why the fork was made (default: where it came from)" }),
 });
 
+/** One block by slug. */
+export const blockInputSchema = z.object({ slug: slugSchema });
 /** One version of a block (the head when version is left out): what read services take. */
 export const blockVersionInputSchema = z.object({ slug: slugSchema, version: versionNumberSchema.optional() });
+
+/** Two versions of one block, side by side. */
+export const compareInputSchema = z.object({ slug: slugSchema, a: versionNumberSchema, b: versionNumberSchema });
 
 /** What forkBlock takes: the API body plus the source block's slug from the path or the form. */
 export const forkInputSchema = forkBodySchema.extend({ source: slugSchema });
@@ -103,6 +108,8 @@ export const searchQuerySchema = z.object({
 
 export type NewVersionJson = z.infer<typeof newVersionJsonSchema>;
 export type ForkBody = z.infer<typeof forkBodySchema>;
+export type CompareInput = z.infer<typeof compareInputSchema>;
+export type BlockInput = z.infer<typeof blockInputSchema>;
 export type BlockVersionInput = z.infer<typeof blockVersionInputSchema>;
 export type ForkInput = z.infer<typeof forkInputSchema>;
 export type RetuneForm = z.infer<typeof retuneFormSchema>;

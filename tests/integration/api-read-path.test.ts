@@ -1,7 +1,7 @@
 import { createHash } from "node:crypto";
 import { describe, expect, it } from "vitest";
 import { BlockVersionSchema, CheckRunSchema } from "@/entities";
-import { anonymous } from "@/lib/auth/caller";
+import { anonymous, type Caller } from "@/lib/auth/caller";
 import { archiveBlock } from "@/lib/blocks/archive";
 import { createBlock } from "@/lib/blocks/create";
 import { forkBlock } from "@/lib/blocks/fork";
@@ -16,18 +16,18 @@ import { makeTeam, rcBlock } from "../support/people";
 // RFC 9110 §8.8.3: a strong validator must change whenever the representation data changes; so each change below
 // that alters the JSON must alter the ETag, and reads that alter nothing must repeat it.
 
-const etagOf = async (caller: Parameters<typeof getBlock>[0], slug: string, version?: number) =>
-  (await getBlockWithLineage(caller, slug, version)).etag;
+const etagOf = async (caller: Caller, slug: string, version?: number) =>
+  (await getBlockWithLineage(await contextFor(caller), { slug, version })).etag;
 
 describe("block read path", () => {
   it("gives the same view and lineage as getBlock and getLineage, checked against the stored rows", async () => {
     const { team, tag, callers } = await makeTeam(["author", "maintainer"]);
     const slug = `read-${tag}`;
     await createBlock(callers.author, { teamSlug: team.slug, text: rcBlock(slug), visibility: "public" });
-    const read = await getBlockWithLineage(callers.maintainer, slug);
+    const read = await getBlockWithLineage(await contextFor(callers.maintainer), { slug });
     const view = await read.view();
-    expect(view).toEqual(await getBlock(callers.maintainer, slug));
-    expect(read.lineage).toEqual(await getLineage(callers.maintainer, slug));
+    expect(view).toEqual(await getBlock(await contextFor(callers.maintainer), { slug }));
+    expect(read.lineage).toEqual(await getLineage(await contextFor(callers.maintainer), { slug }));
     const em = await getEm();
     const v = await em.findOneOrFail(BlockVersionSchema, { block: { slug }, number: 1 }, { populate: ["author"] });
     expect(view.text).toBe(v.text);
@@ -37,7 +37,7 @@ describe("block read path", () => {
     expect(view.contentHash).toBe(createHash("sha256").update(v.text, "utf8").digest("hex"));
     expect(view).toMatchObject({ slug, version: 1, headVersion: 1, author: v.author.name, team: team.slug, badge: "pending", approved: false, runStatus: "queued" });
     expect(read.lineage).toEqual({ forkedFrom: null, parentNewerVersions: 0, forks: [] });
-    await expect(getBlockWithLineage(callers.author, slug, 7)).rejects.toMatchObject({ code: "not_found" });
+    await expect(getBlockWithLineage(await contextFor(callers.author), { slug, version: 7 })).rejects.toMatchObject({ code: "not_found" });
   });
 
   it("changes the ETag exactly when the JSON changes: run state, approval, forks, parent versions, archive", async () => {
@@ -60,7 +60,7 @@ describe("block read path", () => {
     await fresh("run started");
 
     await decide(callers.maintainer, slug, 1, "approved");
-    expect((await getBlock(callers.maintainer, slug, 1)).approved).toBe(true);
+    expect((await getBlock(await contextFor(callers.maintainer), { slug, version: 1 })).approved).toBe(true);
     await fresh("approved");
 
     const fork = await forkBlock(await contextFor(callers.author), { source: slug, slug: `etag-fork-${tag}` });
@@ -69,11 +69,11 @@ describe("block read path", () => {
 
     await addVersion(callers.author, slug, { params: { R: "4.7 kohm" }, baseVersion: 1, message: "new value" });
     await fresh("a second version moves headVersion");
-    expect((await getLineage(callers.maintainer, fork.slug)).parentNewerVersions).toBe(1);
+    expect((await getLineage(await contextFor(callers.maintainer), { slug: fork.slug })).parentNewerVersions).toBe(1);
     expect(await etagOf(callers.maintainer, fork.slug), "the parent gained a version").not.toBe(forkEtag);
 
     await archiveBlock(callers.maintainer, fork.slug);
-    expect((await getLineage(callers.maintainer, slug)).forks).toEqual([]);
+    expect((await getLineage(await contextFor(callers.maintainer), { slug })).forks).toEqual([]);
     await fresh("the fork was archived");
   });
 
@@ -83,8 +83,8 @@ describe("block read path", () => {
     await createBlock(callers.author, { teamSlug: team.slug, text: rcBlock(slug), visibility: "public" });
     const before = await etagOf(anonymous, slug);
     await forkBlock(await contextFor(callers.author), { source: slug, slug: `who-fork-${tag}` });
-    const member = await getBlockWithLineage(callers.author, slug);
-    const visitor = await getBlockWithLineage(anonymous, slug);
+    const member = await getBlockWithLineage(await contextFor(callers.author), { slug });
+    const visitor = await getBlockWithLineage(await contextFor(anonymous), { slug });
     expect(member.lineage.forks.map((f) => f.slug)).toEqual([`who-fork-${tag}`]);
     expect(visitor.lineage.forks).toEqual([]);
     expect(visitor.etag, "nothing the visitor sees changed").toBe(before);

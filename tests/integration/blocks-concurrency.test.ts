@@ -8,6 +8,7 @@ import { addVersion } from "@/lib/blocks/versions";
 import { closeOrm, getEm } from "@/lib/db/orm";
 import type { AppError } from "@/lib/errors";
 import { dividerBlock, drain, makeTeam, type TestTeam } from "./blocks-helpers";
+import { contextFor } from "@/lib/context";
 
 let team: TestTeam;
 beforeAll(async () => { team = await makeTeam(); });
@@ -39,7 +40,7 @@ describe("optimistic concurrency on the head", () => {
     expect(versions.map((v) => v.number)).toEqual([1, 2, 3, 4, 5]);
     // Every stored version got exactly one run, in the same transaction.
     for (const v of versions) expect(await em.count(CheckRunSchema, { version: v })).toBe(1);
-    expect((await getBlock(team.viewer, slug)).version).toBe(5);
+    expect((await getBlock(await contextFor(team.viewer), { slug })).version).toBe(5);
     const stale = await addVersion(team.author, slug, { params: { R2: "10 kohm" }, baseVersion: 3 }).catch((e: AppError) => e);
     expect((stale as AppError).code).toBe("conflict");
     expect((stale as AppError).extra.head).toBe(5);

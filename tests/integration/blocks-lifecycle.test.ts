@@ -27,10 +27,10 @@ describe("create, fork, run, badge", () => {
     const slug = `wien-${team.tag}`;
     const created = await createBlock(team.author, { teamSlug: team.slug, text: wienFixture(slug) });
     expect(created).toMatchObject({ slug, version: 1, run: { status: "queued" } });
-    expect((await getBlock(team.author, slug)).badge).toBe("pending");
+    expect((await getBlock(await contextFor(team.author), { slug })).badge).toBe("pending");
 
     expect(await drain(team)).toBe(1);
-    const parent = await getBlock(team.author, slug);
+    const parent = await getBlock(await contextFor(team.author), { slug });
     expect(parent.badge).toBe("verified");
     expect(parent.report?.status).toBe("verified");
     const run = await getRun(team.viewer, created.run.id);
@@ -44,7 +44,7 @@ describe("create, fork, run, badge", () => {
     const fork = await forkBlock(await contextFor(team.author), { source: slug, slug: `${slug}-low`, params: { Rf: "18 kohm" }, title: "Wien fixture, gain 2.8" });
     expect(fork.version).toBe(1);
     await drain(team);
-    const forked = await getBlock(team.author, fork.slug);
+    const forked = await getBlock(await contextFor(team.author), { slug: fork.slug });
     expect(forked.forkedFrom).toEqual({ slug, version: 1, title: parent.title });
     expect(forked.title).toBe("Wien fixture, gain 2.8");
     expect(forked.params.find((p) => p.name === "Rf")?.value).toBe("18 kohm");
@@ -69,8 +69,8 @@ describe("create, fork, run, badge", () => {
     await createBlock(team.author, { teamSlug: team.slug, text: contentBlock("rc-phase-shift-oscillator.md", slug) });
     const fork = await forkBlock(await contextFor(team.author), { source: slug, slug: `${slug}-270k`, params: { Rf: "270 kohm" } });
     await drain(team);
-    expect((await getBlock(team.viewer, slug)).badge).toBe("verified");
-    const f = await getBlock(team.viewer, fork.slug);
+    expect((await getBlock(await contextFor(team.viewer), { slug })).badge).toBe("verified");
+    const f = await getBlock(await contextFor(team.viewer), { slug: fork.slug });
     expect(f.badge).toBe("failing");
     const q = (f.report as { quantities: Record<string, { value: number }> }).quantities;
     expect(q.gain.value).toBeCloseTo(270 / 10, 6);
@@ -88,16 +88,16 @@ describe("versions, lineage and comparison", () => {
     expect(v2.version).toBe(2);
     await drain(team);
 
-    const lineage = await getLineage(team.viewer, fork.slug);
+    const lineage = await getLineage(await contextFor(team.viewer), { slug: fork.slug });
     expect(lineage.forkedFrom).toMatchObject({ slug, version: 1 });
     expect(lineage.parentNewerVersions).toBe(1);
-    expect((await getLineage(team.viewer, slug)).forks).toEqual([{ slug: fork.slug, title: expect.any(String), fromVersion: 1 }]);
+    expect((await getLineage(await contextFor(team.viewer), { slug })).forks).toEqual([{ slug: fork.slug, title: expect.any(String), fromVersion: 1 }]);
 
-    const versions = await listVersions(team.viewer, slug);
+    const versions = await listVersions(await contextFor(team.viewer), { slug });
     expect(versions.map((v) => [v.version, v.badge, v.message])).toEqual([[2, "failing", "lower gain"], [1, "verified", "created"]]);
     expect(versions[0].contentHash).not.toBe(versions[1].contentHash);
 
-    const cmp = await compareVersions(team.viewer, slug, 1, 2);
+    const cmp = await compareVersions(await contextFor(team.viewer), { slug, a: 1, b: 2 });
     expect(cmp.params).toEqual([{ name: "Rf", from: "22 kohm ± 1%", to: "18 kohm ± 1%" }]);
     expect(cmp.netlist.some((p) => p.added || p.removed)).toBe(false);
     expect(cmp.script.some((p) => p.added || p.removed)).toBe(false);
@@ -107,10 +107,10 @@ describe("versions, lineage and comparison", () => {
     const text = withParams(wienFixture(slug), { Rf: "24 kohm" }).replace("loop_gain > 1.02", "loop_gain > 1.05");
     const v3 = await addVersion(team.author, slug, { text, baseVersion: 2 });
     expect(v3.version).toBe(3);
-    const cmp2 = await compareVersions(team.viewer, slug, 2, 3);
+    const cmp2 = await compareVersions(await contextFor(team.viewer), { slug, a: 2, b: 3 });
     expect(cmp2.script.filter((p) => p.added).map((p) => p.value)).toEqual(['check("loop gain above one at every corner", loop_gain > 1.05)\n']);
     expect((await listRuns(team.viewer, slug)).length).toBe(3);
-    expect(await spiceDeckText(team.viewer, slug, 3)).toMatch(/\.param\s+rf\s*=\s*24000|\.param\s+Rf\s*=\s*24000/i);
+    expect(await spiceDeckText(await contextFor(team.viewer), { slug, version: 3 })).toMatch(/\.param\s+rf\s*=\s*24000|\.param\s+Rf\s*=\s*24000/i);
     await drain(team);
   });
 
@@ -140,7 +140,7 @@ describe("versions, lineage and comparison", () => {
     const code = (p: Promise<unknown>) => p.then(() => "ok", (e: AppError) => e.code);
     expect(await code(addVersion(team.viewer, slug, { params: { Rf: "24 kohm" }, baseVersion: 1 }))).toBe("forbidden");
     expect(await code(addVersion(team.author2, slug, { params: { Rf: "24 kohm" }, baseVersion: 1 }))).toBe("forbidden");
-    expect(await code(getBlock(team.outsider, slug))).toBe("not_found");
+    expect(await code(getBlock(await contextFor(team.outsider), { slug }))).toBe("not_found");
     expect(await code(createBlock(team.viewer, { teamSlug: team.slug, text: wienFixture(`v-${slug}`) }))).toBe("forbidden");
     // The block page offers Edit exactly to those the service above lets write a version.
     const offered = async (c: typeof team.author) => (await loadBlockPage(await contextFor(c), { slug })).allowed;

@@ -5,6 +5,7 @@ import { createBlock } from "@/lib/blocks/create";
 import { spiceDeckText } from "@/lib/blocks/read";
 import { closeOrm, getEm } from "@/lib/db/orm";
 import { contentBlock, makeTeam, type TestTeam } from "./blocks-helpers";
+import { contextFor } from "@/lib/context";
 
 // A netlist that asks ngspice to run commands (.control blocks, `shell`; ngspice manual, "Interactive Interpreter")
 // is refused when it is stored, with the engine sanitiser's own message at the block file's line, and a version
@@ -39,10 +40,10 @@ describe("a netlist the sanitiser refuses", () => {
   it("stored before the refusal existed, is not served as a deck", async () => {
     const slug = `old-${team.tag}`;
     await createBlock(team.author, { teamSlug: team.slug, text: contentBlock("rc-lowpass-antialias.md", slug) });
-    expect(await spiceDeckText(team.viewer, slug)).toMatch(/^R1 in out \{R\}$/m);
+    expect(await spiceDeckText(await contextFor(team.viewer), { slug })).toMatch(/^R1 in out \{R\}$/m);
     const text = withControl(slug);
     await (await getEm()).nativeUpdate(BlockVersionSchema, { block: { slug }, number: 1 }, { text, contentHash: sha256(text) });
-    const e = await failure(spiceDeckText(team.viewer, slug));
+    const e = await failure(spiceDeckText(await contextFor(team.viewer), { slug }));
     expect(e.code).toBe("validation");
     expect(e.extra.errors[0].line).toBe(lineOf(text, ".control"));
   });

@@ -10,6 +10,7 @@ import { getLineage } from "@/lib/blocks/read";
 import { closeOrm, getEm } from "@/lib/db/orm";
 import { seedLibrary } from "@/lib/seed/seed-library";
 import { seedPeople } from "@/lib/seed/seed-people";
+import { contextFor } from "@/lib/context";
 
 afterAll(closeOrm);
 
@@ -36,10 +37,10 @@ describe("demo library seed", () => {
     const tomas = await em.findOneOrFail(UserSchema, { email: "tomas.reyes@fenwick.test" });
     const fenwickCaller = await loadCaller(await getEm(), tomas.id);
     // The fork is a team block: the team sees it in the parent's lineage, a signed-out reader of the public parent does not.
-    expect((await getLineage(fenwickCaller, "rc-lowpass-antialias")).forks.map((f) => f.slug)).toEqual(["rc-lowpass-antialias-5k1"]);
-    expect((await getLineage(anonymous, "rc-lowpass-antialias")).forks).toEqual([]);
-    expect((await getLineage(fenwickCaller, "rc-lowpass-antialias-5k1")).parentNewerVersions).toBe(1);
-    expect((await compareVersions(anonymous, "rc-lowpass-antialias", 1, 2)).params.map((p) => p.name)).toEqual(["R", "C"]);
+    expect((await getLineage(await contextFor(fenwickCaller), { slug: "rc-lowpass-antialias" })).forks.map((f) => f.slug)).toEqual(["rc-lowpass-antialias-5k1"]);
+    expect((await getLineage(await contextFor(anonymous), { slug: "rc-lowpass-antialias" })).forks).toEqual([]);
+    expect((await getLineage(await contextFor(fenwickCaller), { slug: "rc-lowpass-antialias-5k1" })).parentNewerVersions).toBe(1);
+    expect((await compareVersions(await contextFor(anonymous), { slug: "rc-lowpass-antialias", a: 1, b: 2 })).params.map((p) => p.name)).toEqual(["R", "C"]);
     expect(await em.count(ReviewSchema, { decision: "approved", version: { block: { slug: "wien-bridge-sine-1k" } } } as never)).toBe(1);
     const runs = await em.count(CheckRunSchema, { version: { block: { slug: { $in: slugs } } } } as never);
     expect(runs).toBe(files.length + 2);

@@ -42,21 +42,21 @@ describe("reviews", () => {
     expect(await code(decide(team.viewer, slug, 1, "approved", ""))).toBe("forbidden");
     expect(await code(decide(team.maintainer, slug, 1, "changes-requested", " "))).toBe("validation");
     await decide(team.maintainer, slug, 1, "approved", "margins look right");
-    expect((await getBlock(team.viewer, slug)).approved).toBe(true);
+    expect((await getBlock(await contextFor(team.viewer), { slug })).approved).toBe(true);
     expect((await lastEvent("review.decided", slug)).payload).toMatchObject({ decision: "approved", reviewer: team.maintainer.user!.email, requestedBy: [team.author.user!.email] });
     expect((await reviewQueue(team.maintainer)).some((q) => q.slug === slug)).toBe(false);
 
     // The maintainer writes version 2: it starts unapproved and they may not approve it themselves.
     await addVersion(team.maintainer, slug, { params: { Rf: "24 kohm" }, baseVersion: 1 });
-    const head = await getBlock(team.viewer, slug);
+    const head = await getBlock(await contextFor(team.viewer), { slug });
     expect([head.version, head.approved]).toEqual([2, false]);
-    expect((await getBlock(team.viewer, slug, 1)).approved).toBe(true);
+    expect((await getBlock(await contextFor(team.viewer), { slug, version: 1 })).approved).toBe(true);
     expect(await code(decide(team.maintainer, slug, 2, "approved", ""))).toBe("forbidden");
-    expect((await listVersions(team.viewer, slug)).map((v) => v.approved)).toEqual([false, true]);
+    expect((await listVersions(await contextFor(team.viewer), { slug })).map((v) => v.approved)).toEqual([false, true]);
 
     // A later request for changes withdraws an approval of the same version.
     await decide(team.maintainer, slug, 1, "changes-requested", "Rg tolerance too loose");
-    expect((await getBlock(team.viewer, slug, 1)).approved).toBe(false);
+    expect((await getBlock(await contextFor(team.viewer), { slug, version: 1 })).approved).toBe(false);
     expect((await reviewsOf(team.viewer, slug)).map((r) => [r.version, r.decision])).toEqual([
       [1, "changes-requested"], [1, "approved"], [1, "requested"],
     ]);
@@ -94,16 +94,16 @@ describe("watches and the outbox", () => {
   it("archiving and publishing write events; public blocks are readable signed out", async () => {
     const slug = `pub-${team.tag}`;
     await createBlock(team.author, { teamSlug: team.slug, text: wienFixture(slug) });
-    expect(await code(getBlock(anonymous, slug))).toBe("not_found");
+    expect(await code(getBlock(await contextFor(anonymous), { slug }))).toBe("not_found");
     expect(await code(setVisibility(team.author, slug, "public"))).toBe("forbidden");
     await setVisibility(team.maintainer, slug, "public");
     expect((await lastEvent("block.updated", slug)).payload).toMatchObject({ change: "visibility", visibility: "public", previous: "team" });
-    expect((await getBlock(anonymous, slug)).visibility).toBe("public");
+    expect((await getBlock(await contextFor(anonymous), { slug })).visibility).toBe("public");
     await drain(team);
     expect((await recentlyVerified(await contextFor(anonymous), 100)).map((b) => b.slug)).toContain(slug);
     await archiveBlock(team.maintainer, slug);
     expect((await lastEvent("block.archived", slug)).payload).toMatchObject({ slug, archived: true });
     expect(await code(addVersion(team.author, slug, { params: { Rf: "24 kohm" }, baseVersion: 1 }))).toBe("conflict");
-    expect((await getBlock(team.viewer, slug)).archived).toBe(true);
+    expect((await getBlock(await contextFor(team.viewer), { slug })).archived).toBe(true);
   });
 });

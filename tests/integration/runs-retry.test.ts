@@ -16,6 +16,7 @@ import { closeOrm, getEm } from "@/lib/db/orm";
 import { processNext } from "@/lib/runs/execute";
 import { claimRun, MAX_ATTEMPTS, reapExpired } from "@/lib/runs/lease";
 import { makeTeam, wienFixture, type TestTeam } from "./blocks-helpers";
+import { contextFor } from "@/lib/context";
 
 let team: TestTeam;
 beforeAll(async () => { team = await makeTeam(); });
@@ -41,7 +42,7 @@ describe("bounded retries", () => {
     const r = await runRow(run.id);
     expect(r.status).toBe("error");
     expect(r.error).toMatch(/stopped responding on each of 3 attempts/);
-    expect((await getBlock(team.viewer, slug)).badge).toBe("error");
+    expect((await getBlock(await contextFor(team.viewer), { slug })).badge).toBe("error");
     const ev = await (await getEm()).find(OutboxEventSchema, { kind: "run.finished", payload: { runId: run.id } } as never);
     expect(ev).toHaveLength(1);
     expect(ev[0].payload).toMatchObject({ badge: "error", status: "error" });

@@ -25,6 +25,7 @@ import { getBlock } from "@/lib/blocks/read";
 import { closeOrm, getEm } from "@/lib/db/orm";
 import { enqueueStaleHeads } from "@/lib/runs/reverify";
 import { dividerBlock, drain, makeTeam, wienFixture, type TestTeam } from "./blocks-helpers";
+import { contextFor } from "@/lib/context";
 
 let team: TestTeam;
 beforeAll(async () => { team = await makeTeam(); });
@@ -42,24 +43,24 @@ describe("a model-library change", () => {
     await createBlock(team.author, { teamSlug: team.slug, text: dividerBlock(div) });
     await drain(team);
     const before = modelLibraryHash();
-    expect((await getBlock(team.viewer, wien)).badge).toBe("verified");
-    expect((await getBlock(team.viewer, div)).badge).toBe("verified");
+    expect((await getBlock(await contextFor(team.viewer), { slug: wien })).badge).toBe("verified");
+    expect((await getBlock(await contextFor(team.viewer), { slug: div })).badge).toBe("verified");
     expect((await enqueueStaleHeads(await getEm(), { teamIds: [team.id] })).queued).toBe(0);
 
     // A revision of a shared model (here only its comment) is a new library.
     appendFileSync(path.join(dirs.models, "opamp-1pole.lib"), "* revised by the bench team\n");
     const after = modelLibraryHash();
     expect(after).not.toBe(before);
-    expect((await getBlock(team.viewer, wien)).badge).toBe("stale");
-    expect((await getBlock(team.viewer, div)).badge).toBe("stale");
+    expect((await getBlock(await contextFor(team.viewer), { slug: wien })).badge).toBe("stale");
+    expect((await getBlock(await contextFor(team.viewer), { slug: div })).badge).toBe("stale");
 
     // npm run reverify, as a process of its own, limited to this team.
     const out = execFileSync(process.execPath, ["--import", "tsx", "scripts/reverify.ts", "--team", team.slug], { env: process.env, encoding: "utf8" });
     expect(out).toMatch(/queued 2 head version\(s\)/);
-    expect((await getBlock(team.viewer, wien)).badge).toBe("pending");
+    expect((await getBlock(await contextFor(team.viewer), { slug: wien })).badge).toBe("pending");
     expect(await drain(team)).toBe(2);
     for (const slug of [wien, div]) {
-      const b = await getBlock(team.viewer, slug);
+      const b = await getBlock(await contextFor(team.viewer), { slug });
       expect(b.badge).toBe("verified");
       const run = await (await getEm()).findOneOrFail(CheckRunSchema, { id: b.runId! });
       expect(run).toMatchObject({ modelLibraryHash: after, trigger: "reverify" });
@@ -69,7 +70,7 @@ describe("a model-library change", () => {
     // Another revision; this time a worker process notices by itself when it starts.
     appendFileSync(path.join(dirs.models, "diode-si.lib"), "* revised again\n");
     const third = modelLibraryHash();
-    expect((await getBlock(team.viewer, div)).badge).toBe("stale");
+    expect((await getBlock(await contextFor(team.viewer), { slug: div })).badge).toBe("stale");
     const worker = spawn(process.execPath, ["--import", "tsx", "scripts/worker.ts", "--team", team.slug], {
       env: { ...process.env, ASSAY_WORKER_ID: `stale-${team.tag}` }, stdio: ["ignore", "pipe", "pipe"], detached: true,
     });
@@ -78,13 +79,13 @@ describe("a model-library change", () => {
     try {
       const end = Date.now() + 60_000;
       while (Date.now() < end) {
-        const badges = await Promise.all([wien, div].map(async (s) => (await getBlock(team.viewer, s)).badge));
+        const badges = await Promise.all([wien, div].map(async (s) => (await getBlock(await contextFor(team.viewer), { slug: s })).badge));
         if (badges.every((b) => b === "verified")) break;
         await new Promise((r) => setTimeout(r, 100));
       }
       expect(log).toMatch(/queued 2 stale or unchecked head\(s\)/);
       for (const slug of [wien, div]) {
-        const b = await getBlock(team.viewer, slug);
+        const b = await getBlock(await contextFor(team.viewer), { slug });
         expect(b.badge).toBe("verified");
         expect((await (await getEm()).findOneOrFail(CheckRunSchema, { id: b.runId! })).modelLibraryHash).toBe(third);
       }
@@ -98,13 +99,13 @@ describe("a model-library change", () => {
     const slug = `old-engine-${team.tag}`;
     const { run } = await createBlock(team.author, { teamSlug: team.slug, text: dividerBlock(slug) });
     await drain(team);
-    expect((await getBlock(team.viewer, slug)).badge).toBe("verified");
+    expect((await getBlock(await contextFor(team.viewer), { slug })).badge).toBe("verified");
     // As if an earlier engine release had made this run (the row is what a previous deployment left).
     await (await getEm()).getConnection().execute(`update check_runs set engine_version = '0.9.0' where id = ?`, [run.id]);
-    expect((await getBlock(team.viewer, slug)).badge).toBe("stale");
+    expect((await getBlock(await contextFor(team.viewer), { slug })).badge).toBe("stale");
     expect((await enqueueStaleHeads(await getEm(), { teamIds: [team.id] })).slugs).toEqual([slug]);
     await drain(team);
-    const b = await getBlock(team.viewer, slug);
+    const b = await getBlock(await contextFor(team.viewer), { slug });
     expect(b.badge).toBe("verified");
     expect((await (await getEm()).findOneOrFail(CheckRunSchema, { id: b.runId! })).engineVersion).toBe(ENGINE_VERSION);
   });

@@ -13,6 +13,7 @@ import { closeOrm, getEm } from "@/lib/db/orm";
 import { workerHealth } from "@/lib/runs/worker-health";
 import { makeTeam, wienFixture, type TestTeam } from "./blocks-helpers";
 import { withParams } from "@/checks";
+import { contextFor } from "@/lib/context";
 
 // Real worker processes (scripts/worker.ts) on this file's team only, with a 3 s lease so a dead worker's run
 // comes back quickly, and a private simulation cache so every run really simulates.
@@ -86,7 +87,7 @@ describe("worker processes", () => {
     const sims = (done.report as { simulations: unknown[] }).simulations.length;
     expect(sims).toBeGreaterThan(0);
     expect((await getRun(team.viewer, run.id)).progress).toEqual({ done: sims, total: sims });
-    expect((await getBlock(team.viewer, slug)).badge).toBe("verified");
+    expect((await getBlock(await contextFor(team.viewer), { slug })).badge).toBe("verified");
     const finished = await (await getEm()).find(OutboxEventSchema, { kind: "run.finished", payload: { runId: run.id } } as never);
     expect(finished).toHaveLength(1);
     expect(b.lines.filter((l) => l.includes(`run ${run.id}: done`))).toHaveLength(1);

@@ -3,9 +3,9 @@ import Link from "next/link";
 import { DiffView } from "@/components/diff-view";
 import { EmptyState } from "@/components/empty-state";
 import { typesetUnits } from "@/components/eng";
-import { getCaller } from "@/lib/auth/session";
 import { compareVersions } from "@/lib/blocks/compare";
 import { listVersions } from "@/lib/blocks/read";
+import { pageContext } from "@/lib/next-context";
 import { orNotFound } from "../../../or-not-found";
 
 export const metadata: Metadata = { title: "Compare versions" };
@@ -15,13 +15,13 @@ export default async function ComparePage({ params, searchParams }: {
   params: Promise<{ slug: string }>; searchParams: Promise<{ a?: string; b?: string }>;
 }) {
   const { slug } = await params;
-  const caller = await getCaller();
-  const versions = await orNotFound(listVersions(caller, slug));
+  const ctx = await pageContext();
+  const versions = await orNotFound(listVersions(ctx, { slug }));
   const head = versions[0]?.version ?? 1;
   const sp = await searchParams;
   const b = Math.min(head, Math.max(1, Number(sp.b) || head));
   const a = Math.min(head, Math.max(1, Number(sp.a) || Math.max(1, b - 1)));
-  const cmp = await orNotFound(compareVersions(caller, slug, a, b));
+  const cmp = await orNotFound(compareVersions(ctx, { slug, a, b }));
   const select = "rounded border border-rule bg-panel px-2 py-1 font-mono text-sm";
   return (
     <div className="space-y-6">

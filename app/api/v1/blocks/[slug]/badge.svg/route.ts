@@ -1,10 +1,10 @@
 import { badgeHeaders } from "@/lib/api/cache";
 import { pathParams, route } from "@/lib/api/handler";
-import { callerFromRequest } from "@/lib/auth/request-caller";
 import { hallmarkSvg } from "@/lib/badges/hallmark-svg";
 import { getBlock } from "@/lib/blocks/read";
 import { queryObject, slugParamsSchema } from "@/lib/validation/api";
 import { badgeQuerySchema } from "@/lib/validation/blocks";
+import { requestContext } from "@/lib/context";
 
 export const dynamic = "force-dynamic";
 
@@ -12,8 +12,7 @@ export const dynamic = "force-dynamic";
 export const GET = route<{ slug: string }>(async (req, params) => {
   const { slug } = pathParams(slugParamsSchema, params);
   const { version } = badgeQuerySchema.parse(queryObject(req.url));
-  const caller = await callerFromRequest(req);
-  const view = await getBlock(caller, slug, version);
+  const view = await getBlock(await requestContext(req), { slug, version });
   const svg = hallmarkSvg({ badge: view.badge, version: view.version, approved: view.approved });
   return new Response(svg, {
     headers: {

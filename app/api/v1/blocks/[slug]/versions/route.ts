@@ -5,6 +5,7 @@ import { pathParams, route } from "@/lib/api/handler";
 import { pageOf } from "@/lib/api/pages";
 import { callerFromRequest } from "@/lib/auth/request-caller";
 import { listVersions } from "@/lib/blocks/read";
+import { requestContext } from "@/lib/context";
 import { addVersion } from "@/lib/blocks/versions";
 import { AppError } from "@/lib/errors";
 import { cursorQuerySchema, queryObject, slugParamsSchema } from "@/lib/validation/api";
@@ -15,8 +16,7 @@ export const dynamic = "force-dynamic";
 export const GET = route<{ slug: string }>(async (req, params) => {
   const { slug } = pathParams(slugParamsSchema, params);
   const { cursor, limit } = cursorQuerySchema.parse(queryObject(req.url));
-  const caller = await callerFromRequest(req);
-  const rows = await listVersions(caller, slug);
+  const rows = await listVersions(await requestContext(req), { slug });
   const page = pageOf(rows, cursor, limit);
   const items = page.items.map(({ version, badge, approved, author, message, createdAt }) => ({ version, badge, approved, author, message, createdAt }));
   return Response.json({ items, nextCursor: page.nextCursor }, { headers: { ...noStore, Vary: "Authorization, Cookie" } });
