@@ -1,6 +1,7 @@
 "use client";
 import { useActionState, useEffect, useState } from "react";
 import { convertNetlistAction, createImportAction } from "@/lib/actions/import";
+import { ImportParams, withParamLine, type ImportedParam } from "./import-params";
 
 const field = "w-full rounded border border-rule bg-panel px-2 py-1 text-sm";
 
@@ -9,9 +10,15 @@ export function ImportForm({ teams }: { teams: string[] }) {
   const [read, readAction, reading] = useActionState(convertNetlistAction, {});
   const [made, createAction, creating] = useActionState(createImportAction, {});
   const [text, setText] = useState("");
+  const [params, setParams] = useState<ImportedParam[]>([]);
   useEffect(() => {
     if (read.data?.blockText) setText(String(read.data.blockText));
+    setParams((read.data?.params as ImportedParam[] | undefined) ?? []);
   }, [read.data]);
+  const editParam = (p: ImportedParam) => {
+    setParams((all) => all.map((q) => (q.name === p.name ? p : q)));
+    setText((t) => withParamLine(t, p));
+  };
   const dropped = (read.data?.dropped as string[] | undefined) ?? [];
 
   return (
@@ -40,6 +47,7 @@ export function ImportForm({ teams }: { teams: string[] }) {
 
       <form action={createAction} className="space-y-3 rounded border border-rule bg-panel p-4" aria-describedby="create-status">
         <h2 className="text-sm font-semibold">2 · Check the block file and create it</h2>
+        <ImportParams params={params} onChange={editParam} />
         <label htmlFor="import-text" className="block text-sm">Block file
           <textarea id="import-text" name="text" value={text} onChange={(e) => setText(e.target.value)} rows={18} spellCheck={false} wrap="off"
             className={`${field} mt-0.5 font-mono text-xs leading-5`} placeholder="The file read in step 1 appears here; you may also paste one." />

@@ -27,7 +27,7 @@ export async function convertNetlistAction(_prev: FormState, form: FormData): Pr
   if (!NETLIST.test(file.name)) return { ok: false, message: "Unsupported file type.", errors: { file: [`"${file.name}" is neither a block file (.md) nor a SPICE netlist (.cir, .sp, .net).`] } };
   const res = importNetlist(text, file.name);
   if (res.errors.length && !res.blockText) return { ok: false, message: "The netlist could not be read.", lines: res.errors };
-  return { ok: true, message: "Converted. Read the block file below, add a note, then create it.", lines: res.errors, data: { blockText: res.blockText, dropped: res.dropped, fileName: file.name } };
+  return { ok: true, message: "Converted: each part value is a parameter. Check values and tolerances, add a note, then create it.", lines: res.errors, data: { blockText: res.blockText, dropped: res.dropped, fileName: file.name, params: res.params } };
 }
 
 const createForm = z.object({

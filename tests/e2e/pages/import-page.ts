@@ -13,6 +13,19 @@ export class ImportPage {
     await this.page.waitForFunction(() => (document.querySelector("#import-text") as HTMLTextAreaElement | null)?.value.includes("---"), null, { timeout: 30_000 });
   }
 
+  /** The parameters the import found, by name, as the table before creating shows them. */
+  async params(): Promise<string[]> {
+    return this.page.getByTestId("import-params").locator("tbody tr td:first-child").evaluateAll((tds) => tds.map((td) => td.textContent!.trim().split(/\s+/)[0]));
+  }
+
+  async setTolerance(name: string, tol: string): Promise<void> {
+    await this.page.getByLabel(`${name} tolerance`).fill(tol);
+  }
+
+  blockText(): Promise<string> {
+    return this.page.locator("#import-text").inputValue();
+  }
+
   droppedLines() {
     return this.page.getByTestId("dropped-lines");
   }

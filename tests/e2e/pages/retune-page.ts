@@ -8,6 +8,35 @@ export class RetunePage {
     await input.fill(value);
   }
 
+  paramValue(name: string): Promise<string> {
+    return this.page.locator(`input[data-param="${name}"]`).inputValue();
+  }
+
+  /** The refusal shown at one parameter's field after a save. */
+  paramError(name: string) {
+    return this.page.getByTestId(`param-error-${name}`);
+  }
+
+  /** Fills the fork's own fields and saves; the caller decides whether a refusal or the new block's page follows. */
+  async fillFork(fields: { slug: string; title: string; message: string }): Promise<void> {
+    await this.page.getByLabel(/a fork/).check();
+    await this.page.getByLabel("Slug of the fork (optional)").fill(fields.slug);
+    await this.page.getByLabel("Title (optional)").fill(fields.title);
+    await this.page.getByLabel("Message").fill(fields.message);
+  }
+
+  async clickSaveFork(): Promise<void> {
+    await this.page.getByRole("button", { name: "Save the fork" }).click();
+  }
+
+  forkFields(): Promise<{ slug: string; title: string; message: string }> {
+    return Promise.all([
+      this.page.getByLabel("Slug of the fork (optional)").inputValue(),
+      this.page.getByLabel("Title (optional)").inputValue(),
+      this.page.getByLabel("Message").inputValue(),
+    ]).then(([slug, title, message]) => ({ slug, title, message }));
+  }
+
   preview() {
     return this.page.getByTestId("live-preview");
   }
