@@ -9,6 +9,7 @@ import { MembershipSchema } from "./membership.entity";
 import { OutboxEventSchema } from "./outbox-event.entity";
 import { ReviewSchema } from "./review.entity";
 import { SignInLinkSchema } from "./sign-in-link.entity";
+import { SimResultSchema } from "./sim-result.entity";
 import { TeamSchema } from "./team.entity";
 import { UserSchema } from "./user.entity";
 import { WatchSchema } from "./watch.entity";
@@ -25,6 +26,7 @@ export * from "./membership.entity";
 export * from "./outbox-event.entity";
 export * from "./review.entity";
 export * from "./sign-in-link.entity";
+export * from "./sim-result.entity";
 export * from "./team.entity";
 export * from "./user.entity";
 export * from "./watch.entity";
@@ -47,4 +49,5 @@ export const allEntities = [
   OutboxEventSchema,
   WorkerHeartbeatSchema,
   EndedSessionSchema,
+  SimResultSchema,
 ];
