@@ -18,6 +18,8 @@ export function boss(): PgBoss {
     // Workers notice a dead peer through their own heartbeats (lib/runs/lease.ts); pg-boss's own expiry is the
     // backstop, so its maintenance may run often and cheaply. Nothing is scheduled by cron.
     schedule: false, maintenanceIntervalSeconds: 10,
+    // Jobs are delivery, not the record (check_runs is): finished ones leave the live table after an hour.
+    archiveCompletedAfterSeconds: 3600, deleteAfterDays: 1,
   });
   return holder.__assayBoss;
 }
@@ -33,7 +35,15 @@ export function startedBoss(): Promise<PgBoss> {
   return holder.__assayBossStart;
 }
 
+const stopHooks = new Set<() => Promise<void>>();
+/** Loops built on the client (a worker's simulate loop) stop before it does. */
+export function beforeBossStops(fn: () => Promise<void>): void {
+  stopHooks.add(fn);
+}
+
 export async function stopBoss(): Promise<void> {
+  for (const fn of [...stopHooks]) await fn().catch(() => undefined);
+  stopHooks.clear();
   const started = holder.__assayBossStart;
   holder.__assayBossStart = undefined;
   holder.__assayBoss = undefined;

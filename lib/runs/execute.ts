@@ -1,7 +1,9 @@
-import { ngspiceVersion, verifyBlock } from "@/checks";
+import { ngspiceVersion, runCapFromEnv, verifyBlock } from "@/checks";
 import { getEm } from "@/lib/db/orm";
 import { currentStamp } from "./badge";
-import { claimRun, completeRun, failAttempt, LEASE_SECONDS, renewLease } from "./lease";
+import { claimRun, completeRun, failAttempt, LEASE_SECONDS, recordProgress, renewLease } from "./lease";
+import { queueExecutor } from "./sim-executor";
+import { simulating } from "./sim-worker";
 
 /** The engine's own limit per verification; the worker's guard adds a margin for a child that hangs. */
 export const RUN_TIMEOUT_MS = Number(process.env.ASSAY_RUN_TIMEOUT_MS ?? 120_000);
@@ -15,6 +17,7 @@ export interface Progress {
 /** Claims one run, verifies it with the engine while renewing the lease, and stores the result. */
 export async function processNext(workerId: string, opts: Progress = {}): Promise<{ outcome: Outcome; runId?: string }> {
   const em = await getEm();
+  simulating(workerId); // this process runs simulations too, so one worker alone finishes what it fans out
   const claimed = await claimRun(em, workerId);
   if (!claimed) return { outcome: "idle" };
   opts.onClaim?.(claimed.id);
@@ -22,19 +25,25 @@ export async function processNext(workerId: string, opts: Progress = {}): Promis
   const renew = setInterval(() => {
     renewLease(em, claimed.id, workerId).then((ok) => { if (!ok) lost = true; }, () => undefined);
   }, (LEASE_SECONDS * 1000) / 3);
+  const progress = progressWriter((p) => recordProgress(em, claimed.id, workerId, p));
+  const executor = queueExecutor({ id: claimed.id, attempt: claimed.attempts }, progress.update);
   try {
     // Stamp before running: the result is only as current as the engine and models that made it.
     const stamp = currentStamp();
     const ngspice = ngspiceVersion();
     const t0 = performance.now();
-    const { report, waveforms } = await withGuard(verifyBlock(claimed.text, { timeoutMs: RUN_TIMEOUT_MS }), RUN_TIMEOUT_MS + 15_000);
+    const { report, waveforms } = await withGuard(verifyBlock(claimed.text, {
+      timeoutMs: RUN_TIMEOUT_MS, executor, onProgress: progress.update, cap: runCapFromEnv(),
+    }), RUN_TIMEOUT_MS + 15_000);
+    await progress.flush();
     if (lost) return { outcome: "lost", runId: claimed.id };
+    if (executor.failure) throw executor.failure;
     const crash = infrastructureFailure(report);
     if (crash) throw new Error(crash);
     const ok = await completeRun(em, claimed.id, workerId, {
       report: report as unknown as Record<string, unknown>, waveforms, engineVersion: stamp.engineVersion,
       ngspiceVersion: ngspice, modelLibraryHash: stamp.modelLibraryHash, durationMs: performance.now() - t0,
-      simulations: report.simulations?.length ?? 0,
+      simulations: progress.last?.total ?? report.simulations?.length ?? 0,
     });
     return { outcome: ok ? "done" : "lost", runId: claimed.id };
   } catch (err) {
@@ -42,7 +51,37 @@ export async function processNext(workerId: string, opts: Progress = {}): Promis
     return { outcome: await failAttempt(em, claimed.id, workerId, reason), runId: claimed.id };
   } finally {
     clearInterval(renew);
+    await executor.close();
   }
+}
+
+/**
+ * Progress from two sources: the engine's plan (its total may grow) and the executor's count of outcomes
+ * within a batch. Written to the run row at most every 300 ms and once more at the end.
+ */
+function progressWriter(write: (p: { done: number; total: number }) => Promise<unknown>) {
+  let last: { done: number; total: number } | undefined;
+  let written: typeof last;
+  let pending: Promise<unknown> = Promise.resolve();
+  let timer: NodeJS.Timeout | null = null;
+  const flush = () => {
+    if (timer) clearTimeout(timer);
+    timer = null;
+    if (last && last !== written) {
+      written = last;
+      const p = last;
+      pending = pending.then(() => write(p)).catch(() => undefined);
+    }
+    return pending;
+  };
+  return {
+    get last() { return last; },
+    update: (done: number, total: number) => {
+      last = { done: Math.max(done, last?.done ?? 0), total: Math.max(total, done, last?.total ?? 0) };
+      timer ??= setTimeout(flush, 300);
+    },
+    flush,
+  };
 }
 
 /**

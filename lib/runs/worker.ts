@@ -9,6 +9,9 @@ import { beat, forget, pruneSilent } from "./heartbeat";
 import { stopBoss } from "@/lib/queue/boss";
 import { LEASE_SECONDS, reapExpired, releaseRun, requeueLost } from "./lease";
 import { enqueueStaleHeads } from "./reverify";
+import { SIM_CHANNEL } from "./sim-jobs";
+import { resultArrived } from "./sim-executor";
+import { pruneSimResults, simulating } from "./sim-worker";
 
 export interface WorkerOptions {
   id?: string;
@@ -33,7 +36,12 @@ export function startWorker(opts: WorkerOptions = {}): { id: string; stop: () =>
   });
 
   const listener = new pg.Client({ connectionString: databaseUrl() });
-  listener.on("notification", () => wake?.());
+  // New runs wake the verify loop; new simulate jobs (an empty payload) the simulate loop; a stored result its coordinator.
+  listener.on("notification", (n) => {
+    if (n.channel !== SIM_CHANNEL) wake?.();
+    else if (n.payload) resultArrived(n.payload);
+    else if (!stopping) simulating(id, log).wake();
+  });
   listener.on("error", (err) => log(`listen connection lost (${err.message}); polling only`));
 
   const timers: NodeJS.Timeout[] = [];
@@ -43,7 +51,7 @@ export function startWorker(opts: WorkerOptions = {}): { id: string; stop: () =>
   const done = (async () => {
     const em = await getEm();
     await beat(em, id, null, startedAt);
-    await listener.connect().then(() => listener.query(`LISTEN ${RUN_CHANNEL}`)).catch((err: Error) => log(`no LISTEN (${err.message}); polling only`));
+    await listener.connect().then(() => listener.query(`LISTEN ${RUN_CHANNEL}; LISTEN ${SIM_CHANNEL}`)).catch((err: Error) => log(`no LISTEN (${err.message}); polling only`));
     every(5000, async () => beat(await getEm(), id, current, startedAt));
     every(Math.min(10_000, LEASE_SECONDS * 500), async () => {
       const back = await requeueLost(await getEm());
@@ -52,6 +60,8 @@ export function startWorker(opts: WorkerOptions = {}): { id: string; stop: () =>
       if (n) log(`${n} run(s) ended as error after their last attempt`);
     });
     every(3_600_000, async () => pruneSilent(await getEm()));
+    every(60_000, pruneSimResults);
+    simulating(id, log);
     const stale = await enqueueStaleHeads(await getEm(), { teamIds: opts.teamIds });
     if (stale.queued) log(`queued ${stale.queued} stale or unchecked head(s) for verification`);
     log("ready");

@@ -1,0 +1,96 @@
+import type PgBoss from "pg-boss";
+import { localExecutor, type SimExecutor } from "@/checks";
+import { getEm } from "@/lib/db/orm";
+import { beforeBossStops, inTransaction, SIMULATE_QUEUE, startedBoss } from "@/lib/queue/boss";
+import { SIM_CHANNEL, type SimJobData } from "./sim-jobs";
+
+/** Simulations one worker process runs at once: one per process by default, as ngspice uses one core. */
+export const SIM_SLOTS = Math.max(1, Number(process.env.ASSAY_SIM_CONCURRENCY ?? 1));
+
+type Loop = { wake: () => void; stop: () => Promise<void> };
+let current: Loop | null = null;
+
+/** The process's simulate loop, started on first use; it stops with the queue client (stopBoss, closeOrm). */
+export function simulating(workerId: string, log: (line: string) => void = (l) => console.log(`[worker ${workerId}] ${l}`)): Loop {
+  if (current) return current;
+  const loop = startSimulating(workerId, log);
+  current = loop;
+  beforeBossStops(async () => {
+    if (current === loop) current = null;
+    await loop.stop();
+  });
+  return loop;
+}
+
+/**
+ * The worker's second loop: takes `simulate` jobs of any run (its own verification's or another worker's) as
+ * slots free up, runs each through the engine's local executor (the machine's content-addressed cache first,
+ * so a hit stays a hit whichever worker asks), and stores the outcome with the job's completion in one commit.
+ */
+function startSimulating(workerId: string, log: (line: string) => void): Loop {
+  const executor = localExecutor({ concurrency: 1 });
+  let stopping = false;
+  let busy = 0;
+  const running = new Set<Promise<void>>();
+  let wake: (() => void) | null = null;
+  const sleep = (ms: number) => new Promise<void>((resolve) => {
+    const t = setTimeout(() => { wake = null; resolve(); }, ms);
+    wake = () => { clearTimeout(t); wake = null; resolve(); };
+  });
+
+  const loop = (async () => {
+    const queue = await startedBoss();
+    while (!stopping) {
+      const free = SIM_SLOTS - busy;
+      const jobs = free > 0 ? await queue.fetch<SimJobData>(SIMULATE_QUEUE, { batchSize: free }).catch((err: Error) => {
+        log(`simulate fetch failed: ${err.message}`);
+        return [];
+      }) : [];
+      if (jobs.length === 0) { await sleep(free > 0 ? 500 : 1000); continue; }
+      for (const job of jobs) {
+        busy++;
+        const p = simulateOne(queue, executor, job, workerId)
+          .catch((err: Error) => log(`simulation ${job.id} not stored: ${err.message}`))
+          .finally(() => { busy--; running.delete(p); wake?.(); });
+        running.add(p);
+      }
+    }
+  })();
+
+  return {
+    wake: () => wake?.(),
+    stop: async () => {
+      stopping = true;
+      wake?.();
+      await loop.catch(() => undefined);
+      await Promise.all(running);
+    },
+  };
+}
+
+async function simulateOne(queue: PgBoss, executor: SimExecutor, job: PgBoss.Job<SimJobData>, workerId: string): Promise<void> {
+  const { runId, request } = job.data;
+  const [o] = await executor.runMany([request]);
+  const em = await getEm();
+  await em.transactional(async (tx) => {
+    const db = inTransaction(tx); // node-pg parameters: the raw file goes in as bytea, not as SQL text
+    await db.executeSql(
+      `insert into sim_results (run_id, key, ok, raw, error, line, ms, cached, worker_id, created_at)
+       select $1, $2, $3, $4, $5, $6, $7, $8, $9, now() where exists (select 1 from check_runs where id = $1)
+       on conflict do nothing`,
+      [runId, request.key, o.ok, o.ok ? Buffer.from(o.raw) : null, o.ok ? null : o.error.slice(0, 2000), o.ok ? null : (o.line ?? null),
+        o.ms, o.ok ? o.cached : false, workerId]);
+    await queue.complete(SIMULATE_QUEUE, job.id, { worker: workerId, cached: o.ok && o.cached }, { db });
+    await db.executeSql(`select pg_notify($1, $2)`, [SIM_CHANNEL, runId]);
+  });
+}
+
+/** Outcomes are needed only while their run is open: kept ten minutes after it ends (for a look), a day at most. */
+export async function pruneSimResults(): Promise<number> {
+  const rows = await (await getEm()).getConnection().execute<unknown[]>(
+    `delete from sim_results s where s.created_at < now() - interval '1 day'
+        or (s.created_at < now() - interval '10 minutes'
+            and exists (select 1 from check_runs r where r.id = s.run_id and r.status in ('done', 'error')))
+     returning 1`);
+  return rows.length;
+}
