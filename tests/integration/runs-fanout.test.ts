@@ -1,0 +1,164 @@
+import { spawn, type ChildProcess } from "node:child_process";
+import { mkdtempSync, rmSync } from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from "vitest";
+
+await vi.hoisted(async () => { await (await import("./blocks-db")).usePrivateDatabase(); });
+import { CheckRunSchema, OutboxEventSchema } from "@/entities";
+import { createBlock } from "@/lib/blocks/create";
+import { closeOrm, getEm } from "@/lib/db/orm";
+import { getRun } from "@/lib/runs/runs";
+import { makeTeam, wienFixture, type TestTeam } from "./blocks-helpers";
+
+// Real worker processes sharing one verification's simulations through the `simulate` queue. A 3 s run lease and
+// a 4 s simulation expiry make a killed worker's share come back quickly; a private cache makes every run simulate.
+let team: TestTeam;
+const cache = mkdtempSync(path.join(os.tmpdir(), "assay-fanout-cache-"));
+const children: ChildProcess[] = [];
+beforeAll(async () => { team = await makeTeam(); });
+// Each test's workers stop with it, passed or failed, so the next test's runs go to its own workers.
+afterEach(async () => {
+  await Promise.all(children.splice(0).filter((c) => c.exitCode === null && c.signalCode === null).map((c) => {
+    process.kill(-c.pid!, "SIGTERM");
+    return new Promise((r) => c.once("exit", r));
+  }));
+});
+afterAll(async () => {
+  for (const c of children) if (c.exitCode === null && c.signalCode === null) try { process.kill(-c.pid!, "SIGKILL"); } catch { /* gone */ }
+  rmSync(cache, { recursive: true, force: true });
+  await closeOrm();
+});
+
+function startWorker(id: string, env: Record<string, string> = {}) {
+  const child = spawn(process.execPath, ["--import", "tsx", "scripts/worker.ts"], {
+    cwd: process.cwd(), detached: true, stdio: ["ignore", "pipe", "pipe"],
+    env: { ...process.env, ASSAY_WORKER_ID: id, ASSAY_RUN_LEASE_SECONDS: "3", ASSAY_SIM_EXPIRE_SECONDS: "4", ASSAY_SIM_CACHE: cache, ...env },
+  });
+  children.push(child);
+  const lines: string[] = [];
+  const ready = new Promise<void>((resolve, reject) => {
+    child.stdout!.on("data", (d: Buffer) => {
+      lines.push(...d.toString().split("\n").filter(Boolean));
+      if (lines.some((l) => l.endsWith("ready"))) resolve();
+    });
+    child.stderr!.on("data", (d: Buffer) => lines.push(d.toString()));
+    child.once("exit", (code) => reject(new Error(`worker ${id} exited (${code}): ${lines.join("\n")}`)));
+  });
+  const stop = async () => {
+    if (child.exitCode !== null || child.signalCode !== null) return;
+    process.kill(-child.pid!, "SIGTERM");
+    await new Promise((r) => child.once("exit", r));
+  };
+  return { id, child, lines, ready, stop };
+}
+
+async function until<T>(what: string, fn: () => Promise<T | null | undefined | false>, ms = 90_000): Promise<T> {
+  const end = Date.now() + ms;
+  for (;;) {
+    const v = await fn();
+    if (v) return v;
+    if (Date.now() > end) throw new Error(`timed out waiting for ${what}`);
+    await new Promise((r) => setTimeout(r, 50));
+  }
+}
+
+const sql = async <T>(text: string, params: unknown[] = []) => (await getEm()).getConnection().execute<T[]>(text, params);
+const results = (runId: string) => sql<{ key: string; worker_id: string; ok: boolean; cached: boolean }>(
+  `select key, worker_id, ok, cached from sim_results where run_id = ?`, [runId]);
+/** simulate jobs of the run that pg-boss still holds as waiting or active */
+const openJobs = async (runId: string) => Number((await sql<{ n: string }>(
+  `select count(*) as n from pgboss.job where name = 'simulate' and data->>'runId' = ? and state in ('created', 'retry', 'active')`, [runId]))[0].n);
+const finished = async (runId: string) => {
+  const r = await (await getEm()).findOneOrFail(CheckRunSchema, { id: runId });
+  return r.status === "done" || r.status === "error" ? r : null;
+};
+
+// The test's own Wien-bridge fixture with a finer, longer transient, so each of its simulations takes a while
+// (four toleranced parameters: nominal plus corners or worst cases, all of them simulated).
+const slowWien = (slug: string) => wienFixture(slug).replace("res = tran(20 ms, 10 us)", "res = tran(40 ms, 1 us)");
+
+describe("one verification spread over two workers", () => {
+  it("both workers run its simulations, progress advances to the total, and cache hits stay hits", { timeout: 180_000 }, async () => {
+    const c = startWorker(`share-c-${team.tag}`);
+    const d = startWorker(`share-d-${team.tag}`);
+    await Promise.all([c.ready, d.ready]);
+    const slug = `share-${team.tag}`;
+    const { run } = await createBlock(team.author, { teamSlug: team.slug, text: slowWien(slug) });
+    const seen: { done: number; total: number }[] = [];
+    const done = await until("the run to finish", async () => {
+      seen.push((await getRun(team.viewer, run.id)).progress);
+      return finished(run.id);
+    });
+    expect(done.status).toBe("done");
+    const rows = await results(run.id);
+    const simulations = (done.report as { simulations: unknown[] }).simulations.length;
+    expect(new Set(rows.map((r) => r.key)).size).toBe(rows.length);
+    expect(rows.length).toBeGreaterThan(4);
+    expect(rows.every((r) => r.ok && !r.cached)).toBe(true);
+    expect(new Set(rows.map((r) => r.worker_id))).toEqual(new Set([`share-c-${team.tag}`, `share-d-${team.tag}`]));
+    // Progress: never goes back, was seen part-way, and ends at its total, which covers every simulation reported.
+    const final = (await getRun(team.viewer, run.id)).progress;
+    expect(final.done).toBe(final.total);
+    expect(final.total).toBeGreaterThanOrEqual(simulations);
+    expect(seen.some((p) => p.done > 0 && p.done < p.total)).toBe(true);
+    for (let i = 1; i < seen.length; i++) expect(seen[i].done).toBeGreaterThanOrEqual(seen[i - 1].done);
+    expect(await openJobs(run.id)).toBe(0);
+
+    // The same decks again (a new version of the same file): every simulation is a hit of the machine's cache.
+    const again = await createBlock(team.author, { teamSlug: team.slug, text: slowWien(slug).replace(`slug: ${slug}`, `slug: ${slug}-again`) });
+    const second = await until("the second run", () => finished(again.run.id));
+    expect(second.status).toBe("done");
+    const hits = await results(again.run.id);
+    expect(hits.length).toBe(rows.length);
+    expect(hits.every((r) => r.cached)).toBe(true);
+    await Promise.all([c.stop(), d.stop()]);
+  });
+
+  it("a worker SIGKILLed mid-verification: the run still ends once, with every simulation accounted for", { timeout: 180_000 }, async () => {
+    const workers = [startWorker(`kill-a-${team.tag}`), startWorker(`kill-b-${team.tag}`)];
+    await Promise.all(workers.map((w) => w.ready));
+    const slug = `kill-fan-${team.tag}`;
+    const { run } = await createBlock(team.author, { teamSlug: team.slug, text: slowWien(slug) });
+    // Kill the coordinating worker once both have brought simulations back and some are still to come.
+    const coordinator = await until("both workers to have simulated", async () => {
+      const rows = await results(run.id);
+      const row = await (await getEm()).findOneOrFail(CheckRunSchema, { id: run.id });
+      return new Set(rows.map((r) => r.worker_id)).size === 2 && (await openJobs(run.id)) > 0 && row.leasedBy;
+    });
+    const a = workers.find((w) => w.id === coordinator)!;
+    const b = workers.find((w) => w !== a)!;
+    process.kill(-a.child.pid!, "SIGKILL");
+    await new Promise((r) => a.child.once("exit", r));
+    const before = (await results(run.id)).length;
+
+    const done = await until("the run to finish", () => finished(run.id));
+    expect(done.status).toBe("done");
+    expect(done.attempts).toBe(2);
+    expect((done.report as { status: string }).status).toMatch(/verified|failing/);
+    const rows = await results(run.id);
+    expect(rows.length).toBeGreaterThan(before); // the rest came from worker b, the earlier ones were kept
+    expect(rows.every((r) => r.ok)).toBe(true);
+    const progress = (await getRun(team.viewer, run.id)).progress;
+    expect(progress.done).toBe(progress.total);
+    expect(progress.total).toBeGreaterThanOrEqual((done.report as { simulations: unknown[] }).simulations.length);
+    const events = await (await getEm()).find(OutboxEventSchema, { kind: "run.finished", payload: { runId: run.id } } as never);
+    expect(events).toHaveLength(1);
+    expect(b.lines.filter((l) => l.includes(`run ${run.id}: done`))).toHaveLength(1);
+    await until("no simulation of the run left waiting or active", async () => (await openJobs(run.id)) === 0, 30_000);
+    await b.stop();
+  });
+
+  it("a run over the instance's cap ends with the error naming the cap, before anything is simulated", { timeout: 120_000 }, async () => {
+    const w = startWorker(`cap-${team.tag}`, { ASSAY_RUN_MAX_SIMULATIONS: "3" });
+    await w.ready;
+    const { run } = await createBlock(team.author, { teamSlug: team.slug, text: slowWien(`cap-${team.tag}`) });
+    const done = await until("the run to finish", () => finished(run.id));
+    const report = done.report as { status: string; errors: { message: string }[] };
+    expect(report.status).toBe("error");
+    expect(report.errors.map((e) => e.message).join(" ")).toMatch(/at most 3 simulations.*ASSAY_RUN_MAX_SIMULATIONS/);
+    expect(await results(run.id)).toHaveLength(0);
+    expect(Number((await sql<{ n: string }>(`select count(*) as n from pgboss.job where name = 'simulate' and data->>'runId' = ?`, [run.id]))[0].n)).toBe(0);
+    await w.stop();
+  });
+});
