@@ -58,3 +58,7 @@ res = tran(20 ms, 10 us)
 check("the oscillation builds up", pp(res, "out", 15 ms, 20 ms) > 10 Vkick)
 \`\`\`
 `;
+
+/** The same oscillator with montecarlo(n): nominal, its tolerance points and n seeded samples, all simulated. */
+export const wienMonteCarloBlock = (slug: string, rf: string, n: number): string =>
+  wienBlock(slug, rf).replace("res = tran(20 ms, 10 us)", `montecarlo(${n})\nres = tran(20 ms, 10 us)`);

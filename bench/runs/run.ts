@@ -5,11 +5,12 @@ import { mkdtempSync, rmSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { startCluster } from "../../tests/support/pg-cluster";
-import { dividerBlock, wienBlock } from "./blocks";
+import { dividerBlock, wienBlock, wienMonteCarloBlock } from "./blocks";
 
 const LATENCY_SAMPLES = 20;
 const QUEUED = 200;
-const PHASE_LIMIT_MS = 120_000; // keeps the bench bounded on a slow machine: the figure then covers what finished
+const PHASE_LIMIT_MS = 120_000;
+const FANOUT_ONLY = process.argv.includes("--fanout"); // npm run bench:runs -- --fanout: section 3 alone // keeps the bench bounded on a slow machine: the figure then covers what finished
 
 async function main() {
   const cluster = await startCluster();
@@ -34,7 +35,7 @@ async function main() {
     const startWorker = (id: string) => new Promise<ChildProcess>((resolve, reject) => {
       const child = spawn(process.execPath, ["--import", "tsx", "scripts/worker.ts", "--team", "bench"], {
         stdio: ["ignore", "pipe", "inherit"], detached: true,
-        env: { ...process.env, ASSAY_WORKER_ID: id, ASSAY_SIM_CACHE: cache },
+        env: { ...process.env, ASSAY_WORKER_ID: id, ASSAY_SIM_CACHE: cache, ASSAY_SIM_CONCURRENCY: "1" },
       });
       workers.push(child);
       child.stdout!.on("data", (d: Buffer) => { if (d.toString().includes("ready")) resolve(child); });
@@ -57,6 +58,7 @@ async function main() {
     const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
     const p90 = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length * 0.9)];
 
+    if (!FANOUT_ONLY) {
     // 1. Store-to-badge latency, one worker idle and waiting (woken by NOTIFY on commit).
     await startWorker("latency");
     for (const [kind, make, values] of [
@@ -107,6 +109,29 @@ async function main() {
       await stopWorkers();
     }
     console.log(`two workers / one worker: ${(rates[1] / rates[0]).toFixed(2)}x on ${os.cpus().length} CPU cores`);
+    }
+
+    // 3. One verification fanned out: a 64-sample Monte Carlo of the Wien oscillator's 20 ms transient, whose
+    // simulations are `simulate` jobs for any worker; one worker, then two (one simulation at a time each).
+    const fanRates: number[] = [];
+    for (const n of [1, 2]) {
+      await Promise.all(Array.from({ length: n }, (_, k) => startWorker(`fan-${n}-${k}`)));
+      const warm = await createBlock(caller, { teamSlug: "bench", text: wienBlock(`fan-warm-${n}`, `${(21 + n * 0.01).toFixed(2)} kohm`) });
+      await waitDone(warm.run.id); // both phases start with warm workers and sandbox children
+      const t0 = performance.now();
+      const r = await createBlock(caller, { teamSlug: "bench", text: wienMonteCarloBlock(`fan-${n}`, `${(22 + n * 0.01).toFixed(2)} kohm`, 64) });
+      await waitDone(r.run.id);
+      const s = (performance.now() - t0) / 1000;
+      const conn = (await getEm()).getConnection();
+      const [run] = await conn.execute(`select progress_total as total, report->>'status' as status,
+        (select avg((e->>'ms')::float) from jsonb_array_elements(report->'simulations') e) as ms from check_runs where id = ?`, [r.run.id]) as { total: number; status: string; ms: number }[];
+      const by = await conn.execute(`select worker_id, count(*) as n from sim_results where run_id = ? group by worker_id order by worker_id`, [r.run.id]) as { worker_id: string; n: string }[];
+      fanRates.push(run.total / s);
+      console.log(`one verification fanned out, ${n} worker${n > 1 ? "s" : ""}: ${run.total} simulations in ${s.toFixed(1)} s = ${(run.total / s).toFixed(1)} simulations/s `
+        + `(report ${run.status}; ngspice ${Number(run.ms).toFixed(0)} ms per simulation on average; by worker: ${by.map((b) => `${b.worker_id} ${b.n}`).join(", ")})`);
+      await stopWorkers();
+    }
+    console.log(`fan-out, two workers / one worker: ${(fanRates[1] / fanRates[0]).toFixed(2)}x on ${os.cpus().length} CPU cores`);
   } finally {
     for (const w of workers) try { process.kill(-w.pid!, "SIGKILL"); } catch { /* gone */ }
     await closeOrm();
