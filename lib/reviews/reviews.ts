@@ -1,18 +1,18 @@
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { MembershipSchema, ReviewSchema, UserSchema, type Block, type BlockVersion, type ReviewDecision } from "@/entities";
-import type { Caller } from "@/lib/auth/caller";
+import type { Ctx } from "@/lib/context";
 import { assertCan, can } from "@/lib/auth/permissions";
 import { loadBlock, loadVersion, requireUser, resourceOf } from "@/lib/blocks/common";
 import { blockEventBase } from "@/lib/blocks/events";
-import { getEm } from "@/lib/db/orm";
 import { AppError } from "@/lib/errors";
 import { writeEvent } from "@/lib/outbox/outbox";
 import { badgesFor, type Badge } from "@/lib/runs/badge";
+import type { BlockInput } from "@/lib/validation/blocks";
+import type { DecisionInput, ReviewTarget } from "@/lib/validation/reviews";
 
-async function target(caller: Caller, slug: string, version: number): Promise<{ em: EntityManager; block: Block; v: BlockVersion }> {
-  const em = await getEm();
+async function target({ em, caller }: Ctx, { slug, version }: ReviewTarget): Promise<{ em: EntityManager; block: Block; v: BlockVersion }> {
   const block = await loadBlock(em, caller, slug);
-  const v = await loadVersion(em, block, Number(version));
+  const v = await loadVersion(em, block, version);
   await em.populate(v, ["author"]);
   return { em, block, v };
 }
@@ -24,9 +24,10 @@ async function reviewersOf(em: EntityManager, block: Block, authorId: number): P
 }
 
 /** Asks the team's maintainers to review one version; asking twice for the same version keeps one request. */
-export async function requestReview(caller: Caller, slug: string, version: number): Promise<{ id: number; created: boolean }> {
+export async function requestReview(ctx: Ctx, input: ReviewTarget): Promise<{ id: number; created: boolean }> {
+  const { caller } = ctx;
   const user = requireUser(caller);
-  const { em, block, v } = await target(caller, slug, version);
+  const { em, block, v } = await target(ctx, input);
   assertCan(caller, "review.request", resourceOf(block));
   const open = await em.findOne(ReviewSchema, { version: v, decision: "requested" }, { orderBy: { createdAt: "desc" } });
   if (open) {
@@ -44,15 +45,14 @@ export async function requestReview(caller: Caller, slug: string, version: numbe
 }
 
 /** Approve or ask for changes on one version. Nobody decides on a version they wrote. */
-export async function decide(
-  caller: Caller, slug: string, version: number, decision: "approved" | "changes-requested", comment = "",
-): Promise<{ id: number; decision: ReviewDecision }> {
+export async function decide(ctx: Ctx, input: DecisionInput): Promise<{ id: number; decision: ReviewDecision }> {
+  const { caller } = ctx;
+  const { decision, comment } = input;
   const user = requireUser(caller);
-  if (decision !== "approved" && decision !== "changes-requested") throw new AppError("validation", "decision is approved or changes-requested");
-  const { em, block, v } = await target(caller, slug, version);
+  const { em, block, v } = await target(ctx, input);
   assertCan(caller, "version.approve", resourceOf(block));
   if (v.author.id === user.id) throw new AppError("forbidden", "nobody approves their own version: ask another maintainer");
-  const text = String(comment ?? "").trim().slice(0, 5000);
+  const text = comment.trim();
   if (decision === "changes-requested" && !text) throw new AppError("validation", "say which changes you ask for");
   return em.transactional(async (tx) => {
     const r = tx.create(ReviewSchema, { version: v, reviewer: tx.getReference(UserSchema, user.id), requestedBy: null, decision, comment: text, createdAt: new Date() });
@@ -71,9 +71,8 @@ export interface QueueItem {
 }
 
 /** Open requests on head versions of teams where the caller may approve, minus their own versions. */
-export async function reviewQueue(caller: Caller): Promise<QueueItem[]> {
+export async function reviewQueue({ em, caller }: Ctx): Promise<QueueItem[]> {
   if (!caller.user) return [];
-  const em = await getEm();
   const rows = await em.getConnection().execute<{ review_id: number }[]>(
     `select distinct on (r.version_id) r.id as review_id from reviews r
        join block_versions v on v.id = r.version_id join blocks b on b.head_id = v.id
@@ -95,9 +94,8 @@ export interface ReviewRow {
 }
 
 /** The review history of a block, newest first. */
-export async function reviewsOf(caller: Caller, slug: string): Promise<ReviewRow[]> {
-  const em = await getEm();
-  const block = await loadBlock(em, caller, slug);
+export async function reviewsOf({ em, caller }: Ctx, input: BlockInput): Promise<ReviewRow[]> {
+  const block = await loadBlock(em, caller, input.slug);
   return reviewRowsOf(em, block.id);
 }
 

@@ -63,7 +63,7 @@ export async function seedLibrary(em: EntityManager): Promise<{ created: number 
   const approved = await em.fork().findOne(BlockSchema, { slug: APPROVE.slug });
   if (approved) {
     const done = await em.fork().count(ReviewSchema, { version: { block: approved.id, number: APPROVE.version }, decision: "approved" });
-    if (!done) await decide(maintainer, APPROVE.slug, APPROVE.version, "approved", APPROVE.comment);
+    if (!done) await decide(await contextFor(maintainer), { slug: APPROVE.slug, version: APPROVE.version, decision: "approved", comment: APPROVE.comment });
   }
   return { created };
 }

@@ -59,7 +59,7 @@ describe("block read path", () => {
     await em.nativeUpdate(CheckRunSchema, { version: v1.id }, { status: "running" });
     await fresh("run started");
 
-    await decide(callers.maintainer, slug, 1, "approved");
+    await decide(await contextFor(callers.maintainer), { slug, version: 1, decision: "approved", comment: "" });
     expect((await getBlock(await contextFor(callers.maintainer), { slug, version: 1 })).approved).toBe(true);
     await fresh("approved");
 

@@ -11,6 +11,7 @@ import { writeEvent } from "@/lib/outbox/outbox";
 import { decide, requestReview } from "@/lib/reviews/reviews";
 import { watch } from "@/lib/watches/watches";
 import { mailsTo, makeTeam } from "./auth-fixtures";
+import { contextFor } from "@/lib/context";
 
 afterAll(closeOrm);
 
@@ -24,10 +25,10 @@ describe("mail notifications from the outbox", () => {
     const [author, maintainer, watcher] = await Promise.all(people.map(async (p) => loadCaller(await getEm(), p.id)));
     const text = readFileSync("content/blocks/rc-lowpass-antialias.md", "utf8").replace(/^slug: .*$/m, `slug: notify-${tag}`);
     const { slug } = await createBlock(author, { teamSlug: team, text });
-    await watch(watcher, slug);
+    await watch(await contextFor(watcher), { slug });
     await drain();
 
-    await requestReview(author, slug, 1);
+    await requestReview(await contextFor(author), { slug, version: 1 });
     await drain();
     for (const reviewer of [people[1], people[3]]) {
       const [m] = mailsTo(reviewer.email);
@@ -39,7 +40,7 @@ describe("mail notifications from the outbox", () => {
     expect(mailsTo(people[0].email)).toHaveLength(0);
     expect(mailsTo(people[2].email)).toHaveLength(0);
 
-    await decide(maintainer, slug, 1, "approved", "");
+    await decide(await contextFor(maintainer), { slug, version: 1, decision: "approved", comment: "" });
     await drain();
     expect(mailsTo(people[0].email).map((m) => m.subject)).toEqual([expect.stringMatching(/^Approved: .* v1$/)]);
     expect(mailsTo(people[2].email).map((m) => m.subject)).toEqual([expect.stringMatching(/^Approved: /)]);
@@ -64,8 +65,8 @@ describe("mail notifications from the outbox", () => {
     const [author, watcher] = await Promise.all(people.map(async (p) => loadCaller(await getEm(), p.id)));
     const text = readFileSync("content/blocks/rc-lowpass-antialias.md", "utf8").replace(/^slug: .*$/m, `slug: newver-${tag}`);
     const { slug } = await createBlock(author, { teamSlug: team, text });
-    await watch(watcher, slug);
-    await watch(author, slug);
+    await watch(await contextFor(watcher), { slug });
+    await watch(await contextFor(author), { slug });
     await drain();
     await addVersion(author, slug, { params: { R: "5.1 kohm" }, baseVersion: 1, message: "lower corner for the new ADC" });
     await drain();
@@ -82,7 +83,7 @@ describe("mail notifications from the outbox", () => {
     const [admin, viewer] = await Promise.all(people.map(async (p) => loadCaller(await getEm(), p.id)));
     const text = readFileSync("content/blocks/rc-lowpass-antialias.md", "utf8").replace(/^slug: .*$/m, `slug: left-${tag}`);
     const { slug } = await createBlock(admin, { teamSlug: team, text });
-    await watch(viewer, slug);
+    await watch(await contextFor(viewer), { slug });
     const em = await getEm();
     const block = await em.findOneOrFail(BlockSchema, { slug }, { populate: ["team", "head"] });
     const base = await blockEventBase(em, block, block.head);

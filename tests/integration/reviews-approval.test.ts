@@ -28,36 +28,36 @@ describe("reviews", () => {
     const slug = `rev-${team.tag}`;
     await createBlock(team.author, { teamSlug: team.slug, text: wienFixture(slug) });
     await drain(team);
-    const req = await requestReview(team.author, slug, 1);
+    const req = await requestReview(await contextFor(team.author), { slug, version: 1 });
     expect(req.created).toBe(true);
-    expect((await requestReview(team.author, slug, 1)).created).toBe(false);
+    expect((await requestReview(await contextFor(team.author), { slug, version: 1 })).created).toBe(false);
     const asked = await lastEvent("review.requested", slug);
     expect(asked.payload).toMatchObject({ slug, version: 1, requestedBy: team.author.user!.email, reviewers: [team.maintainer.user!.email] });
 
-    const queue = await reviewQueue(team.maintainer);
+    const queue = await reviewQueue(await contextFor(team.maintainer));
     expect(queue.map((q) => [q.slug, q.version, q.badge])).toContainEqual([slug, 1, "verified"]);
-    expect(await reviewQueue(team.author)).toEqual([]);
+    expect(await reviewQueue(await contextFor(team.author))).toEqual([]);
 
-    expect(await code(decide(team.author, slug, 1, "approved", ""))).toBe("forbidden"); // author role cannot approve
-    expect(await code(decide(team.viewer, slug, 1, "approved", ""))).toBe("forbidden");
-    expect(await code(decide(team.maintainer, slug, 1, "changes-requested", " "))).toBe("validation");
-    await decide(team.maintainer, slug, 1, "approved", "margins look right");
+    expect(await code(decide(await contextFor(team.author), { slug, version: 1, decision: "approved", comment: "" }))).toBe("forbidden"); // author role cannot approve
+    expect(await code(decide(await contextFor(team.viewer), { slug, version: 1, decision: "approved", comment: "" }))).toBe("forbidden");
+    expect(await code(decide(await contextFor(team.maintainer), { slug, version: 1, decision: "changes-requested", comment: " " }))).toBe("validation");
+    await decide(await contextFor(team.maintainer), { slug, version: 1, decision: "approved", comment: "margins look right" });
     expect((await getBlock(await contextFor(team.viewer), { slug })).approved).toBe(true);
     expect((await lastEvent("review.decided", slug)).payload).toMatchObject({ decision: "approved", reviewer: team.maintainer.user!.email, requestedBy: [team.author.user!.email] });
-    expect((await reviewQueue(team.maintainer)).some((q) => q.slug === slug)).toBe(false);
+    expect((await reviewQueue(await contextFor(team.maintainer))).some((q) => q.slug === slug)).toBe(false);
 
     // The maintainer writes version 2: it starts unapproved and they may not approve it themselves.
     await addVersion(team.maintainer, slug, { params: { Rf: "24 kohm" }, baseVersion: 1 });
     const head = await getBlock(await contextFor(team.viewer), { slug });
     expect([head.version, head.approved]).toEqual([2, false]);
     expect((await getBlock(await contextFor(team.viewer), { slug, version: 1 })).approved).toBe(true);
-    expect(await code(decide(team.maintainer, slug, 2, "approved", ""))).toBe("forbidden");
+    expect(await code(decide(await contextFor(team.maintainer), { slug, version: 2, decision: "approved", comment: "" }))).toBe("forbidden");
     expect((await listVersions(await contextFor(team.viewer), { slug })).map((v) => v.approved)).toEqual([false, true]);
 
     // A later request for changes withdraws an approval of the same version.
-    await decide(team.maintainer, slug, 1, "changes-requested", "Rg tolerance too loose");
+    await decide(await contextFor(team.maintainer), { slug, version: 1, decision: "changes-requested", comment: "Rg tolerance too loose" });
     expect((await getBlock(await contextFor(team.viewer), { slug, version: 1 })).approved).toBe(false);
-    expect((await reviewsOf(team.viewer, slug)).map((r) => [r.version, r.decision])).toEqual([
+    expect((await reviewsOf(await contextFor(team.viewer), { slug })).map((r) => [r.version, r.decision])).toEqual([
       [1, "changes-requested"], [1, "approved"], [1, "requested"],
     ]);
     await drain(team);
@@ -69,10 +69,10 @@ describe("watches and the outbox", () => {
     const slug = `watch-${team.tag}`;
     await createBlock(team.author, { teamSlug: team.slug, text: wienFixture(slug) });
     await drain(team);
-    expect(await code(watch(team.outsider, slug))).toBe("not_found");
-    await watch(team.viewer, slug);
-    await watch(team.viewer, slug);
-    expect(await isWatching(team.viewer, slug)).toBe(true);
+    expect(await code(watch(await contextFor(team.outsider), { slug }))).toBe("not_found");
+    await watch(await contextFor(team.viewer), { slug });
+    await watch(await contextFor(team.viewer), { slug });
+    expect(await isWatching(await contextFor(team.viewer), { slug })).toBe(true);
 
     await addVersion(team.author, slug, { params: { Rf: "18 kohm" }, baseVersion: 1, message: "try less gain" });
     const created = await lastEvent("version.created", slug);
@@ -87,8 +87,8 @@ describe("watches and the outbox", () => {
     expect((await recentlyVerified(await contextFor(team.viewer), 50)).map((b) => b.slug)).not.toContain(slug);
     expect((await myBlocks(await contextFor(team.author))).map((b) => b.slug)).toContain(slug);
 
-    await unwatch(team.viewer, slug);
-    expect(await isWatching(team.viewer, slug)).toBe(false);
+    await unwatch(await contextFor(team.viewer), { slug });
+    expect(await isWatching(await contextFor(team.viewer), { slug })).toBe(false);
   });
 
   it("archiving and publishing write events; public blocks are readable signed out", async () => {

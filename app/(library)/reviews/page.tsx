@@ -6,6 +6,7 @@ import { EmptyState } from "@/components/empty-state";
 import { Hallmark } from "@/components/hallmark";
 import { can } from "@/lib/auth/permissions";
 import { requireUser } from "@/lib/auth/session";
+import { pageContext } from "@/lib/next-context";
 import { reviewQueue } from "@/lib/reviews/reviews";
 
 export const metadata: Metadata = { title: "Reviews" };
@@ -13,7 +14,7 @@ export const dynamic = "force-dynamic";
 
 export default async function ReviewsPage() {
   const caller = await requireUser("/reviews");
-  const queue = await reviewQueue(caller);
+  const queue = await reviewQueue(await pageContext());
   const maintainer = caller.memberships.some((m) => can(caller, "version.approve", { kind: "team", teamId: m.teamId }));
   return (
     <div className="space-y-4">
