@@ -2,6 +2,7 @@ import type { ParsedBlock } from "../block/types";
 import type { Statement } from "../script/analyze";
 import type { Analysis, SimHooks } from "../script/builtins";
 import { runScript, type ScriptRun } from "../script/evaluate";
+import { deckTemp, Family } from "../script/sweep";
 import type { SimResult } from "../spice/types";
 import type { SimRequest } from "./executor";
 import { deckValues, scopeFor } from "./prepare";
@@ -19,7 +20,7 @@ export type SimSide = {
   parse: (req: SimRequest, raw: Uint8Array) => SimResult;
 };
 
-export type SimUse = { analysis: Analysis; key: string; result: SimResult; windows: Waveform["windows"]; marks: Waveform["marks"]; nodes: Set<string> };
+export type SimUse = { analysis: Analysis; key: string; keys: string[]; result: SimResult | Family; windows: Waveform["windows"]; marks: Waveform["marks"]; nodes: Set<string> };
 
 export type VariantRun = {
   run: ScriptRun;
@@ -27,6 +28,12 @@ export type VariantRun = {
   pending: SimRequest[];
   sims: SimUse[];
 };
+
+/** One member of a sweep: the analysis at a temperature, or the values with one parameter set. */
+function memberOf(analysis: Analysis, name: string, x: number, values: Record<string, number>): { analysis: Analysis; values: Record<string, number> } {
+  if (name === "temp") return { analysis: { ...analysis, temp: deckTemp(x) }, values };
+  return { analysis, values: { ...values, [name]: x } };
+}
 
 /** Thrown into the script when a simulation's result is not known yet; the variant reruns later. */
 class Pending extends Error {}
@@ -50,25 +57,43 @@ export function runVariant(
     simulate: (analysis) => {
       if (!side) throw new Error("simulations run only in a full verification");
       if (!block.netlist.trim()) throw new Error("the block has no ```spice fence to simulate");
-      let req: SimRequest;
-      try {
-        req = side.request({ title: block.title, circuit: block.netlist, params: deckValues(block, values), analysis });
-      } catch (e) {
-        throw located(e, (e as { line?: number }).line, block.netlistLine);
-      }
-      const k = known.get(req.key);
-      if (!k) {
-        pending.push(req);
+      const { sweep, ...single } = analysis;
+      const members = sweep ? sweep.values.map((x) => memberOf(single, sweep.name, x, values)) : [{ analysis: single, values }];
+      const reqs = members.map((m) => {
+        try {
+          return side.request({ title: block.title, circuit: block.netlist, params: deckValues(block, m.values), analysis: m.analysis });
+        } catch (e) {
+          throw located(e, (e as { line?: number }).line, block.netlistLine);
+        }
+      });
+      const missing = reqs.filter((r) => !known.has(r.key));
+      if (missing.length) {
+        pending.push(...missing);
         throw new Pending("waiting for a simulation");
       }
-      if (!k.ok) throw located(new Error(k.error), k.line, block.netlistLine);
-      sims.push({ analysis, key: req.key, result: k.result, windows: [], marks: [], nodes: new Set() });
-      return { result: k.result, index: sims.length - 1 };
+      const results = reqs.map((r) => {
+        const k = known.get(r.key)!;
+        if (!k.ok) throw located(new Error(k.error), k.line, block.netlistLine);
+        return k.result;
+      });
+      const result = sweep ? new Family(sweep, results) : results[0];
+      sims.push({ analysis, key: reqs.map((r) => r.key).join("+"), keys: reqs.map((r) => r.key), result, windows: [], marks: [], nodes: new Set() });
+      return { result, index: sims.length - 1 };
     },
     measure: (name, result, node, args) => {
       sims.find((s) => s.result === result)?.nodes.add(node);
-      return side!.measure(name, result as SimResult, node, args);
+      if (!(result instanceof Family)) return side!.measure(name, result as SimResult, node, args);
+      // One value per member; a member with nothing to measure gives NaN (the check then fails there).
+      return result.members.map((m) => {
+        try {
+          return side!.measure(name, m as SimResult, node, args);
+        } catch (e) {
+          if ((e as Error).name === "NothingToMeasure") return NaN;
+          throw e;
+        }
+      });
     },
+    units: new Map(block.params.map((p) => [p.name, p.unit])),
     window: (i, w) => pushOnce(sims[i].windows, w),
     mark: (i, m) => pushOnce(sims[i].marks, m),
   };

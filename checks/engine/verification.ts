@@ -1,5 +1,6 @@
 import type { ParsedBlock } from "../block/types";
 import { EXHAUSTIVE_LIMIT, allCorners, cornerAt, monteCarloSamples, toleranceCorners, toleranced, worstSigns, type Corner, type Toleranced } from "../corners";
+import type { MathNode } from "mathjs";
 import { SIM_CALLS, type Statement } from "../script/analyze";
 import type { CheckOutcome } from "../script/evaluate";
 import { toQuantity } from "../units";
@@ -82,10 +83,10 @@ export class Verification {
       if (id === "nominal" && this.firstRequests.length === 0) this.firstRequests = v.pending;
       if (v.pending.length) {
         for (const r of v.pending) pending.set(r.key, r);
-        for (const s of v.sims) inUse.add(s.key);
+        for (const s of v.sims) for (const k of s.keys) inUse.add(k);
         return null;
       }
-      const d: Done = { id, kind, corner, checks: v.run.checks, values: this.valuesOf(v), simKeys: v.sims.map((s) => s.key), ...(sample !== undefined ? { sample } : {}) };
+      const d: Done = { id, kind, corner, checks: v.run.checks, values: this.valuesOf(v), simKeys: v.sims.flatMap((s) => s.keys), ...(sample !== undefined ? { sample } : {}) };
       if (kind !== "sample" && kind !== "sensitivity") d.full = v;
       this.done.set(id, d);
       return d;
@@ -189,8 +190,20 @@ export function simulationTolerances(block: ParsedBlock, statements: Statement[]
     .join("\n");
   const deps = paramDeps(statements, block.params.map((p) => p.name));
   const read = new Set(statements.filter(startsSimulation).flatMap((s) => [...deps.get(s)!]));
+  // A parameter a sweep sets takes the sweep's values in every member: its tolerance is moot there.
+  const swept = new Set(statements.flatMap(sweptNames));
   const escape = (n: string) => n.replace(/[^A-Za-z0-9_]/g, "");
-  return toleranced(block.params).filter(({ p }) => read.has(p.name) || new RegExp(`(^|[^A-Za-z0-9_])${escape(p.name)}($|[^A-Za-z0-9_])`, "i").test(circuit));
+  return toleranced(block.params).filter(({ p }) => !swept.has(p.name)).filter(({ p }) => read.has(p.name) || new RegExp(`(^|[^A-Za-z0-9_])${escape(p.name)}($|[^A-Za-z0-9_])`, "i").test(circuit));
+}
+
+function sweptNames(s: Statement): string[] {
+  const out: string[] = [];
+  s.node.traverse((n) => {
+    if (n.type !== "FunctionNode" || (n as unknown as { fn: { name?: string } }).fn.name !== "sweep") return;
+    const first = (n as unknown as { args: MathNode[] }).args[0] as MathNode & { value?: unknown };
+    if (first?.type === "ConstantNode" && typeof first.value === "string") out.push(first.value);
+  });
+  return out;
 }
 
 function startsSimulation(s: Statement): boolean {

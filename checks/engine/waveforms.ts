@@ -1,3 +1,5 @@
+import { Family } from "../script/sweep";
+import type { SimResult } from "../spice/types";
 import type { Report, Waveform } from "./types";
 import { pushOnce, type VariantRun } from "./variant";
 import type { Done, Verification } from "./verification";
@@ -30,13 +32,21 @@ function plots(v: Verification, run: VariantRun, variant: "nominal" | "worst", c
   const out: Waveform[] = [];
   run.sims.forEach((s, group) => {
     if (s.analysis.kind === "op") return;
-    const w = v.side!.waveform(s.result, [...s.nodes]);
-    if (!w) return;
-    const windows = [...w.windows];
-    for (const x of s.windows) pushOnce(windows, x);
-    const marks = [...w.marks];
-    for (const x of s.marks) pushOnce(marks, x);
-    out.push({ ...w, windows, marks, group, variant, ...(corner ? { corner } : {}) });
+    const one = (result: SimResult, extra: Partial<Waveform>) => {
+      const w = v.side!.waveform(result, [...s.nodes]);
+      if (!w) return;
+      const windows = [...w.windows];
+      for (const x of s.windows) pushOnce(windows, x);
+      const marks = [...w.marks];
+      for (const x of s.marks) pushOnce(marks, x);
+      out.push({ ...w, windows, marks, group, variant, ...(corner ? { corner } : {}), ...extra });
+    };
+    if (!(s.result instanceof Family)) return one(s.result, {});
+    // A sweep: one trace per value, drawn together (at nominal they are the family's members).
+    const { sweep } = s.result;
+    s.result.members.forEach((m, i) =>
+      one(m as SimResult, { ...(variant === "nominal" ? { variant: "member" as const } : {}), sweep: { name: sweep.name, value: sweep.values[i], text: sweep.labels[i] } }),
+    );
   });
   return out;
 }

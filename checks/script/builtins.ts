@@ -3,6 +3,7 @@ import { eseries } from "../eseries";
 import { formatValue, fromQuantity, toQuantity } from "../units";
 import { nearTest } from "./condition";
 import { isUnit, math } from "./math";
+import { Family, familyValue, makeSweep, SWEPT_ANALYSES, SweepSpec } from "./sweep";
 import { MEASURES, unitIn, type Context } from "./measure-specs";
 import type { Analysis } from "../spice/types";
 
@@ -18,9 +19,12 @@ export class SimHandle {
 
 export type SimHooks = {
   simulate: (analysis: Analysis) => { result: unknown; index: number };
-  measure: (name: string, result: unknown, node: string, args: (number | string)[]) => number;
+  /** One number, or one per member when `result` is a swept family. */
+  measure: (name: string, result: unknown, node: string, args: (number | string)[]) => number | number[];
   window: (index: number, w: { node: string; from: number; to: number; measure: string; value?: number }) => void;
   mark: (index: number, m: { node: string; x: number; label: string; value?: number }) => void;
+  /** Each parameter's unit, so sweep() can check its values. */
+  units?: Map<string, string>;
 };
 
 /** A number in SI from a script argument that should carry `unit` (a bare number is read as SI). */
@@ -47,7 +51,7 @@ export function takeReasons(): string[] {
 }
 
 /** A measure's value, or NaN with its reason kept when the result holds nothing to measure. */
-function measured(hooks: SimHooks, name: string, result: unknown, node: string, args: (number | string)[]): number {
+function measured(hooks: SimHooks, name: string, result: unknown, node: string, args: (number | string)[]): number | number[] {
   try {
     return hooks.measure(name, result, node, args);
   } catch (e) {
@@ -62,6 +66,7 @@ function f3dbOf(hooks: SimHooks, res: SimHandle, node: string, rest: unknown[]):
   if (rest.length > 1 || (rest.length === 1 && rest[0] !== "lower" && rest[0] !== "upper"))
     throw new Error('f3db(res, node) or f3db(res, node, "lower" | "upper")');
   const value = hooks.measure("f3db", res.result, node, rest as string[]);
+  if (Array.isArray(value)) return familyValue(value, "Hz", res.result as Family) as Unit;
   hooks.mark(res.index, { node, x: value, label: F3DB_LABEL });
   return math.unit(value, "Hz") as Unit;
 }
@@ -85,8 +90,14 @@ function perDecade(n: unknown, call: string): number {
   return n;
 }
 
-export function builtins(hooks: SimHooks): Map<string, unknown> {
+export function builtins(given: SimHooks): Map<string, unknown> {
   const fns = new Map<string, unknown>();
+  // An analysis that ended with sweep(…) carries it to the simulator side.
+  const sweeping: { spec: SweepSpec | null } = { spec: null };
+  const hooks: SimHooks = {
+    ...given,
+    simulate: (a) => given.simulate(sweeping.spec ? { ...a, sweep: { name: sweeping.spec.name, values: sweeping.spec.values, labels: sweeping.spec.labels } } : a),
+  };
   fns.set("near", (x: unknown, t: unknown, tol: unknown) => nearTest(x, t, tol).ok);
   fns.set("eseries", (x: unknown, series: unknown) => {
     if (typeof series !== "string") throw new Error('eseries(x, "E24"): the series is a string');
@@ -149,6 +160,10 @@ export function builtins(hooks: SimHooks): Map<string, unknown> {
         k < given.length ? inUnit(given[k], unitIn(unit, ctx), `${name}() ${a}`) : spec.defaults![k - (spec.args.length - optional)],
       );
       const value = measured(hooks, name, res.result, node, args);
+      if (Array.isArray(value)) {
+        if (spec.args[0]?.[0] === "from") hooks.window(res.index, { node, from: args[0] as number, to: args[1] as number, measure: name });
+        return familyValue(value, unitIn(spec.unit, ctx), res.result as Family);
+      }
       if (spec.args[0]?.[0] === "from") hooks.window(res.index, { node, from: args[0], to: args[1], measure: name, value });
       if (name === "gain_db" || name === "phase") hooks.mark(res.index, { node, x: args[0], label: name === "gain_db" ? "gain" : "phase", value });
       if (spec.mark && Number.isFinite(value)) hooks.mark(res.index, { node, x: value, label: spec.mark });
@@ -156,5 +171,28 @@ export function builtins(hooks: SimHooks): Map<string, unknown> {
       return unit ? (math.unit(value, unit) as Unit) : value;
     });
   }
+  addSweeps(fns, hooks, sweeping);
   return fns;
+}
+
+/**
+ * `sweep(name, values)` and the analyses that end with it: the analysis runs as written with the
+ * sweep attached, and the simulator side expands it into one run per value.
+ */
+function addSweeps(fns: Map<string, unknown>, hooks: SimHooks, sweeping: { spec: SweepSpec | null }) {
+  fns.set("sweep", (name: unknown, values: unknown) => makeSweep(name, values, hooks.units ?? new Map()));
+  for (const name of SWEPT_ANALYSES) {
+    const run = fns.get(name) as ((...args: unknown[]) => unknown) | undefined;
+    if (!run) continue;
+    fns.set(name, (...args: unknown[]) => {
+      const last = args[args.length - 1];
+      if (!(last instanceof SweepSpec)) return run(...args);
+      sweeping.spec = last;
+      try {
+        return run(...args.slice(0, -1));
+      } finally {
+        sweeping.spec = null;
+      }
+    });
+  }
 }

@@ -1,6 +1,7 @@
 import type { MathNode } from "mathjs";
 import { formatValue, toQuantity } from "../units";
 import { isUnit, math } from "./math";
+import { membersOf } from "./sweep";
 import { UnitMismatch, logarithmicUnit, mismatchWhy, plainTypeMessage } from "./unit-rules";
 
 export type Judged = {
@@ -109,9 +110,36 @@ export class ConditionJudge {
   }
 
   private relation(fn: string, ln: MathNode, rn: MathNode): Judged {
-    const rel = RELATIONS[fn];
     const a = this.value(ln);
     const b = this.value(rn);
+    if (isVector(a) || isVector(b)) return this.each(ln, RELATIONS[fn].sym, [a, b], ([x, y], quiet) => quiet.relationOf(fn, ln, rn, x, y));
+    return this.relationOf(fn, ln, rn, a, b);
+  }
+
+  /**
+   * A comparison on a sweep's family: judged member by member; it passes only if every member
+   * passes, its margin is the least member's, and the text lists each member.
+   */
+  private each(ln: MathNode, sym: string, values: unknown[], judge: (v: unknown[], quiet: ConditionJudge) => Judged): Judged {
+    const lists = values.map((v) => (isVector(v) ? (math.isMatrix(v) ? (v.toArray() as unknown[]) : (v as unknown[])) : null));
+    const n = Math.max(...lists.map((l) => l?.length ?? 0));
+    if (lists.some((l) => l && l.length !== n)) throw new Error(`cannot compare families of ${lists.map((l) => l?.length ?? 1).join(" and ")} members`);
+    const names = values.map(membersOf).find(Boolean) ?? Array.from({ length: n }, (_, i) => `#${i + 1}`);
+    const quiet = new ConditionJudge(this.scope, false);
+    const parts = Array.from({ length: n }, (_, i) => judge(values.map((v, k) => (lists[k] ? lists[k]![i] : v)), quiet));
+    const margin = Math.min(...parts.map((p) => (Number.isNaN(p.margin) ? -Infinity : p.margin)));
+    const ok = parts.every((p) => p.ok);
+    const label = (ln.type === "ParenthesisNode" ? (ln as unknown as { content: MathNode }).content : ln).toString();
+    const first = parts[0]?.primary;
+    const primary = first ? { ...first, label, value: values[0] } : undefined;
+    if (!this.text) return { ok, margin, text: "", primary };
+    const limit = values.slice(1).map((v) => (isVector(v) ? "each" : formatValue(v))).join(", ");
+    const list = parts.map((p, i) => `${names[i]}: ${formatValue(lists[0] ? lists[0][i] : values[0])} ${mark(p.ok)}`).join(", ");
+    return { ok, margin, text: `${label} ${sym} ${limit} for every member (${list}) ${mark(ok)}`, primary };
+  }
+
+  private relationOf(fn: string, ln: MathNode, rn: MathNode, a: unknown, b: unknown): Judged {
+    const rel = RELATIONS[fn];
     let ok: boolean;
     try {
       ok = rel.test(a, b);
@@ -134,6 +162,11 @@ export class ConditionJudge {
 
   private near(xn: MathNode, tn: MathNode, toln: MathNode): Judged {
     const [x, t, tol] = [this.value(xn), this.value(tn), this.value(toln)];
+    if (isVector(x) || isVector(t)) return this.each(xn, "≈", [x, t], ([a, b], quiet) => quiet.nearOf(xn, tn, a, b, tol));
+    return this.nearOf(xn, tn, x, t, tol);
+  }
+
+  private nearOf(xn: MathNode, tn: MathNode, x: unknown, t: unknown, tol: unknown): Judged {
     const r = nearTest(x, t, tol);
     const left = this.operand(xn, x);
     const right = this.operand(tn, t);
@@ -145,6 +178,8 @@ export class ConditionJudge {
     return { ok: r.ok, margin, text: `${left.text} ≈ ${right.text} ± ${tolText} ${mark(r.ok)}${off}`, primary };
   }
 }
+
+const isVector = (x: unknown) => math.isMatrix(x) || Array.isArray(x);
 
 /** near(x, target, tol): tol with units is absolute, a plain number relative to |target|. */
 export function nearTest(x: unknown, target: unknown, tol: unknown) {

@@ -47,7 +47,11 @@ export function writeDeck(req: SimRequest, modelsDir = defaultModelsDir()): stri
     return `.param ${name}=${num(value)}`;
   });
   const circuit = sanitizeNetlist(req.circuit, modelsDir);
-  return [title, ...params, circuit, analysisLine(req.analysis), ".end", ""].join("\n");
+  const temp = req.analysis.temp;
+  if (temp !== undefined && !(Number.isFinite(temp) && temp > -273.15)) throw new SpiceError(`temperature ${temp} °C is below absolute zero`);
+  // A member of a temperature sweep: the engine's own .temp line, after the circuit's (the last one counts).
+  const tempLine = temp !== undefined ? [`.temp ${num(temp)}`] : [];
+  return [title, ...params, circuit, ...tempLine, analysisLine(req.analysis), ".end", ""].join("\n");
 }
 
 // Shortest round-trip form; ngspice reads "2.2e-08" and "1e+21" as plain numbers.

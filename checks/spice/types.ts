@@ -1,11 +1,17 @@
-export type Analysis =
+export type Analysis = (
   | { kind: "tran"; stop: number; step: number; uic?: boolean }
   | { kind: "ac"; f1: number; f2: number; perDecade: number }
   | { kind: "op" }
   /** `source` is an independent source's name or "temp"; temperatures are in K here, °C in the deck. */
   | { kind: "dc"; source: string; from: number; to: number; step: number }
   | { kind: "noise"; node: string; source: string; f1: number; f2: number; perDecade: number }
-  | { kind: "tf"; node: string; source: string };
+  | { kind: "tf"; node: string; source: string }
+) & {
+  /** Run once per value of a parameter or "temp" (the engine expands it; never in a deck). */
+  sweep?: { name: string; values: number[]; labels: string[] };
+  /** Circuit temperature in °C for this run, written as a .temp line. */
+  temp?: number;
+};
 
 export type SimRequest = {
   title: string;
