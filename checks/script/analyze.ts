@@ -69,6 +69,16 @@ function unitNotFunction(name: string, functions: Set<string>): boolean {
  */
 function productsForValueCalls(node: MathNode, values: Set<string>, functions: Set<string> = new Set()): MathNode {
   return node.transform((n) => {
+    // `a (b)^2` is a times b squared: the power binds to the parenthesis, not to the product.
+    if (n.type === "OperatorNode" && (n as unknown as { fn: string }).fn === "pow") {
+      const [base, exponent] = (n as unknown as { args: MathNode[] }).args;
+      const call = base as unknown as { type: string; fn: MathNode & { name?: string }; args: MathNode[] };
+      if (call.type === "FunctionNode" && call.fn.type === "SymbolNode" && call.args.length === 1 && (values.has(call.fn.name!) || unitNotFunction(call.fn.name!, functions))) {
+        const [factor, power] = [productsForValueCalls(call.args[0], values, functions), productsForValueCalls(exponent, values, functions)];
+        const names: Record<string, MathNode> = { a: call.fn, b: factor, c: power };
+        return parseExpression("a * (b) ^ (c)").transform((m) => (m.type === "SymbolNode" ? names[(m as unknown as { name: string }).name] : m));
+      }
+    }
     if (n.type !== "FunctionNode") return n;
     const { fn, args } = n as unknown as { fn: MathNode & { name?: string }; args: MathNode[] };
     if (fn.type !== "SymbolNode" || args.length !== 1) return n;

@@ -10,7 +10,10 @@ import { parseBlock, verifyBlock } from "@/checks";
 const DIR = path.resolve(__dirname, "../../content/blocks");
 const BLOCKS = [
   "diode-clamp-adc-input.md",
+  "diode-vf-reference-tempco.md",
+  "lc-chebyshev-lowpass-10k.md",
   "mains-bias-rail-5v1.md",
+  "noninverting-gain-11-loop.md",
   "noninverting-gain-11.md",
   "npn-current-sink-2ma.md",
   "npn-current-sink-temp-compensated.md",
@@ -65,6 +68,21 @@ describe("demo library", () => {
       expect(report.checks.some((c) => c.simulated), file).toBe(true);
       expect(report.checks.some((c) => !c.simulated), file).toBe(true);
       expect(report.simulations.length, file).toBeGreaterThan(0);
+    }, 120_000);
+  }
+
+  // The demos of the newer analyses: what each one simulated, and its measures reported beside the hand values.
+  for (const [file, analyses, measured] of [
+    ["lc-chebyshev-lowpass-10k.md", ["ac"], ["ripple_sim", "stop_att"]],
+    ["noninverting-gain-11-loop.md", ["ac", "noise"], ["pm", "fu_sim", "en", "vn"]],
+    ["diode-vf-reference-tempco.md", ["dc"], ["V27", "tc", "T_sim"]],
+  ] as [string, string[], string[]][]) {
+    it(`${file} runs ${analyses.join(" and ")} and reports its measures`, async () => {
+      const text = readFileSync(path.join(DIR, file), "utf8");
+      const { report, waveforms } = await verifyBlock(text, { simulate: true, cacheDir, timeoutMs: 60_000 });
+      expect([...new Set(report.simulations.map((s) => s.analysis))].sort()).toEqual(analyses);
+      for (const q of measured) expect(report.quantities[q], `${file} ${q}`).toMatchObject({ simulated: true });
+      expect(waveforms.map((w) => w.analysis)).toEqual(expect.arrayContaining(analyses));
     }, 120_000);
   }
 
