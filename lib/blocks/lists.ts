@@ -4,6 +4,7 @@ import { readableTeamIds } from "@/lib/auth/permissions";
 import type { Ctx } from "@/lib/context";
 import { approvedVersionIds } from "@/lib/reviews/approval";
 import { badgesFor } from "@/lib/runs/badge";
+import { latestRunOfSql } from "@/lib/runs/latest-run";
 import type { BlockSummary } from "@/lib/search/types";
 
 export type { BlockSummary };
@@ -39,7 +40,7 @@ export async function recentlyVerified({ em, caller }: Ctx, limit = 10): Promise
   const teams = readableTeamIds(caller);
   const rows = await em.getConnection().execute<{ id: number }[]>(
     `select b.id from blocks b join lateral (
-        select status, finished_at from check_runs r where r.version_id = b.head_id order by r.created_at desc limit 1) lr on true
+        ${latestRunOfSql("status, finished_at", "b.head_id")}) lr on true
       where b.archived = false and lr.status = 'done'
         and (b.visibility = 'public' ${teams.length ? `or b.team_id in (${teams.map(() => "?").join(",")})` : ""})
       order by lr.finished_at desc limit 200`, teams);

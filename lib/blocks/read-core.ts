@@ -5,7 +5,9 @@ import type { StoredParam } from "@/entities";
 import type { Caller } from "@/lib/auth/caller";
 import { assertCan, can } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/errors";
+import { latestDecisionOfSql } from "@/lib/reviews/latest-decision";
 import { badgeOfRun, currentStamp, type Badge } from "@/lib/runs/badge";
+import { latestRunOfSql } from "@/lib/runs/latest-run";
 
 // The read path of one block version in two round trips of plain SQL: the block with the asked version, its
 // author and its parent (one query, so the permission check comes before anything else is looked at), then the
@@ -48,13 +50,11 @@ select b.id, b.slug, b.title, b.summary, b.category, b.tags, b.hazard, b.visibil
   left join block_versions ph on ph.id = pb.head_id
  where b.slug = ?`;
 
-// Latest run: newest created_at, then the lowest id (as lib/runs/badge.ts latestRuns orders them).
-// Latest decision: as lib/reviews/approval.ts approvedVersionIds. Forks: unarchived children, oldest first.
+// Latest run and latest decision by the one rule each (lib/runs/latest-run.ts, lib/reviews/latest-decision.ts).
+// Forks: unarchived children, oldest first.
 const detailSql = (withForks: boolean) => `
-select (select row_to_json(r) from (select id, status, report, engine_version, model_library_hash, md5(report::text) as report_md5
-                                       from check_runs where version_id = ? order by created_at desc, id limit 1) r) as run,
-       (select decision from reviews where version_id = ? and decision in ('approved', 'changes-requested')
-         order by created_at desc, id desc limit 1) as decision,
+select (select row_to_json(lr) from (${latestRunOfSql("id, status, report, engine_version, model_library_hash, md5(report::text) as report_md5", "?")}) lr) as run,
+       (${latestDecisionOfSql("?")}) as decision,
        ${withForks ? `(select coalesce(json_agg(json_build_object('slug', c.slug, 'title', c.title, 'fromVersion', fv.number,
                  'teamId', c.team_id, 'visibility', c.visibility) order by c.created_at, c.id), '[]'::json)
           from blocks c join block_versions fv on fv.id = c.forked_from_id

@@ -1,4 +1,5 @@
 import type { EntityManager } from "@mikro-orm/postgresql";
+import { latestDecisionsSql } from "./latest-decision";
 
 /**
  * Versions whose latest decision is an approval. Approval belongs to one version, so a new version
@@ -7,9 +8,7 @@ import type { EntityManager } from "@mikro-orm/postgresql";
 export async function approvedVersionIds(em: EntityManager, versionIds: number[]): Promise<Set<number>> {
   if (versionIds.length === 0) return new Set();
   const rows = await em.getConnection().execute<{ version_id: number; decision: string }[]>(
-    `select distinct on (version_id) version_id, decision from reviews
-      where decision in ('approved', 'changes-requested') and version_id in (${versionIds.map(() => "?").join(",")})
-      order by version_id, created_at desc, id desc`,
+    latestDecisionsSql(versionIds.map(() => "?").join(",")),
     versionIds, "all", em.getTransactionContext(),
   );
   return new Set(rows.filter((r) => r.decision === "approved").map((r) => Number(r.version_id)));

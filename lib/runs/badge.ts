@@ -3,6 +3,7 @@ import { ENGINE_VERSION, modelLibraryHash } from "@/checks";
 import type { CheckRun } from "@/entities";
 import type { Badge } from "@/lib/badges/badges";
 import { getEm } from "@/lib/db/orm";
+import { latestRunsSql } from "./latest-run";
 
 export { BADGES, type Badge } from "@/lib/badges/badges";
 
@@ -46,9 +47,7 @@ export async function latestRuns(em: EntityManager, versionIds: number[]): Promi
   const out = new Map<number, LatestRun>();
   if (versionIds.length === 0) return out;
   const rows = await em.getConnection().execute<Record<string, never>[]>(
-    `select distinct on (version_id) id, version_id, status, report, engine_version, model_library_hash, finished_at, created_at
-       from check_runs where version_id in (${versionIds.map(() => "?").join(",")})
-      order by version_id, created_at desc, id`,
+    latestRunsSql("id, status, report, engine_version, model_library_hash, finished_at, created_at", versionIds.map(() => "?").join(",")),
     versionIds, "all", em.getTransactionContext(),
   );
   for (const r of rows as Record<string, unknown>[]) {
