@@ -4,6 +4,14 @@ import type { BlockVersion } from "./block-version.entity";
 export type RunStatus = "queued" | "running" | "done" | "error";
 export type RunTrigger = "new-version" | "reverify" | "manual";
 
+/** A model file a run simulated with: a team file's version, or a shared file (versioned with the code). */
+export interface RunModel {
+  name: string;
+  sha256: string;
+  source: "team" | "shared";
+  version: number | null;
+}
+
 export interface CheckRun {
   id: string;
   version: BlockVersion;
@@ -13,6 +21,10 @@ export interface CheckRun {
   engineVersion: string | null;
   ngspiceVersion: string | null;
   modelLibraryHash: string | null;
+  /** Exactly which model files the run included (null for runs from before team models). */
+  models: Opt<RunModel[] | null>;
+  /** Set when a team model it used got a newer version: the result no longer describes the block's head. */
+  modelsOutdated: Opt<boolean>;
   durationMs: number | null;
   attempts: number;
   trigger: RunTrigger;
@@ -43,6 +55,8 @@ export const CheckRunSchema = new EntitySchema<CheckRun>({
     engineVersion: { type: "string", length: 32, nullable: true },
     ngspiceVersion: { type: "string", length: 64, nullable: true },
     modelLibraryHash: { type: "string", length: 64, nullable: true },
+    models: { type: "json", nullable: true },
+    modelsOutdated: { type: "boolean", default: false },
     durationMs: { type: "integer", nullable: true },
     attempts: { type: "integer", default: 0 },
     trigger: { type: "string", length: 16, default: "new-version" },

@@ -6,6 +6,8 @@ import { CheckRunSchema } from "./check-run.entity";
 import { EndedSessionSchema } from "./ended-session.entity";
 import { InvitationSchema } from "./invitation.entity";
 import { MembershipSchema } from "./membership.entity";
+import { ModelVersionSchema } from "./model-version.entity";
+import { ModelSchema } from "./model.entity";
 import { OutboxEventSchema } from "./outbox-event.entity";
 import { ReviewSchema } from "./review.entity";
 import { SignInLinkSchema } from "./sign-in-link.entity";
@@ -23,6 +25,8 @@ export * from "./check-run.entity";
 export * from "./ended-session.entity";
 export * from "./invitation.entity";
 export * from "./membership.entity";
+export * from "./model-version.entity";
+export * from "./model.entity";
 export * from "./outbox-event.entity";
 export * from "./review.entity";
 export * from "./sign-in-link.entity";
@@ -50,4 +54,6 @@ export const allEntities = [
   WorkerHeartbeatSchema,
   EndedSessionSchema,
   SimResultSchema,
+  ModelSchema,
+  ModelVersionSchema,
 ];

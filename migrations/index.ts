@@ -5,6 +5,7 @@ import { Migration20261202023951 } from "./Migration20261202023951";
 import { Migration20261202090500 } from "./Migration20261202090500";
 import { Migration20261202092600 } from "./Migration20261202092600";
 import { Migration20261202093000 } from "./Migration20261202093000";
+import { Migration20261202093500 } from "./Migration20261202093500";
 
 // Every migration, in order. Add new ones at the end; never edit a landed one.
 export const migrationsList: MigrationObject[] = [
@@ -14,4 +15,5 @@ export const migrationsList: MigrationObject[] = [
   { name: "Migration20261202090500", class: Migration20261202090500 },
   { name: "Migration20261202092600", class: Migration20261202092600 },
   { name: "Migration20261202093000", class: Migration20261202093000 },
+  { name: "Migration20261202093500", class: Migration20261202093500 },
 ];

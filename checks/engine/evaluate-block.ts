@@ -1,7 +1,7 @@
 import type { BlockError, ParsedBlock } from "../block/types";
 import { cornerAt, monteCarloSamples, toleranced, type Corner } from "../corners";
 import { defaultModelsDir } from "../spice/paths";
-import { sanitizeNetlist } from "../spice/sanitize";
+import { sanitizeNetlist, type ModelTexts } from "../spice/sanitize";
 import type { Statement } from "../script/analyze";
 import { runScript, type CheckOutcome } from "../script/evaluate";
 import { toQuantity } from "../units";
@@ -26,6 +26,8 @@ export type EvaluateOptions = {
   side?: SimSide;
   progress?: RunProgress;
   cap?: RunCap;
+  /** The model files `.include` may name, as the caller resolved them for the block's team (team first, then shared). */
+  models?: ModelTexts;
 };
 
 type Started = { report: Report; block: ParsedBlock | null; statements: Statement[]; v: Verification | null; mc: MonteCarlo | null };
@@ -36,7 +38,7 @@ function start(text: string, opts: EvaluateOptions): Started {
   // Frontmatter errors stop here; script syntax errors do not, so the other lines still evaluate.
   if (!block) return { report, block, statements, v: null, mc: null };
   // A refused netlist is reported at once, in previews too, on its line in the block file.
-  const refused = netlistRefusal(block.netlist, block.netlistLine);
+  const refused = netlistRefusal(block.netlist, block.netlistLine, opts.models);
   if (refused) report.errors.push(refused);
   let mc: MonteCarlo | null = null;
   try {
@@ -50,8 +52,8 @@ function start(text: string, opts: EvaluateOptions): Started {
 }
 
 /** The checks that need no simulation, at nominal and their tolerance points; a preview's whole run. */
-export function evaluateBlock(text: string, opts: { params?: Record<string, string> } = {}): { report: Report; waveforms: Waveform[] } {
-  const s = start(text, { params: opts.params });
+export function evaluateBlock(text: string, opts: { params?: Record<string, string>; models?: ModelTexts } = {}): { report: Report; waveforms: Waveform[] } {
+  const s = start(text, { params: opts.params, models: opts.models });
   return finish(s);
 }
 
@@ -166,10 +168,10 @@ function sensitive(names: string[], points: { corner: Corner; checks: CheckOutco
   return [...out];
 }
 
-function netlistRefusal(netlist: string, firstLine: number): BlockError | null {
+function netlistRefusal(netlist: string, firstLine: number, models?: ModelTexts): BlockError | null {
   if (!netlist.trim()) return null;
   try {
-    sanitizeNetlist(netlist, defaultModelsDir());
+    sanitizeNetlist(netlist, { modelsDir: defaultModelsDir(), models });
     return null;
   } catch (e) {
     const line = (e as { line?: number }).line;

@@ -6,7 +6,7 @@ import { evaluateBlock } from "./evaluate-block";
 import { nominalValues, noSimulation, prepare, scopeFor } from "./prepare";
 import type { Report } from "./types";
 
-export type RetuneRequest = { param: string; target: { quantity: string; value: string }; series: string };
+export type RetuneRequest = { param: string; target: { quantity: string; value: string }; series: string; models?: Record<string, string> };
 
 /**
  * Solve quantity(param) = target with a bracketed root finder (bisection on a log scale,
@@ -68,6 +68,6 @@ export function retuneBlock(text: string, req: RetuneRequest): { value: string; 
   const snappedSi = eseries(solved, req.series);
   const value = formatQuantity(solved, spec.unit);
   const snapped = formatQuantity(snappedSi, spec.unit, 3);
-  const report = evaluateBlock(withParams(text, { [spec.name]: snapped })).report;
+  const report = evaluateBlock(withParams(text, { [spec.name]: snapped }), { models: req.models }).report;
   return { value, snapped, report };
 }

@@ -38,7 +38,7 @@ export type Report = {
   status: "verified" | "failing" | "error" | "unchecked";
   quantities: Record<string, Quantity>;
   checks: CheckReport[];
-  simulations: { analysis: string; points: number; ms: number; cached?: boolean; corner?: Record<string, string> | null; sample?: number }[];
+  simulations: { analysis: string; card?: string; points: number; ms: number; cached?: boolean; corner?: Record<string, string> | null; sample?: number }[];
   errors: BlockError[];
   /** Tolerance parameters and how simulated checks visited them; Monte Carlo settings when asked for. */
   tolerance?: { parameters: number; simulated: Method; plain: Method; montecarlo?: { samples: number; target?: number; interval: string } };

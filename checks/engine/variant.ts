@@ -13,6 +13,7 @@ export type Known = { ok: true; result: SimResult; ms: number; cached: boolean }
 
 /** The simulator-facing side a variant needs: requests from inputs, measures and plots of results. */
 export type SimSide = {
+  /** The deck for one simulation; the side carries the model files the block's includes resolve to. */
   request: (input: { title: string; circuit: string; params: Record<string, number>; analysis: Analysis }) => SimRequest;
   measure: (name: string, result: SimResult, node: string, args: (number | string)[]) => number;
   waveform: (result: SimResult, nodes: string[]) => Waveform | null;

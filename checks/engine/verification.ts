@@ -6,6 +6,7 @@ import type { CheckOutcome } from "../script/evaluate";
 import { toQuantity } from "../units";
 import type { SimOutcome, SimRequest } from "./executor";
 import { paramDeps } from "./script-facts";
+import { analysisLine } from "../spice/deck";
 import { runVariant, type Known, type SimSide, type SimUse, type VariantRun } from "./variant";
 
 /** Simulated checks visit all 2^k corners when that costs at most the sensitivity pass twice over (k ≤ 3). */
@@ -39,7 +40,7 @@ export class Verification {
   readonly known = new Map<string, Known>();
   readonly done = new Map<string, Done>();
   /** What each simulation run was, for the report's list (results themselves are dropped when done with). */
-  readonly meta = new Map<string, { analysis: string; points: number; ms: number; cached?: boolean; error?: string }>();
+  readonly meta = new Map<string, { analysis: string; card: string; points: number; ms: number; cached?: boolean; error?: string }>();
   private samples: Corner[] = [];
   private names: string[] = [];
   /** Simulation requests of the nominal variant's first pass: the per-variant cost for the plan. */
@@ -122,7 +123,8 @@ export class Verification {
         k = { ok: false, error: (e as Error).message };
       }
       this.known.set(o.key, k);
-      this.meta.set(o.key, { analysis: reqs[i].analysis.kind, points: k.ok ? k.result.points : 0, ms: o.ms, ...(o.ok ? { cached: o.cached } : { error: o.error }) });
+      // The card lets a deck for other tools run the same analyses (`?format=spice`).
+      this.meta.set(o.key, { analysis: reqs[i].analysis.kind, card: analysisLine(reqs[i].analysis), points: k.ok ? k.result.points : 0, ms: o.ms, ...(o.ok ? { cached: o.cached } : { error: o.error }) });
     });
   }
 

@@ -5,6 +5,7 @@ import { runCapFromEnv, type RunCap } from "../engine/plan";
 import type { Report, Waveform } from "../engine/types";
 import { reportStatus } from "../engine/status";
 import { previewLane, verifyLane } from "./client";
+import type { ModelTexts } from "../spice/sanitize";
 
 const PREVIEW_TIMEOUT_MS = 3_000;
 const VERIFY_TIMEOUT_MS = 120_000;
@@ -37,6 +38,8 @@ export type VerifyOptions = {
   onProgress?: RunProgress;
   /** Default: ASSAY_RUN_MAX_SIMULATIONS / ASSAY_RUN_MAX_SIM_SECONDS of this process. */
   cap?: RunCap;
+  /** Model files `.include` names, resolved by the caller for the block's team (team first, then shared). */
+  models?: ModelTexts;
 };
 
 /** Full verification in the sandbox child. Never throws for bad input: errors go in the report. */
@@ -48,8 +51,8 @@ export async function verifyBlock(text: string, opts: VerifyOptions = {}): Promi
 }
 
 /** Live preview: quantities and every non-simulated check with its tolerance corners; no simulation. */
-export async function previewBlock(text: string, params?: Record<string, string>): Promise<Report> {
-  const reply = await previewLane.request("preview", String(text ?? ""), { params }, PREVIEW_TIMEOUT_MS);
+export async function previewBlock(text: string, params?: Record<string, string>, models?: ModelTexts): Promise<Report> {
+  const reply = await previewLane.request("preview", String(text ?? ""), { params, models }, PREVIEW_TIMEOUT_MS);
   if (!reply.ok) return errorReport(text, reply.error ?? "the preview failed");
   return reply.value as Report;
 }
@@ -57,7 +60,7 @@ export async function previewBlock(text: string, params?: Record<string, string>
 /** Retune assistant: solve for `param` so that `target.quantity` reaches `target.value`, then snap to `series`. */
 export async function retune(
   text: string,
-  req: { param: string; target: { quantity: string; value: string }; series: string },
+  req: { param: string; target: { quantity: string; value: string }; series: string; models?: ModelTexts },
 ): Promise<{ value: string; snapped: string; report: Report }> {
   const reply = await previewLane.request("retune", String(text ?? ""), req, PREVIEW_TIMEOUT_MS * 3);
   if (!reply.ok) throw new Error(reply.error ?? "the retune failed");

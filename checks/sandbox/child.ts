@@ -5,13 +5,13 @@ import type { SimExecutor, SimOutcome } from "../engine/executor";
 import type { RunCap } from "../engine/plan";
 import type { SimSide } from "../engine/variant";
 import { retuneBlock } from "../engine/retune";
+import type { ModelTexts } from "../spice/sanitize";
 
 type Request = { id: number; op: "verify" | "preview" | "retune"; text: string; opts?: Record<string, unknown> };
 type Outcomes = { kind: "outcomes"; call: number; outcomes?: SimOutcome[]; error?: string };
 
-// Loaded on first use so previews never pay for the simulator side.
-let side: SimSide | undefined;
-const simulator = () => (side ??= (require("./sim-side") as typeof import("./sim-side")).simSide());
+// Loaded on first use so previews never pay for the simulator side; one per request, as it carries the block's models.
+const simulator = (models?: ModelTexts): SimSide => (require("./sim-side") as typeof import("./sim-side")).simSide(models);
 const local = (cacheDir?: string): SimExecutor =>
   (require("../spice/local-executor") as typeof import("../spice/local-executor")).localExecutor({ cacheDir });
 
@@ -29,16 +29,17 @@ const remote = (id: number): SimExecutor => ({
 
 async function handle(req: Request): Promise<unknown> {
   const opts = req.opts ?? {};
+  const models = opts.models as ModelTexts | undefined;
   switch (req.op) {
     case "verify": {
       const params = opts.params as Record<string, string> | undefined;
-      if (opts.simulate === false) return evaluateBlock(req.text, { params });
+      if (opts.simulate === false) return evaluateBlock(req.text, { params, models });
       const executor = opts.remote ? remote(req.id) : local(opts.cacheDir as string | undefined);
       const progress = (done: number, total: number) => process.send!({ id: req.id, kind: "progress", done, total });
-      return evaluateBlockAsync(req.text, { simulate: true, params, executor, side: simulator(), progress, cap: opts.cap as RunCap | undefined });
+      return evaluateBlockAsync(req.text, { simulate: true, params, executor, side: simulator(models), progress, cap: opts.cap as RunCap | undefined, models });
     }
     case "preview":
-      return evaluateBlock(req.text, { params: opts.params as Record<string, string> }).report;
+      return evaluateBlock(req.text, { params: opts.params as Record<string, string>, models }).report;
     case "retune":
       return retuneBlock(req.text, opts as never);
   }

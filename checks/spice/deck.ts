@@ -1,4 +1,4 @@
-import { sanitizeNetlist } from "./sanitize";
+import { sanitizeNetlist, type Includes } from "./sanitize";
 import { SpiceError, type Analysis, type SimRequest } from "./types";
 import { dcCard, noiseCard, tfCard } from "./cards";
 import { defaultModelsDir } from "./paths";
@@ -39,19 +39,21 @@ export function circuitOffset(req: SimRequest): number {
 }
 
 /** DESIGN.md deck: title line, .param lines in SI numbers, the circuit, the analysis line, .end. */
-export function writeDeck(req: SimRequest, modelsDir = defaultModelsDir()): string {
+export function writeDeck(req: SimRequest, where: string | Includes = defaultModelsDir()): string {
   const title = req.title.replace(/[\r\n]+/g, " ").trim() || "untitled block";
   const params = Object.entries(req.params).map(([name, value]) => {
     if (!IDENT.test(name)) throw new SpiceError(`parameter name "${name}" is not an identifier`);
     if (!Number.isFinite(value)) throw new SpiceError(`parameter ${name} is not a finite number (${value})`);
     return `.param ${name}=${num(value)}`;
   });
-  const circuit = sanitizeNetlist(req.circuit, modelsDir);
+  // Team model files travel in the deck, after the circuit, so the circuit keeps its line numbers.
+  const includes: Includes = typeof where === "string" ? { modelsDir: where, models: req.models, appended: [] } : { ...where, models: req.models ?? where.models, appended: [] };
+  const circuit = sanitizeNetlist(req.circuit, includes);
   const temp = req.analysis.temp;
   if (temp !== undefined && !(Number.isFinite(temp) && temp > -273.15)) throw new SpiceError(`temperature ${temp} °C is below absolute zero`);
   // A member of a temperature sweep: the engine's own .temp line, after the circuit's (the last one counts).
   const tempLine = temp !== undefined ? [`.temp ${num(temp)}`] : [];
-  return [title, ...params, circuit, ...tempLine, analysisLine(req.analysis), ".end", ""].join("\n");
+  return [title, ...params, circuit, ...includes.appended!, ...tempLine, analysisLine(req.analysis), ".end", ""].join("\n");
 }
 
 // Shortest round-trip form; ngspice reads "2.2e-08" and "1e+21" as plain numbers.

@@ -4,19 +4,20 @@ import { defaultCacheDir, defaultModelsDir } from "./paths";
 import { parseRawFile, type RawPlot } from "./raw-file";
 import { runNgspice } from "./run-ngspice";
 import { sweepScale } from "./cards";
+import type { Includes } from "./sanitize";
 import { SpiceError, type Analysis, type ComplexVector, type SimOptions, type SimRequest, type SimResult } from "./types";
 import { SPICE_RUNNER_VERSION, ngspiceVersion } from "./version";
 import { ENGINE_VERSION } from "../version";
 
 export { SpiceError, ngspiceVersion, parseRawFile, defaultCacheDir, defaultModelsDir };
-export { sanitizeNetlist } from "./sanitize";
+export { MODEL_FILE, sanitizeModelFile, sanitizeNetlist, type Includes, type ModelTexts } from "./sanitize";
 export { MAX_AC_POINTS, MAX_TRAN_POINTS } from "./deck";
 export type { Analysis, ComplexVector, SimOptions, SimRequest, SimResult } from "./types";
 export type { RawPlot, RawVariable } from "./raw-file";
 
 /** The full ngspice deck for a request (sanitised; throws SpiceError naming the circuit line). */
-export function writeDeck(req: SimRequest, modelsDir?: string): string {
-  return deckFor(req, modelsDir ?? defaultModelsDir());
+export function writeDeck(req: SimRequest, where?: string | Includes): string {
+  return deckFor(req, where ?? defaultModelsDir());
 }
 
 /**
@@ -24,11 +25,11 @@ export function writeDeck(req: SimRequest, modelsDir?: string): string {
  * or none when the content-addressed cache already holds the raw file.
  */
 export function simulate(req: SimRequest, opts: SimOptions = {}): SimResult {
+  const dir = opts.cacheDir ?? defaultCacheDir();
   const deck = writeDeck(req, opts.modelsDir); // refusals come before anything runs
   const version = ngspiceVersion(); // once per process, outside the timed part
   const t0 = performance.now();
   const key = cacheKey(deck, version, `${opts.engineVersion ?? ENGINE_VERSION}/${SPICE_RUNNER_VERSION}`);
-  const dir = opts.cacheDir ?? defaultCacheDir();
   const hit = opts.noCache ? null : readCached(dir, key);
   const raw = hit ?? runNgspice(deck, { timeoutMs: opts.timeoutMs, circuitOffset: circuitOffset(req), circuit: req.circuit }).raw;
   const result = toResult(req.analysis, parseRawFile(raw));

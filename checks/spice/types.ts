@@ -18,6 +18,7 @@ export type SimRequest = {
   circuit: string;                 // the block's ```spice fence, lines counted from 1
   params: Record<string, number>;  // SI numbers, written as .param lines
   analysis: Analysis;
+  models?: Record<string, string>; // model files the caller resolved (team first), by include name; before the shared folder
 };
 
 export type SimOptions = {

@@ -13,7 +13,7 @@ export function BlockEditor({ slug, baseVersion, initialText, readOnly }: { slug
   const [state, action, pending] = useActionState(saveEditAction, {});
   const gutter = useRef<HTMLDivElement>(null);
   const draft = useDebounced(text, 400);
-  const check = useQuery({ queryKey: ["draft-check", slug, draft], queryFn: () => checkDraftAction(draft), placeholderData: keepPreviousData });
+  const check = useQuery({ queryKey: ["draft-check", slug, draft], queryFn: () => checkDraftAction(draft, slug), placeholderData: keepPreviousData });
   const errors = check.data?.errors ?? [];
   const byLine = new Map<number, string[]>();
   for (const e of errors) if (e.line) byLine.set(e.line, [...(byLine.get(e.line) ?? []), e.message]);

@@ -4,22 +4,24 @@ import { redirect } from "next/navigation";
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
 import { slugSchema } from "@/lib/validation/api";
-import { parseBlock, previewBlock, type BlockError } from "@/checks";
+import { parseBlock, type BlockError } from "@/checks";
 import { getCaller } from "@/lib/auth/session";
 import { addVersion } from "@/lib/blocks/versions";
+import { previewDraftFile } from "@/lib/runs/preview";
 import { isAppError } from "@/lib/errors";
 import { failure, type FormState } from "@/lib/actions/form-state";
 
 const MAX_FILE = 256 * 1024;
 
 /** The engine's word on a draft file, with line numbers: parse errors first, else the preview's errors and checks. */
-export async function checkDraftAction(text: string): Promise<{ errors: BlockError[]; failing: string[] }> {
+export async function checkDraftAction(text: string, slug: string): Promise<{ errors: BlockError[]; failing: string[] }> {
   const caller = await getCaller();
   if (!caller.user) return { errors: [{ message: "sign in to check a draft" }], failing: [] };
   const draft = String(text ?? "").slice(0, MAX_FILE);
   const { errors } = parseBlock(draft);
   if (errors.length) return { errors, failing: [] };
-  const report = await previewBlock(draft);
+  // The block's team decides which model files its includes name.
+  const report = await previewDraftFile(caller, String(slug ?? ""), draft);
   return {
     errors: [...report.errors, ...report.checks.filter((c) => c.status === "error").map((c) => ({ message: `${c.label}: ${c.detail}`, line: c.line }))],
     failing: report.checks.filter((c) => c.status === "fail").map((c) => c.label),

@@ -1,6 +1,6 @@
 import "server-only";
 import type { Ctx } from "@/lib/context";
-import { deckOrThrow } from "@/lib/blocks/common";
+import { spiceDeckText } from "@/lib/blocks/deck";
 import { getBlock, getBlockWithLineage } from "@/lib/blocks/read";
 import { toBlockJson } from "./block-json";
 import { immutableHeaders, revalidateHeaders } from "./cache";
@@ -32,9 +32,10 @@ export async function blockResponse(req: Request, ctx: Ctx, slug: string, versio
       ...cache,
     });
   }
-  return conditional(req, deckOrThrow(view.text), {
+  // The deck inlines the model versions and analyses of the latest run, which a reverify changes: revalidate it.
+  return conditional(req, await spiceDeckText(ctx, { slug, version }), {
     "Content-Type": "text/plain; charset=utf-8",
     "Content-Disposition": `attachment; filename="${name}.cir"`,
-    ...cache,
+    ...revalidateHeaders(view.visibility),
   });
 }

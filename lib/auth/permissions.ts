@@ -11,7 +11,9 @@ export type Action =
   | "version.approve"
   | "review.request"
   | "team.manage"
-  | "token.manage";
+  | "token.manage"
+  | "model.read"
+  | "model.upload";
 
 export interface BlockResource {
   kind: "block";
@@ -38,9 +40,11 @@ const needs: Record<Action, Role> = {
   "review.request": "author",
   "team.manage": "admin",
   "token.manage": "admin",
+  "model.read": "viewer",
+  "model.upload": "author",
 };
 
-const readOnly = new Set<Action>(["block.read"]);
+const readOnly = new Set<Action>(["block.read", "model.read"]);
 
 /** The caller's effective role in a team: membership role, capped to viewer by a read token. */
 export function roleIn(caller: Caller, teamId: number): Role | null {

@@ -9,6 +9,7 @@ import { AppError } from "@/lib/errors";
 import type { ForkInput } from "@/lib/validation/blocks";
 import { engineInputError, loadBlock, loadVersion, parseOrThrow, requireUser } from "./common";
 import { storeVersion, type StoredResult } from "./store";
+import { assertModelsAvailable } from "@/lib/models/resolve";
 
 export type { ForkInput };
 
@@ -19,6 +20,8 @@ export async function forkBlock({ em, caller }: Ctx, input: ForkInput): Promise<
   const from = await loadVersion(em, source, input.fromVersion);
   const team = await targetTeam(em, caller, source.team, input.team);
   assertCan(caller, "block.fork", { kind: "team", teamId: team.id });
+  // A fork into a team without the source's model files would only fail its run: say which file is missing now.
+  if (team.id !== source.team.id) await assertModelsAvailable(em, team.id, team.slug, parseOrThrow(from.text));
   const fileFor = (newSlug: string) => {
     let text: string;
     try {

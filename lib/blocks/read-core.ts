@@ -1,7 +1,7 @@
 import { createHash } from "node:crypto";
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { parseBlock } from "@/checks";
-import type { StoredParam } from "@/entities";
+import type { RunModel, StoredParam } from "@/entities";
 import type { Caller } from "@/lib/auth/caller";
 import { assertCan, can } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/errors";
@@ -25,7 +25,7 @@ export interface ReadCore {
   parent: { slug: string; version: number; title: string; headNumber: number | null } | null;
   badge: Badge;
   approved: boolean;
-  run: { id: string; status: string; report: Record<string, unknown> | null; reportDigest: string | null } | null;
+  run: { id: string; status: string; report: Record<string, unknown> | null; reportDigest: string | null; models: RunModel[] | null } | null;
   forks: { slug: string; title: string; fromVersion: number }[] | null;
 }
 
@@ -53,7 +53,7 @@ select b.id, b.slug, b.title, b.summary, b.category, b.tags, b.hazard, b.visibil
 // Latest run and latest decision by the one rule each (lib/runs/latest-run.ts, lib/reviews/latest-decision.ts).
 // Forks: unarchived children, oldest first.
 const detailSql = (withForks: boolean) => `
-select (select row_to_json(lr) from (${latestRunOfSql("id, status, report, engine_version, model_library_hash, md5(report::text) as report_md5", "?")}) lr) as run,
+select (select row_to_json(lr) from (${latestRunOfSql("id, status, report, engine_version, model_library_hash, models_outdated, models, md5(report::text) as report_md5", "?")}) lr) as run,
        (${latestDecisionOfSql("?")}) as decision,
        ${withForks ? `(select coalesce(json_agg(json_build_object('slug', c.slug, 'title', c.title, 'fromVersion', fv.number,
                  'teamId', c.team_id, 'visibility', c.visibility) order by c.created_at, c.id), '[]'::json)
@@ -81,7 +81,7 @@ export async function readCore(em: EntityManager, caller: Caller, slug: string, 
   }
   const [d] = await exec(em, detailSql(withForks), withForks ? [b.v_id, b.v_id, b.id] : [b.v_id, b.v_id]);
   const r = d.run as Row | null;
-  const run = r ? { id: String(r.id), status: String(r.status), report: (r.report ?? null) as Record<string, unknown> | null, reportDigest: (r.report_md5 ?? null) as string | null } : null;
+  const run = r ? { id: String(r.id), status: String(r.status), report: (r.report ?? null) as Record<string, unknown> | null, reportDigest: (r.report_md5 ?? null) as string | null, models: (r.models ?? null) as RunModel[] | null } : null;
   // The parent of a public fork may be a team block: name it only to those who may read it.
   const parent = b.p_slug && readable(caller, b.p_team_id as number, b.p_visibility as string)
     ? { slug: String(b.p_slug), version: Number(b.p_number), title: String(b.p_title), headNumber: b.p_head_number === null ? null : Number(b.p_head_number) }
@@ -102,7 +102,7 @@ export async function readCore(em: EntityManager, caller: Caller, slug: string, 
       message: String(b.v_message), createdAt: new Date(b.v_created_at as Date), author: String(b.v_author),
     },
     parent,
-    badge: badgeOfRun(r ? { status: r.status, report: r.report, engineVersion: r.engine_version, modelLibraryHash: r.model_library_hash } as never : null, currentStamp()),
+    badge: badgeOfRun(r ? { status: r.status, report: r.report, engineVersion: r.engine_version, modelLibraryHash: r.model_library_hash, modelsOutdated: r.models_outdated } as never : null, currentStamp()),
     approved: d.decision === "approved",
     run,
     forks,

@@ -1,10 +1,10 @@
 import type { EntityManager } from "@mikro-orm/postgresql";
-import { BlockVersionSchema } from "@/entities";
+import { BlockVersionSchema, type RunModel } from "@/entities";
 import type { Ctx } from "@/lib/context";
 import type { BlockInput, BlockVersionInput } from "@/lib/validation/blocks";
 import { approvedVersionIds } from "@/lib/reviews/approval";
 import { badgesFor, type Badge } from "@/lib/runs/badge";
-import { deckOrThrow, loadBlock } from "./common";
+import { loadBlock } from "./common";
 import { blockValidator, readCore, versionFile, type ReadCore } from "./read-core";
 
 export interface BlockView {
@@ -15,6 +15,8 @@ export interface BlockView {
   forkedFrom: { slug: string; version: number; title: string } | null; createdAt: string; author: string;
   hazard: string[]; contentHash: string; headVersion: number; archived: boolean; note: string; text: string;
   message: string; runId: string | null; runStatus: string | null;
+  /** The model files the latest run simulated with (null before team models were recorded). */
+  models: RunModel[] | null;
 }
 
 export interface Lineage {
@@ -55,6 +57,7 @@ export async function viewOf(em: EntityManager, core: ReadCore): Promise<BlockVi
     message: v.message,
     runId: run?.id ?? null,
     runStatus: run?.status ?? null,
+    models: run?.models ?? null,
   };
 }
 
@@ -111,7 +114,5 @@ export async function blockFileText({ em, caller }: Ctx, input: BlockVersionInpu
   return (await versionFile(em, core.version.id, core.version.contentHash)).text;
 }
 
-/** A runnable deck: title, .param lines, the circuit (the engine writes it). */
-export async function spiceDeckText(ctx: Ctx, input: BlockVersionInput): Promise<string> {
-  return deckOrThrow(await blockFileText(ctx, input));
-}
+// The runnable deck inlines model files, so it lives with the model resolution.
+export { spiceDeckText } from "./deck";

@@ -1,5 +1,6 @@
 import { OpenAPIRegistry, OpenApiGeneratorV31 } from "@asteasolutions/zod-to-openapi";
 import { registerBlockPaths } from "./paths-blocks";
+import { registerModelPaths } from "./paths-models";
 import { registerRunPaths } from "./paths-runs";
 
 function buildRegistry(): OpenAPIRegistry {
@@ -17,6 +18,7 @@ function buildRegistry(): OpenAPIRegistry {
   });
   registerBlockPaths(r);
   registerRunPaths(r);
+  registerModelPaths(r);
   return r;
 }
 
@@ -40,6 +42,7 @@ export function openApiDocument() {
       { name: "blocks", description: "Blocks and their head versions" },
       { name: "versions", description: "Immutable versions" },
       { name: "checks", description: "Check runs, evaluation and retuning" },
+      { name: "models", description: "Team and shared model files that blocks include" },
       { name: "service", description: "Health and this description" },
     ],
   });

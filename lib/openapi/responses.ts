@@ -135,6 +135,9 @@ export const runSchema = z.object({
     total: z.number().int().min(0).meta({ description: "Simulations the run needs, as far as the engine has planned them; it may grow while the run is in progress" }),
   }).meta({ description: "How far the run's simulations have come; done equals total once the run is done", example: { done: 12, total: 40 } }),
   error: z.string().nullable().meta({ description: "Why the run ended as error, or why an earlier attempt was retried" }),
+  models: z.array(z.object({
+    name: z.string(), sha256: z.string(), source: z.enum(["team", "shared"]), version: z.number().int().nullable(),
+  })).nullable().optional().meta({ description: "The model files the run simulated with (team files by version, shared files by sha256)" }),
   createdAt: z.iso.datetime(),
   finishedAt: z.iso.datetime().nullable(),
 }).openapi("Run");

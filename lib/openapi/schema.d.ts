@@ -167,6 +167,63 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/api/v1/models": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** The team's model files (every team of a signed-in user; a token's own team by default) and the shared library */
+        get: operations["listModels"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/v1/models/{team}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Upload a model file: a new immutable version (authors and above)
+         * @description Checked like a netlist before anything is stored (no .control, shell, analyses, includes outside the library, file-reading code models); a refusal is a 422 whose `errors` carry the file's line. Heads of the team's blocks that include the file turn stale and are queued for verification; `reverify` lists them. The same text as the newest version is a 409.
+         */
+        post: operations["uploadModel"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/v1/models/{team}/{name}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * One model file: the newest version's text, its versions and the blocks that include it; `?version=n` gives one immutable version
+         * @description Without `version`: Cache-Control no-cache and an ETag over the body (its users' badges change). With `version`: that version alone, cached for a year. Team `shared` is the shared model library, readable by anyone.
+         */
+        get: operations["getModel"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/api/v1/openapi.json": {
         parameters: {
             query?: never;
@@ -306,6 +363,71 @@ export interface components {
             /** @description Versions the parent gained since the fork */
             parentNewerVersions: number;
         };
+        ModelFile: components["schemas"]["ModelSummary"] & {
+            /** @description The newest version's number */
+            head: number;
+            text: string;
+            /** @description Heads of blocks the caller may read that include the file, with their badges */
+            usedBy: {
+                badge: string;
+                slug: string;
+                team: string;
+                title: string;
+                version: number;
+            }[];
+            versions: {
+                author: string;
+                createdAt: string;
+                message: string;
+                number: number;
+                sha256: string;
+            }[];
+        };
+        ModelSummary: {
+            /** @description The .subckt and .model names the file defines */
+            defines: {
+                /** @enum {string} */
+                kind: "subckt" | "model";
+                name: string;
+                type?: string;
+            }[];
+            name: string;
+            sha256: string;
+            /** @description Team slug, or `shared` */
+            team: string;
+            updatedAt: string | null;
+            version: number;
+        };
+        ModelUpload: {
+            name: string;
+            /** @description Heads that use the file: now stale and queued for verification */
+            reverify: {
+                slug: string;
+                version: number;
+            }[];
+            sha256: string;
+            team: string;
+            version: number;
+        };
+        /** @description One immutable version */
+        ModelVersion: {
+            author: string;
+            createdAt: string;
+            /** @description The .subckt and .model names the file defines */
+            defines: {
+                /** @enum {string} */
+                kind: "subckt" | "model";
+                name: string;
+                type?: string;
+            }[];
+            message: string;
+            name: string;
+            sha256: string;
+            /** @description Team slug, or `shared` */
+            team: string;
+            text: string;
+            version: number;
+        };
         Param: {
             name: string;
             note: string | null;
@@ -415,6 +537,14 @@ export interface components {
             finishedAt: string | null;
             /** Format: uuid */
             id: string;
+            /** @description The model files the run simulated with (team files by version, shared files by sha256) */
+            models?: {
+                name: string;
+                sha256: string;
+                /** @enum {string} */
+                source: "team" | "shared";
+                version: number | null;
+            }[] | null;
             /**
              * @description How far the run's simulations have come; done equals total once the run is done
              * @example {
@@ -1360,6 +1490,225 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content?: never;
+            };
+        };
+    };
+    listModels: {
+        parameters: {
+            query?: {
+                /** @description Team slug, or `shared` for the shared model library */
+                team?: string;
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Each file's newest version */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": {
+                        items: components["schemas"]["ModelSummary"][];
+                    };
+                };
+            };
+            /** @description Sign-in or a valid token is required (or the token is malformed, revoked or expired) */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such resource, or a team block outside the caller's teams */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The request did not validate; `errors` lists the issues */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    uploadModel: {
+        parameters: {
+            query?: {
+                /** @description What changed */
+                message?: string;
+                /** @description File name when the body is text/plain (multipart takes the file's own name) */
+                name?: string;
+            };
+            header?: never;
+            path: {
+                /** @description Team slug, or `shared` for the shared model library */
+                team: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "multipart/form-data": {
+                    /**
+                     * Format: binary
+                     * @description The model file, named by its file name
+                     */
+                    file: string;
+                };
+                "text/plain": string;
+            };
+        };
+        responses: {
+            /** @description The new version */
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ModelUpload"];
+                };
+            };
+            /** @description Sign-in or a valid token is required (or the token is malformed, revoked or expired) */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller's role or token scope does not allow this */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such resource, or a team block outside the caller's teams */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Conflict; on a stale base the body carries the current `head` */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than allowed */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unsupported Content-Type */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The request did not validate; `errors` lists the issues */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    getModel: {
+        parameters: {
+            query?: {
+                /** @description Version number, counted from 1 */
+                version?: number;
+            };
+            header?: never;
+            path: {
+                /** @description Model file name as `.include` uses it */
+                name: string;
+                /** @description Team slug, or `shared` for the shared model library */
+                team: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The file (head), or one version */
+            200: {
+                headers: {
+                    "Cache-Control": string;
+                    /** @description Strong validator: changes whenever the body would */
+                    ETag: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ModelFile"] | components["schemas"]["ModelVersion"];
+                };
+            };
+            /** @description If-None-Match matched the ETag */
+            304: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            /** @description Sign-in or a valid token is required (or the token is malformed, revoked or expired) */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such resource, or a team block outside the caller's teams */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The request did not validate; `errors` lists the issues */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
             };
         };
     };

@@ -14,7 +14,7 @@ export interface EngineStamp {
 }
 export const currentStamp = (): EngineStamp => ({ engineVersion: ENGINE_VERSION, modelLibraryHash: modelLibraryHash() });
 
-export type RunLike = Pick<CheckRun, "status" | "report" | "engineVersion" | "modelLibraryHash">;
+export type RunLike = Pick<CheckRun, "status" | "report" | "engineVersion" | "modelLibraryHash"> & { modelsOutdated?: boolean | null };
 
 /**
  * A version's badge from its latest run. No run, or a script without any check: unchecked.
@@ -26,7 +26,7 @@ export function badgeOfRun(run: RunLike | null | undefined, stamp: EngineStamp =
   if (run.status === "error") return "error";
   const status = (run.report as { status?: string } | null)?.status;
   if (status === "unchecked") return "unchecked";
-  if (run.engineVersion !== stamp.engineVersion || run.modelLibraryHash !== stamp.modelLibraryHash) return "stale";
+  if (run.engineVersion !== stamp.engineVersion || run.modelLibraryHash !== stamp.modelLibraryHash || run.modelsOutdated) return "stale";
   if (status === "verified" || status === "failing" || status === "error") return status;
   return "error";
 }
@@ -38,6 +38,7 @@ export interface LatestRun {
   report: CheckRun["report"];
   engineVersion: string | null;
   modelLibraryHash: string | null;
+  modelsOutdated: boolean;
   finishedAt: Date | null;
   createdAt: Date;
 }
@@ -47,14 +48,14 @@ export async function latestRuns(em: EntityManager, versionIds: number[]): Promi
   const out = new Map<number, LatestRun>();
   if (versionIds.length === 0) return out;
   const rows = await em.getConnection().execute<Record<string, never>[]>(
-    latestRunsSql("id, status, report, engine_version, model_library_hash, finished_at, created_at", versionIds.map(() => "?").join(",")),
+    latestRunsSql("id, status, report, engine_version, model_library_hash, models_outdated, finished_at, created_at", versionIds.map(() => "?").join(",")),
     versionIds, "all", em.getTransactionContext(),
   );
   for (const r of rows as Record<string, unknown>[]) {
     out.set(Number(r.version_id), {
       id: String(r.id), versionId: Number(r.version_id), status: r.status as CheckRun["status"],
       report: (r.report ?? null) as CheckRun["report"], engineVersion: (r.engine_version ?? null) as string | null,
-      modelLibraryHash: (r.model_library_hash ?? null) as string | null,
+      modelLibraryHash: (r.model_library_hash ?? null) as string | null, modelsOutdated: Boolean(r.models_outdated),
       finishedAt: (r.finished_at ?? null) as Date | null, createdAt: r.created_at as Date,
     });
   }

@@ -1,7 +1,9 @@
 import { ngspiceVersion, runCapFromEnv, verifyBlock } from "@/checks";
 import { getEm } from "@/lib/db/orm";
+import { modelsChangedSince, resolveForVersion, runModels } from "@/lib/models/resolve";
 import { currentStamp } from "./badge";
 import { claimRun, completeRun, failAttempt, LEASE_SECONDS, recordProgress, renewLease } from "./lease";
+import { enqueueStaleHeads } from "./reverify";
 import { queueExecutor } from "./sim-executor";
 import { simulating } from "./sim-worker";
 
@@ -32,19 +34,24 @@ export async function processNext(workerId: string, opts: Progress = {}): Promis
     const stamp = currentStamp();
     const ngspice = ngspiceVersion();
     const t0 = performance.now();
+    // The team's model files as they are now; the run records exactly which versions it simulated with.
+    const models = await resolveForVersion(em, claimed.versionId, claimed.text);
     const { report, waveforms } = await withGuard(verifyBlock(claimed.text, {
-      timeoutMs: RUN_TIMEOUT_MS, executor, onProgress: progress.update, cap: runCapFromEnv(),
+      timeoutMs: RUN_TIMEOUT_MS, executor, onProgress: progress.update, cap: runCapFromEnv(), models: models.texts,
     }), RUN_TIMEOUT_MS + 15_000);
     await progress.flush();
     if (lost) return { outcome: "lost", runId: claimed.id };
     if (executor.failure) throw executor.failure;
     const crash = infrastructureFailure(report);
     if (crash) throw new Error(crash);
+    // An upload while this run was simulating: the result is stored as stale and the heads are queued again.
+    const outdated = await modelsChangedSince(em, claimed.versionId, claimed.text, runModels(models));
     const ok = await completeRun(em, claimed.id, workerId, {
       report: report as unknown as Record<string, unknown>, waveforms, engineVersion: stamp.engineVersion,
-      ngspiceVersion: ngspice, modelLibraryHash: stamp.modelLibraryHash, durationMs: performance.now() - t0,
-      simulations: progress.last?.total ?? report.simulations?.length ?? 0,
+      ngspiceVersion: ngspice, modelLibraryHash: stamp.modelLibraryHash, models: runModels(models), modelsOutdated: outdated,
+      durationMs: performance.now() - t0, simulations: progress.last?.total ?? report.simulations?.length ?? 0,
     });
+    if (ok && outdated) await enqueueStaleHeads(em);
     return { outcome: ok ? "done" : "lost", runId: claimed.id };
   } catch (err) {
     const reason = `attempt ${claimed.attempts} failed: ${(err as Error)?.message ?? String(err)}`;

@@ -1,5 +1,5 @@
 import type { EntityManager } from "@mikro-orm/postgresql";
-import type { RunTrigger } from "@/entities";
+import type { RunModel, RunTrigger } from "@/entities";
 import { boss, inTransaction, startedBoss, VERIFY_QUEUE } from "@/lib/queue/boss";
 import { finishedEvent } from "./finished-event";
 import { MAX_ATTEMPTS, verifyJobOptions } from "./job-options";
@@ -63,6 +63,8 @@ export interface RunResult {
   engineVersion: string;
   ngspiceVersion: string;
   modelLibraryHash: string;
+  models: RunModel[];
+  modelsOutdated: boolean;
   durationMs: number;
   /** Simulations the run took, cache hits included: done and total of its progress once it is done. */
   simulations: number;
@@ -81,11 +83,11 @@ export async function completeRun(em: EntityManager, runId: string, workerId: st
   return em.transactional(async (tx) => {
     const rows = await exec<{ job_id: string | null }[]>(tx,
       `update check_runs set status = 'done', report = ?, waveforms = ?, engine_version = ?, ngspice_version = ?,
-              model_library_hash = ?, duration_ms = ?, finished_at = now(), leased_by = null, lease_until = null, error = null,
-              progress_done = ?, progress_total = ?
+              model_library_hash = ?, models = ?, models_outdated = ?, duration_ms = ?, finished_at = now(), leased_by = null,
+              lease_until = null, error = null, progress_done = ?, progress_total = ?
         where id = ? and leased_by = ? and status = 'running' returning job_id`,
       [JSON.stringify(r.report), JSON.stringify(r.waveforms), r.engineVersion, r.ngspiceVersion, r.modelLibraryHash,
-        Math.round(r.durationMs), r.simulations, r.simulations, runId, workerId]);
+        JSON.stringify(r.models), r.modelsOutdated, Math.round(r.durationMs), r.simulations, r.simulations, runId, workerId]);
     if (rows.length === 0) return false;
     if (rows[0].job_id) await boss().complete(VERIFY_QUEUE, rows[0].job_id, { runId }, { db: inTransaction(tx) });
     await finishedEvent(tx, runId);

@@ -1,14 +1,17 @@
-import { previewBlock, retune, verifyBlock, withParams, type Report } from "@/checks";
+import { parseBlock, previewBlock, retune, verifyBlock, withParams, type ModelTexts, type Report } from "@/checks";
+import { resolveModels } from "@/lib/models/resolve";
 import type { Caller } from "@/lib/auth/caller";
 import { loadBlock } from "@/lib/blocks/common";
 import { getEm } from "@/lib/db/orm";
 import { AppError } from "@/lib/errors";
 
-async function headText(caller: Caller, slug: string): Promise<string> {
+/** The head's file and the model files its circuit includes, resolved for the block's team. */
+async function headWithModels(caller: Caller, slug: string): Promise<{ text: string; models: ModelTexts }> {
   const em = await getEm();
   const block = await loadBlock(em, caller, slug);
   if (!block.head) throw new AppError("not_found", "the block has no version");
-  return block.head.text;
+  const models = await resolveModels(em, block.team.id, parseBlock(block.head.text).block?.netlist ?? "");
+  return { text: block.head.text, models: models.texts };
 }
 
 const cleanParams = (params: unknown): Record<string, string> => {
@@ -19,12 +22,14 @@ const cleanParams = (params: unknown): Record<string, string> => {
 
 /** For each keystroke: quantities and every non-simulated check with its tolerance corners; nothing stored. */
 export async function previewDraft(caller: Caller, slug: string, params: Record<string, string>): Promise<Report> {
-  return previewBlock(await headText(caller, slug), cleanParams(params));
+  const head = await headWithModels(caller, slug);
+  return previewBlock(head.text, cleanParams(params), head.models);
 }
 
 /** A full evaluation of draft values, simulations only when asked; nothing stored. */
 export async function evaluateBlock(caller: Caller, slug: string, input: { params?: Record<string, string>; simulate?: boolean }): Promise<Report> {
-  const { report } = await verifyBlock(await headText(caller, slug), { params: cleanParams(input.params), simulate: input.simulate === true });
+  const head = await headWithModels(caller, slug);
+  const { report } = await verifyBlock(head.text, { params: cleanParams(input.params), simulate: input.simulate === true, models: head.models });
   return report;
 }
 
@@ -34,13 +39,21 @@ export async function retuneBlock(
   slug: string,
   req: { param: string; target: { quantity: string; value: string }; series: string; params?: Record<string, string> },
 ): Promise<{ value: string; snapped: string; report: Report }> {
-  const head = await headText(caller, slug);
+  const { text: head, models } = await headWithModels(caller, slug);
   try {
     // Draft values of the other parameters go into the file first, so the assistant solves from what is on screen.
     const text = req.params && Object.keys(req.params).length ? withParams(head, cleanParams(req.params)) : head;
-    return await retune(text, { param: String(req.param), target: { quantity: String(req.target?.quantity), value: String(req.target?.value) }, series: String(req.series) });
+    return await retune(text, { param: String(req.param), target: { quantity: String(req.target?.quantity), value: String(req.target?.value) }, series: String(req.series), models });
   } catch (err) {
     const message = (err as Error)?.message ?? String(err);
     throw new AppError("validation", message, { errors: [{ message }] });
   }
+}
+
+/** A draft file of a block, previewed with the model files of that block's team (the editor's live check). */
+export async function previewDraftFile(caller: Caller, slug: string, draft: string): Promise<Report> {
+  const em = await getEm();
+  const block = await loadBlock(em, caller, slug);
+  const models = await resolveModels(em, block.team.id, parseBlock(draft).block?.netlist ?? "");
+  return previewBlock(draft, undefined, models.texts);
 }

@@ -1,5 +1,5 @@
 import type { EntityManager } from "@mikro-orm/postgresql";
-import { CheckRunSchema, type CheckRun } from "@/entities";
+import { CheckRunSchema, type CheckRun, type RunModel } from "@/entities";
 import type { Caller } from "@/lib/auth/caller";
 import { assertCan } from "@/lib/auth/permissions";
 import { loadBlock, resourceOf } from "@/lib/blocks/common";
@@ -12,6 +12,8 @@ export interface RunView {
   report: Record<string, unknown> | null; error: string | null; attempts: number; durationMs: number | null;
   progress: { done: number; total: number };
   engineVersion: string | null; ngspiceVersion: string | null; modelLibraryHash: string | null;
+  /** The model files this run simulated with: name, sha256, team or shared, team version. */
+  models: RunModel[] | null;
   createdAt: string; startedAt: string | null; finishedAt: string | null;
 }
 
@@ -31,7 +33,7 @@ const view = (run: CheckRun, stamp = currentStamp()): RunView => ({
   badge: badgeOfRun(run, stamp), trigger: run.trigger, report: run.report, error: run.error, attempts: run.attempts,
   progress: { done: run.progressDone ?? 0, total: run.progressTotal ?? 0 },
   durationMs: run.durationMs, engineVersion: run.engineVersion, ngspiceVersion: run.ngspiceVersion,
-  modelLibraryHash: run.modelLibraryHash, createdAt: run.createdAt.toISOString(),
+  modelLibraryHash: run.modelLibraryHash, models: run.models ?? null, createdAt: run.createdAt.toISOString(),
   startedAt: run.startedAt?.toISOString() ?? null, finishedAt: run.finishedAt?.toISOString() ?? null,
 });
 

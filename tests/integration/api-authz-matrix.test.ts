@@ -67,7 +67,18 @@ const MATRIX: Record<string, Entry> = {
   },
   "GET /api/v1/blocks/[slug]/badge.svg": { call: async () => ({ path: `/api/v1/blocks/${slug}/badge.svg`, method: "GET" }), expect: readTeamBlock },
   "GET /api/v1/runs/[id]": { call: async () => ({ path: `/api/v1/runs/${runId}`, method: "GET" }), expect: readTeamBlock },
+  // The shared model library is everyone's; a team's files are its members' alone (404 outside, as for team blocks).
+  "GET /api/v1/models": { call: async () => ({ path: "/api/v1/models", method: "GET" }), expect: all(200) },
+  "GET /api/v1/models/[team]/[name]": {
+    call: async () => ({ path: `/api/v1/models/${w.teamA.slug}/authz-diode.lib`, method: "GET" }), expect: readTeamBlock,
+  },
+  "POST /api/v1/models/[team]": {
+    call: async () => ({ path: `/api/v1/models/${w.teamA.slug}?name=authz-diode.lib`, method: "POST", body: modelText(), type: "text/plain" }),
+    expect: writeTeam(404),
+  },
 };
+
+const modelText = () => `* authz fixture ${unique()}\n.model DAUTHZ D(IS=2n N=1.8)\n`;
 
 async function headersOf(who: Who): Promise<Record<string, string>> {
   switch (who) {
@@ -94,6 +105,10 @@ beforeAll(async () => {
   });
   expect(res.status).toBe(201);
   runId = ((await res.json()) as { run: { id: string } }).run.id;
+  const model = await fetch(`${w.app.url}/api/v1/models/${w.teamA.slug}?name=authz-diode.lib`, {
+    method: "POST", headers: { ...bearer(w.people.author.write), "Content-Type": "text/plain" }, body: modelText(),
+  });
+  expect(model.status).toBe(201);
 }, 900_000);
 afterAll(async () => w?.stop(), 60_000);
 

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { BlockVersionSchema } from "@/entities";
 import { sha256 } from "@/lib/blocks/common";
 import { createBlock } from "@/lib/blocks/create";
-import { spiceDeckText } from "@/lib/blocks/read";
+import { spiceDeckText } from "@/lib/blocks/deck";
 import { closeOrm, getEm } from "@/lib/db/orm";
 import { contentBlock, makeTeam, type TestTeam } from "./blocks-helpers";
 import { contextFor } from "@/lib/context";

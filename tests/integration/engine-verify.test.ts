@@ -25,7 +25,8 @@ describe("verifyBlock with ngspice", () => {
     expect(report.checks[1].detail).toMatch(/^f3db\(res, "out"\) = 2\.19\d? kHz ≈ fc = 2\.192 kHz ± 1% ✓/);
     // 10 Hz to 1 MHz at 50 points a decade: 5 decades, 251 points; nominal and the 2^2 corners.
     expect(report.simulations).toHaveLength(5);
-    expect(report.simulations[0]).toEqual({ analysis: "ac", points: 251, ms: expect.any(Number), cached: false, corner: null });
+    // The card is the analysis line as ngspice reads it (ngspice manual, ".AC": dec nd fstart fstop).
+    expect(report.simulations[0]).toEqual({ analysis: "ac", card: ".ac dec 50 10 1000000", points: 251, ms: expect.any(Number), cached: false, corner: null });
     expect(report.checks[1]).toMatchObject({ over: "corners", simulations: 5 });
     // The nominal sweep and the same sweep at the worst corner of the simulated check.
     expect(waveforms.map((w) => w.variant)).toEqual(["nominal", "worst"]);

@@ -19,6 +19,9 @@ const ROUTES = [
   "post /api/v1/blocks/{slug}/retune",
   "get /api/v1/runs/{id}",
   "get /api/v1/blocks/{slug}/badge.svg",
+  "get /api/v1/models",
+  "get /api/v1/models/{team}/{name}",
+  "post /api/v1/models/{team}",
 ];
 
 describe("the OpenAPI document", () => {

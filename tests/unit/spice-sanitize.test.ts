@@ -30,7 +30,7 @@ describe("sanitizeNetlist refuses what could run commands, read files or steer t
     ["shell rm -rf /", /shell/],
     [".include /etc/passwd", /only NAME\.lib/],
     [".include ../models/opamp-test.lib", /only NAME\.lib/],
-    [".inc missing.lib", /no such file in the model library \(opamp-test\.lib\)/],
+    [".inc missing.lib", /no such file in the team.s or the shared model library \(shared: opamp-test\.lib\)/],
     [".lib /usr/share/lib.lib tt", /\.lib is not allowed/],
     [".tran 1u 1m", /analysis card \.tran/],
     [".ac dec 10 1 1meg", /analysis card \.ac/],

@@ -46,7 +46,7 @@ export default function ApiDocsPage() {
           <p className="text-sm leading-relaxed">
             Caching: Block JSON carries a strong ETag over the exact body with <code className="font-mono">no-cache</code> — send it back in
             <code className="font-mono"> If-None-Match</code> and get 304 while nothing changed (the badge and approval of a version do change).
-            <code className="font-mono"> ?format=md</code> and <code className="font-mono">?format=spice</code> of a numbered version never change and are cached for a year.
+            <code className="font-mono"> ?format=md</code> of a numbered version never changes and is cached for a year; <code className="font-mono">?format=spice</code> inlines the model files and analyses of the version's latest run, so it is revalidated.
           </p>
         </header>
         <section aria-labelledby="problems" className="max-w-[70ch]">

@@ -23,6 +23,7 @@ export const GET = route<{ id: string }>(async (req, params) => {
       durationMs: run.durationMs,
       progress: run.progress,
       error: run.error,
+      models: run.models,
       createdAt: iso(run.createdAt),
       finishedAt: iso(run.finishedAt),
     },
