@@ -61,7 +61,7 @@ export function BlockView({ model }: { model: BlockPageModel }) {
           <NoteView markdown={block.note} slug={slug} />
           <section aria-label="Plots" className="space-y-2">
             <h2 className="font-serif text-xl font-semibold">Plots</h2>
-            {block.runStatus === "done" ? <RunPlots waveforms={waveforms} checks={report.checks} /> : <p className="text-sm text-graphite">Plots appear when this version's run has finished.</p>}
+            {block.runStatus === "done" ? <RunPlots waveforms={waveforms} checks={report.checks} quantities={report.quantities} /> : <p className="text-sm text-graphite">Plots appear when this version's run has finished.</p>}
           </section>
           <section aria-label="Netlist and script" className="space-y-3">
             <h2 className="font-serif text-xl font-semibold">Netlist and script</h2>

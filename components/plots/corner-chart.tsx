@@ -9,6 +9,7 @@ import { PlotLegend } from "./plot-legend";
 import { UPlotChart, type PlotVerdict } from "./uplot-chart";
 
 type Check = Report["checks"][number];
+const NONE: string[] = [];
 
 const nameOf = (label: Record<string, string> | undefined) =>
   label ? typesetUnits(Object.entries(label).map(([k, v]) => `${k} ${v.replace(/^-/, "−")}`).join(", ")) : "";
@@ -24,7 +25,7 @@ function keeps(v: number, limits: number[], relations: string[]): boolean {
 /** A checked quantity at every tolerance corner (sorted), each corner named on hover and in a table, its limits dashed. */
 export function CornerChart({ check }: { check: Check }) {
   const corners = check.corners!;
-  const relations = check.compared?.relations ?? [];
+  const relations = check.compared?.relations ?? NONE;
   const rows = useMemo(
     () => corners.values.map((v, k) => ({ v, label: corners.labels?.[k], ok: keeps(v, corners.limits, relations) })).sort((a, b) => a.v - b.v),
     [corners, relations],

@@ -7,10 +7,25 @@ import { COPPER_PALE, INKS, engAxis } from "./axes";
 import { PlotLegend } from "./plot-legend";
 import { UPlotChart } from "./uplot-chart";
 import { verdictOn } from "./verdict-guides";
+import type { Trace } from "./families";
 
-/** A transient: node voltages against time, the measured windows shaded, each check's guides and measured value drawn. */
-export function WaveformPlot({ wave, checks = [], fileName = "transient" }: { wave: Waveform; checks?: Report["checks"]; fileName?: string }) {
-  const verdict = useMemo(() => verdictOn(wave, checks, "V", "s"), [wave, checks]);
+const AXES: Record<string, { x: string; y: string; xTitle: string; yTitle: string; log?: boolean; name: string }> = {
+  tran: { x: "s", y: "V", xTitle: "time", yTitle: "voltage", name: "Transient" },
+  dc: { x: "V", y: "V", xTitle: "swept source", yTitle: "voltage", name: "DC sweep" },
+  noise: { x: "Hz", y: "V/Hz^0.5", xTitle: "frequency", yTitle: "noise density (V/√Hz)", log: true, name: "Noise" },
+};
+
+/**
+ * A transient (or DC sweep, or noise spectrum) against its x, the measured windows shaded, each check's guides and
+ * measured value drawn; `traces` names each series (a worst corner, a sweep member) when the plot holds several.
+ */
+export function WaveformPlot({ wave, checks = [], fileName = "transient", traces: given, caption }: {
+  wave: Waveform; checks?: Report["checks"]; fileName?: string; traces?: Trace[]; caption?: string;
+}) {
+  const base = AXES[wave.analysis] ?? AXES.tran;
+  const ax = { ...base, x: wave.xUnit ?? base.x, y: wave.yUnit ?? base.y, xTitle: wave.xUnit === "degC" ? "temperature" : base.xTitle };
+  const traces = useMemo(() => given ?? wave.series.map((s, i) => ({ name: s.node, color: INKS[i % INKS.length] }) as Trace), [given, wave]);
+  const verdict = useMemo(() => verdictOn(wave, checks, ax.y, ax.x), [wave, checks, ax.y, ax.x]);
   const { options, data } = useMemo(() => {
     const shade: uPlot.Plugin = {
       hooks: {
@@ -37,22 +52,22 @@ export function WaveformPlot({ wave, checks = [], fileName = "transient" }: { wa
       height: 240,
       plugins: [shade],
       scales: {
-        x: { time: false },
-        y: { range: (_u, lo, hi) => { const a = Math.min(lo, ...guideYs); const b = Math.max(hi, ...guideYs); const pad = (b - a || 1) * 0.06; return [a - pad, b + pad]; } },
+        x: { time: false, ...(ax.log ? { distr: 3 } : {}), range: (_u, lo, hi) => [lo, hi] },
+        y: { ...(ax.log ? { distr: 3 } : {}), range: (_u, lo, hi) => { const a = Math.min(lo, ...guideYs); const b = Math.max(hi, ...guideYs); const pad = (b - a || 1) * 0.06; return [a - pad, b + pad]; } },
       },
-      axes: [engAxis("s", "time"), engAxis("V", "voltage", {}, true)],
-      series: [{ label: "t" }, ...wave.series.map((s, i) => ({ label: s.node, stroke: INKS[i % INKS.length], width: 1.4 }))],
+      axes: [engAxis(ax.x === "degC" ? "" : ax.x, ax.x === "degC" ? "temperature (°C)" : ax.xTitle), engAxis(ax.y.includes("/") ? "" : ax.y, ax.yTitle, {}, true)],
+      series: [{ label: "x" }, ...wave.series.map((s, i) => ({ label: traces[i]?.name ?? s.node, stroke: traces[i]?.color ?? INKS[i % INKS.length], width: 1.4, dash: traces[i]?.dash, spanGaps: true }))],
     };
     return { options, data: [wave.x, ...wave.series.map((s) => s.values)] as uPlot.AlignedData };
-  }, [wave, verdict]);
-  const readout = (i: number) => `t = ${eng(wave.x[i], "s", 4)}: ${wave.series.map((s) => `${s.node} ${eng(s.values[i], "V", 4)}`).join(", ")}`;
+  }, [wave, verdict, traces, ax.x, ax.y, ax.log, ax.xTitle, ax.yTitle]);
+  const readout = (i: number) => `${ax.xTitle} ${eng(wave.x[i], ax.x, 4)}: ${wave.series.map((s, k) => (s.values[i] == null ? "" : `${traces[k]?.name ?? s.node} ${eng(s.values[i], ax.y, 4)}`)).filter(Boolean).join(", ")}`;
   const windows = wave.windows.map((w) => `${w.measure} of ${w.node} from ${eng(w.from, "s")} to ${eng(w.to, "s")}${w.value !== undefined ? ` = ${eng(w.value, w.measure === "freq" ? "Hz" : w.measure === "thd" ? "" : "V", 4)}` : ""}`);
   return (
-    <figure className="rounded border border-rule bg-panel p-2" data-testid="transient-plot">
-      <UPlotChart options={options} data={data} label={`Transient of ${wave.series.map((s) => s.node).join(", ")}`} verdict={verdict} readout={readout}
-        legend={<PlotLegend traces={wave.series.map((s, i) => ({ name: s.node, color: INKS[i % INKS.length] }))} verdict={verdict} windows={wave.windows.length > 0} />}
-        csv={{ fileName: `${fileName}.csv`, headers: ["time (s)", ...wave.series.map((s) => `${s.node} (V)`)] }} />
-      {windows.length ? <figcaption className="mt-1 text-xs text-graphite">Measured: {[...new Set(windows)].join("; ")}.</figcaption> : null}
+    <figure className="rounded border border-rule bg-panel p-2" data-testid={wave.analysis === "tran" ? "transient-plot" : `${wave.analysis}-plot`}>
+      <UPlotChart options={options} data={data} label={`${ax.name} of ${wave.series.map((s) => s.node).join(", ")}`} verdict={verdict} readout={readout}
+        legend={<PlotLegend traces={traces} verdict={verdict} windows={wave.windows.length > 0} />}
+        csv={{ fileName: `${fileName}.csv`, headers: [`${ax.xTitle} (${ax.x})`, ...wave.series.map((s, i) => `${traces[i]?.name ?? s.node} (${ax.y})`)] }} />
+      {windows.length || caption ? <figcaption className="mt-1 text-xs text-graphite">{caption} {windows.length ? `Measured: ${[...new Set(windows)].join("; ")}.` : ""}</figcaption> : null}
     </figure>
   );
 }
