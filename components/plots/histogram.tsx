@@ -1,15 +1,26 @@
+"use client";
+import { useEffect, useRef, useState } from "react";
 import type { Report } from "@/checks";
 import { eng } from "../eng";
 import { GUIDE_INK, INKS, VERDICT_INK } from "./axes";
 
 type Check = Report["checks"][number];
 
-const W = 640;
 const H = 200;
 const PAD = { l: 44, r: 16, t: 26, b: 34 };
 
 /** A Monte Carlo quantity as a histogram of its samples, the limits of the check that reads it dashed, with the yield. */
 export function Histogram({ name, unit, samples, check }: { name: string; unit: string; samples: number[]; check?: Check }) {
+  // Drawn at the figure's own width, so text keeps its size on a phone and on a wide screen.
+  const box = useRef<HTMLElement>(null);
+  const [W, setW] = useState(640);
+  useEffect(() => {
+    const el = box.current;
+    if (!el) return;
+    const ro = new ResizeObserver(() => setW(Math.max(280, el.clientWidth - 16)));
+    ro.observe(el);
+    return () => ro.disconnect();
+  }, []);
   const finite = samples.filter(Number.isFinite);
   if (finite.length < 2) return null;
   const limits = check?.compared?.quantity === name ? check.compared.limits : check?.corners?.quantity === name ? check.corners.limits : [];
@@ -30,8 +41,8 @@ export function Histogram({ name, unit, samples, check }: { name: string; unit: 
   const outside = (v: number) => limits.some((l, i) => (rel[i] === ">" ? v <= l : rel[i] === "≥" ? v < l : rel[i] === "<" ? v >= l : rel[i] === "≤" ? v > l : false));
   const y = check?.yield;
   return (
-    <figure className="rounded border border-rule bg-panel p-2" data-testid="histogram">
-      <svg viewBox={`0 0 ${W} ${H}`} className="w-full" role="img" aria-label={`${name} over ${finite.length} Monte Carlo samples`}>
+    <figure ref={box} className="rounded border border-rule bg-panel p-2" data-testid="histogram">
+      <svg viewBox={`0 0 ${W} ${H}`} width={W} height={H} className="max-w-full" role="img" aria-label={`${name} over ${finite.length} Monte Carlo samples`}>
         <line x1={PAD.l} x2={W - PAD.r} y1={H - PAD.b} y2={H - PAD.b} stroke="#ddd5c8" />
         {counts.map((c, i) => {
           const a = s0 + i * width;
