@@ -4,6 +4,7 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { spiceDeck, verifyBlock, warmEngine } from "@/checks";
+import { benchAnalyses } from "./analyses";
 import { OSC_ANALYSIS, expressionBlock, oscillatorBlock } from "./blocks";
 
 const RUNS = Number(process.env.BENCH_RUNS ?? 7);
@@ -65,6 +66,7 @@ async function main() {
   console.log(`  verifyBlock (parse, script, ngspice, raw read, measures): ${ms(e)}`);
   console.log(`  ratio engine / bare: ${(e / b).toFixed(2)}   (target <= 1.25)`);
   console.log(`  cached rerun verifyBlock: ${ms(median(cached))}`);
+  await benchAnalyses(tmp, RUNS);
 }
 
 main()
