@@ -116,8 +116,10 @@ async function main() {
     const fanRates: number[] = [];
     for (const n of [1, 2]) {
       await Promise.all(Array.from({ length: n }, (_, k) => startWorker(`fan-${n}-${k}`)));
-      const warm = await createBlock(caller, { teamSlug: "bench", text: wienBlock(`fan-warm-${n}`, `${(21 + n * 0.01).toFixed(2)} kohm`) });
-      await waitDone(warm.run.id); // both phases start with warm workers and sandbox children
+      // One short run per worker first, so every worker and its sandbox child is warm when the timed run arrives.
+      const warm = await Promise.all(Array.from({ length: n }, (_, k) =>
+        createBlock(caller, { teamSlug: "bench", text: wienBlock(`fan-warm-${n}-${k}`, `${(21 + n * 0.01 + k * 0.001).toFixed(3)} kohm`) })));
+      for (const w of warm) await waitDone(w.run.id);
       const t0 = performance.now();
       const r = await createBlock(caller, { teamSlug: "bench", text: wienMonteCarloBlock(`fan-${n}`, `${(22 + n * 0.01).toFixed(2)} kohm`, 64) });
       await waitDone(r.run.id);
@@ -126,6 +128,10 @@ async function main() {
       const [run] = await conn.execute(`select progress_total as total, report->>'status' as status,
         (select avg((e->>'ms')::float) from jsonb_array_elements(report->'simulations') e) as ms from check_runs where id = ?`, [r.run.id]) as { total: number; status: string; ms: number }[];
       const by = await conn.execute(`select worker_id, count(*) as n from sim_results where run_id = ? group by worker_id order by worker_id`, [r.run.id]) as { worker_id: string; n: string }[];
+      const [span] = await conn.execute(`select extract(epoch from min(s.created_at) - r.started_at) as first, extract(epoch from max(s.created_at) - r.started_at) as last,
+        extract(epoch from r.finished_at - r.started_at) as done, sum(s.ms) / 1000 as busy
+        from sim_results s join check_runs r on r.id = s.run_id where r.id = ? group by r.started_at, r.finished_at`, [r.run.id]) as Record<string, number>[];
+      console.log(`  timeline from the run's start: first result ${(+span.first).toFixed(1)} s, last ${(+span.last).toFixed(1)} s, run done ${(+span.done).toFixed(1)} s; ngspice busy ${(+span.busy).toFixed(1)} s in all`);
       fanRates.push(run.total / s);
       console.log(`one verification fanned out, ${n} worker${n > 1 ? "s" : ""}: ${run.total} simulations in ${s.toFixed(1)} s = ${(run.total / s).toFixed(1)} simulations/s `
         + `(report ${run.status}; ngspice ${Number(run.ms).toFixed(0)} ms per simulation on average; by worker: ${by.map((b) => `${b.worker_id} ${b.n}`).join(", ")})`);

@@ -1,6 +1,7 @@
 import { randomUUID } from "node:crypto";
 import os from "node:os";
 import pg from "pg";
+import { warmEngine } from "@/checks";
 import { databaseUrl } from "@/lib/db/database-url";
 import { getEm } from "@/lib/db/orm";
 import { RUN_CHANNEL } from "./enqueue";
@@ -62,6 +63,7 @@ export function startWorker(opts: WorkerOptions = {}): { id: string; stop: () =>
     every(3_600_000, async () => pruneSilent(await getEm()));
     every(60_000, pruneSimResults);
     simulating(id, log);
+    warmEngine(); // the sandbox child loads while the worker waits, not when its first run arrives
     const stale = await enqueueStaleHeads(await getEm(), { teamIds: opts.teamIds });
     if (stale.queued) log(`queued ${stale.queued} stale or unchecked head(s) for verification`);
     log("ready");
