@@ -49,9 +49,11 @@ function startSimulating(workerId: string, log: (line: string) => void): Loop {
       if (jobs.length === 0) { await sleep(free > 0 ? 500 : 1000); continue; }
       for (const job of jobs) {
         busy++;
-        const p = simulateOne(queue, executor, job, workerId)
+        // The slot frees when ngspice ends: storing the outcome overlaps the next simulation.
+        const free = () => { busy--; wake?.(); };
+        const p = simulateOne(queue, executor, job, workerId, free)
           .catch((err: Error) => log(`simulation ${job.id} not stored: ${err.message}`))
-          .finally(() => { busy--; running.delete(p); wake?.(); });
+          .finally(() => running.delete(p));
         running.add(p);
       }
     }
@@ -68,9 +70,9 @@ function startSimulating(workerId: string, log: (line: string) => void): Loop {
   };
 }
 
-async function simulateOne(queue: PgBoss, executor: SimExecutor, job: PgBoss.Job<SimJobData>, workerId: string): Promise<void> {
+async function simulateOne(queue: PgBoss, executor: SimExecutor, job: PgBoss.Job<SimJobData>, workerId: string, free: () => void): Promise<void> {
   const { runId, request } = job.data;
-  const [o] = await executor.runMany([request]);
+  const [o] = await executor.runMany([request]).finally(free);
   const em = await getEm();
   await em.transactional(async (tx) => {
     const db = inTransaction(tx); // node-pg parameters: the raw file goes in as bytea, not as SQL text
