@@ -5,6 +5,7 @@ export { ENGINE_VERSION, modelLibraryHash } from "./version";
 export { ngspiceVersion } from "./spice/version";
 export { parseBlock } from "./block/parse";
 export { withParams } from "./block/with-params";
+export { unitChanges } from "./block/unit-changes";
 export { eseries } from "./eseries";
 export { spiceDeck } from "./spice-deck";
 export { circuitRefusal } from "./spice/refusal";

@@ -1,5 +1,5 @@
 import { UniqueConstraintViolationException } from "@mikro-orm/core";
-import { withParams } from "@/checks";
+import { unitChanges, withParams } from "@/checks";
 import { BlockSchema, BlockVersionSchema } from "@/entities";
 import type { Caller } from "@/lib/auth/caller";
 import { getEm } from "@/lib/db/orm";
@@ -41,6 +41,8 @@ export async function addVersion(caller: Caller, slug: string, input: NewVersion
     throw engineInputError(err);
   }
   const parsed = parseOrThrow(text);
+  const changed = unitChanges(baseRow.params, parsed.params);
+  if (changed.length) throw new AppError("validation", `${changed[0].message} (line ${changed[0].line})`, { errors: changed });
   if (parsed.slug !== block.slug)
     throw new AppError("validation", `the file's slug "${parsed.slug}" is not this block's ("${block.slug}"); fork to rename`, {
       errors: [{ message: "slug differs from the block's" }],

@@ -120,7 +120,9 @@ describe("versions, lineage and comparison", () => {
     await createBlock(team.author, { teamSlug: team.slug, text: wienFixture(slug) });
     const count = async () => (await getEm()).count(CheckRunSchema, { version: { block: { slug } } } as never);
     const before = await count();
-    const bads: { params?: Record<string, string>; text?: string }[] = [{ params: { Rf: "22 parsecs" } }, { params: { Nope: "1 kohm" } }, { params: { Rf: "22 V" } }, { text: "---\nslug: x\n---\nno frontmatter fields" }];
+    const bads: { params?: Record<string, string>; text?: string }[] = [{ params: { Rf: "22 parsecs" } }, { params: { Nope: "1 kohm" } }, { params: { Rf: "22 V" } }, { text: "---\nslug: x\n---\nno frontmatter fields" },
+      // DESIGN.md "Block file format": R/C/L positive; a whole new file may not change a parameter's dimension.
+      { params: { Rf: "-5 kohm" } }, { text: wienFixture(slug).replace("{ name: Rf, value: 22 kohm", "{ name: Rf, value: 22 V") }];
     for (const bad of bads) {
       const err = await addVersion(team.author, slug, { ...bad, baseVersion: 1 }).catch((e) => e);
       expect(err).toBeInstanceOf(AppError);
@@ -128,6 +130,8 @@ describe("versions, lineage and comparison", () => {
       expect(((err as AppError).extra.errors as unknown[]).length).toBeGreaterThan(0);
     }
     expect(await count()).toBe(before);
+    const redimensioned = await addVersion(team.author, slug, { text: wienFixture(slug).replace("{ name: Rf, value: 22 kohm", "{ name: Rf, value: 22 V"), baseVersion: 1 }).catch((e) => e);
+    expect((redimensioned as AppError).message).toMatch(/parameter "Rf" was in ohm; "22 V" is in V \(line \d+\)/);
     const same = await addVersion(team.author, slug, { params: { Rf: "22 kohm" }, baseVersion: 1 }).catch((e) => e);
     expect((same as AppError).code).toBe("validation");
     const dup = await createBlock(team.author, { teamSlug: team.slug, text: wienFixture(slug) }).catch((e) => e);
