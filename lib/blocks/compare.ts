@@ -16,6 +16,8 @@ export interface Comparison {
   script: DiffPart[];
   /** Checks whose outcome differs between the two versions' latest runs (null: absent or not run). */
   checks: { label: string; from: string | null; to: string | null }[];
+  /** Every quantity of either version's latest run, side by side (value in its unit, null where absent). */
+  quantities: { name: string; unit: string; from: number | null; to: number | null; simulated: boolean }[];
 }
 
 const parts = (a: string, b: string): DiffPart[] =>
@@ -49,7 +51,17 @@ export async function compareVersions({ em, caller }: Ctx, input: CompareInput):
     .filter((l) => ca.get(l) !== cb.get(l))
     .map((l) => ({ label: l, from: ca.get(l) ?? null, to: cb.get(l) ?? null }));
 
+  type Q = { value: number; unit: string; simulated?: boolean };
+  const quantitiesOf = (id: number) => new Map(Object.entries(((runs.get(id)?.report as { quantities?: Record<string, Q> } | null)?.quantities ?? {})));
+  const qa = quantitiesOf(va.id);
+  const qb = quantitiesOf(vb.id);
+  const quantities = [...new Set([...qa.keys(), ...qb.keys()])].map((name) => {
+    const [x, y] = [qa.get(name), qb.get(name)];
+    return { name, unit: (y ?? x)!.unit, from: x?.value ?? null, to: y?.value ?? null, simulated: Boolean((y ?? x)!.simulated) };
+  });
+
   return {
+    quantities,
     from: va.number,
     to: vb.number,
     params,

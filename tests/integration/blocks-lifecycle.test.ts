@@ -4,6 +4,7 @@ await vi.hoisted(async () => { await (await import("./blocks-db")).usePrivateDat
 import { ENGINE_VERSION, modelLibraryHash, ngspiceVersion, withParams } from "@/checks";
 import { CheckRunSchema, OutboxEventSchema } from "@/entities";
 import { compareVersions } from "@/lib/blocks/compare";
+import { changePercent } from "@/components/quantity-compare";
 import { createBlock } from "@/lib/blocks/create";
 import { forkBlock } from "@/lib/blocks/fork";
 import { contextFor } from "@/lib/context";
@@ -103,6 +104,12 @@ describe("versions, lineage and comparison", () => {
     expect(cmp.netlist.some((p) => p.added || p.removed)).toBe(false);
     expect(cmp.script.some((p) => p.added || p.removed)).toBe(false);
     expect(cmp.checks.map((c) => [c.from, c.to])).toEqual([["pass", "fail"], ["pass", "fail"]]);
+    // Quantities side by side: loop gain (1 + Rf/Rg)/3 goes from 3.2/3 to 2.8/3, a change of −12.5 % (arithmetic).
+    const gain = cmp.quantities.find((q) => q.name === "loop_gain")!;
+    expect(gain.from).toBeCloseTo(3.2 / 3, 9);
+    expect(gain.to).toBeCloseTo(2.8 / 3, 9);
+    expect(changePercent(gain.from, gain.to)).toBeCloseTo(-12.5, 9);
+    expect(cmp.quantities.find((q) => q.name === "f0")).toMatchObject({ unit: "Hz" });
 
     // A new file: the script changes, and the text diff shows exactly that line.
     const text = withParams(wienFixture(slug), { Rf: "24 kohm" }).replace("loop_gain > 1.02", "loop_gain > 1.05");

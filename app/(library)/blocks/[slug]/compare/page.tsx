@@ -3,6 +3,7 @@ import Link from "next/link";
 import { DiffView } from "@/components/diff-view";
 import { EmptyState } from "@/components/empty-state";
 import { typesetUnits } from "@/components/eng";
+import { QuantityCompare } from "@/components/quantity-compare";
 import { compareVersions } from "@/lib/blocks/compare";
 import { listVersions } from "@/lib/blocks/read";
 import { pageContext } from "@/lib/next-context";
@@ -46,6 +47,10 @@ export default async function ComparePage({ params, searchParams }: {
             </tbody>
           </table>
         ) : <EmptyState title="No parameter changed." />}
+      </section>
+      <section aria-label="Quantities side by side">
+        <h2 className="mb-2 font-serif text-lg font-semibold">Quantities</h2>
+        <QuantityCompare rows={cmp.quantities} from={cmp.from} to={cmp.to} />
       </section>
       <section aria-label="Check outcome changes">
         <h2 className="mb-2 font-serif text-lg font-semibold">Checks whose outcome changed</h2>
