@@ -71,10 +71,10 @@ export function newVersionMessage(b: BlockRef, author: string, message: string):
   );
 }
 
-export function versionApprovedMessage(b: BlockRef, reviewer: string): Message {
+export function versionApprovedMessage(b: BlockRef, reviewer: string, comment = ""): Message {
   return compose(
     `Approved: ${b.title} v${b.version}`,
-    [`${reviewer} approved version ${b.version} of “${b.title}” (${b.slug}).`],
+    [`${reviewer} approved version ${b.version} of “${b.title}” (${b.slug}).`, ...(comment ? [`${reviewer}’s comment: ${comment}`] : [])],
     { label: "Open the block", url: blockUrl(b.slug, b.version) },
     "You receive this because you wrote this version or watch this block.",
   );

@@ -53,7 +53,7 @@ export async function mailFor(em: EntityManager, e: Pick<PendingEvent, "kind" | 
   if (e.kind === "review.decided" && p.decision === "approved") {
     const reviewer = s(p.reviewer).toLowerCase();
     const to = (await readers(em, p, [s(p.authorEmail), ...list(p.watchers)])).filter((a) => a !== reviewer);
-    return { to, message: versionApprovedMessage(b, s(p.reviewerName) || (await nameOf(em, reviewer))) };
+    return { to, message: versionApprovedMessage(b, s(p.reviewerName) || (await nameOf(em, reviewer)), s(p.comment)) };
   }
   if (e.kind === "run.finished" && p.isHead !== false) {
     const badge = s(p.badge);

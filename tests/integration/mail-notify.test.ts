@@ -40,9 +40,10 @@ describe("mail notifications from the outbox", () => {
     expect(mailsTo(people[0].email)).toHaveLength(0);
     expect(mailsTo(people[2].email)).toHaveLength(0);
 
-    await decide(await contextFor(maintainer), { slug, version: 1, decision: "approved", comment: "" });
+    await decide(await contextFor(maintainer), { slug, version: 1, decision: "approved", comment: "corner at 3.39 kHz, margins checked" });
     await drain();
     expect(mailsTo(people[0].email).map((m) => m.subject)).toEqual([expect.stringMatching(/^Approved: .* v1$/)]);
+    expect(mailsTo(people[0].email)[0].text).toContain("comment: corner at 3.39 kHz, margins checked");
     expect(mailsTo(people[2].email).map((m) => m.subject)).toEqual([expect.stringMatching(/^Approved: /)]);
     expect(mailsTo(people[1].email)).toHaveLength(1); // the reviewer is not told of their own approval
 
