@@ -1,11 +1,15 @@
 import os from "node:os";
 import type { SimExecutor, SimOutcome, SimRequest } from "../engine/executor";
+import { BATCH_SIZE, runBatchAsync } from "./batch";
 import { readCached, writeCached } from "./cache";
 import { defaultCacheDir } from "./paths";
 import { runNgspiceAsync } from "./run-ngspice";
 import { SpiceError } from "./types";
 
 export type LocalExecutorOptions = { cacheDir?: string; noCache?: boolean; concurrency?: number; timeoutMs?: number };
+
+// One plot each, so the control block's `write` holds what `ngspice -b -r` would (noise writes two plots).
+const BATCHED = new Set(["ac", "op", "dc", "tf"]);
 
 /** How many ngspice processes run at once by default: one per core. */
 export const defaultConcurrency = () => Math.max(1, os.availableParallelism?.() ?? os.cpus().length);
@@ -34,10 +38,17 @@ export function localExecutor(opts: LocalExecutorOptions = {}): SimExecutor {
         if (hit) finish({ key: r.key, ok: true, raw: hit, ms: 0, cached: true });
         else queue.push(r);
       }
+      // Transients run one per process; short analyses share a process up to BATCH_SIZE at a time.
+      const jobs: SimRequest[][] = queue.filter((r) => !BATCHED.has(r.analysis.kind)).map((r) => [r]);
+      const short = queue.filter((r) => BATCHED.has(r.analysis.kind));
+      const size = Math.max(1, Math.min(BATCH_SIZE, Math.ceil(short.length / limit)));
+      for (let i = 0; i < short.length; i += size) jobs.push(short.slice(i, i + size));
       const worker = async () => {
-        for (let r = queue.shift(); r; r = queue.shift()) finish(await runOne(r, dir, opts));
+        for (let job = jobs.shift(); job; job = jobs.shift())
+          if (job.length === 1) finish(await runOne(job[0], dir, opts));
+          else for (const o of await runBatch(job, dir, opts)) finish(o);
       };
-      await Promise.all(Array.from({ length: Math.min(limit, queue.length) }, worker));
+      await Promise.all(Array.from({ length: Math.min(limit, jobs.length) }, worker));
       return reqs.map((r) => outcomes.get(r.key)!);
     },
   };
@@ -53,6 +64,23 @@ async function runOne(r: SimRequest, dir: string, opts: LocalExecutorOptions): P
     const line = e instanceof SpiceError ? e.line : undefined;
     return { key: r.key, ok: false, error: (e as Error).message, ...(line !== undefined ? { line } : {}), ms: round(performance.now() - t0) };
   }
+}
+
+async function runBatch(reqs: SimRequest[], dir: string, opts: LocalExecutorOptions): Promise<SimOutcome[]> {
+  const t0 = performance.now();
+  const raws = await runBatchAsync(reqs.map((r) => r.deck), opts.timeoutMs);
+  const each = round((performance.now() - t0) / reqs.length);
+  const out: SimOutcome[] = [];
+  for (const [i, r] of reqs.entries()) {
+    const raw = raws[i];
+    if (!raw) {
+      out.push(await runOne(r, dir, opts)); // alone, for its own error message
+      continue;
+    }
+    if (!opts.noCache) writeCached(dir, r.key, raw);
+    out.push({ key: r.key, ok: true, raw, ms: each, cached: false });
+  }
+  return out;
 }
 
 const round = (ms: number) => Math.round(ms * 10) / 10;

@@ -38,47 +38,52 @@ export async function runNgspiceAsync(deck: string, opts: RunOptions = {}): Prom
   const job = prepareRun(deck, opts);
   try {
     const t0 = performance.now();
-    const r = await new Promise<Exit>((resolve) => {
-      const child = spawn(job.command, job.args, { ...job.spawn, stdio: ["ignore", "pipe", "pipe"] });
-      let stdout = "";
-      let stderr = "";
-      let overflow = false;
-      let timedOut = false;
-      const take = (add: string, to: "out" | "err") => {
-        if (stdout.length + stderr.length + add.length > 8 * 1024 * 1024) {
-          overflow = true;
-          child.kill("SIGKILL");
-          return;
-        }
-        if (to === "out") stdout += add;
-        else stderr += add;
-      };
-      child.stdout!.setEncoding("utf8").on("data", (d: string) => take(d, "out"));
-      child.stderr!.setEncoding("utf8").on("data", (d: string) => take(d, "err"));
-      const timer = setTimeout(() => {
-        timedOut = true;
-        child.kill("SIGKILL");
-      }, job.timeoutMs);
-      child.on("error", (error) => {
-        clearTimeout(timer);
-        resolve({ status: null, signal: null, stdout, stderr, error, timedOut, overflow });
-      });
-      child.on("close", (status, signal) => {
-        clearTimeout(timer);
-        resolve({ status, signal, stdout, stderr, timedOut, overflow });
-      });
-    });
+    const r = await execute(job);
     return finishRun(job, r, performance.now() - t0, opts);
   } finally {
     await fs.promises.rm(job.dir, { recursive: true, force: true });
   }
 }
 
-type RunOptions = { timeoutMs?: number; spinit?: string; circuitOffset?: number; circuit?: string; maxRawBytes?: number };
-type Job = { dir: string; command: string; args: string[]; spawn: { cwd: string; env: NodeJS.ProcessEnv }; timeoutMs: number; cpu: number; maxRaw: number };
-type Exit = { status: number | null; signal: NodeJS.Signals | null; stdout: string; stderr: string; error?: Error; timedOut: boolean; overflow: boolean };
+/** Spawn a prepared job and collect its exit, output and whether it overran. */
+export function execute(job: Job): Promise<Exit> {
+  return new Promise<Exit>((resolve) => {
+    const child = spawn(job.command, job.args, { ...job.spawn, stdio: ["ignore", "pipe", "pipe"] });
+    let stdout = "";
+    let stderr = "";
+    let overflow = false;
+    let timedOut = false;
+    const take = (add: string, to: "out" | "err") => {
+      if (stdout.length + stderr.length + add.length > 8 * 1024 * 1024) {
+        overflow = true;
+        child.kill("SIGKILL");
+        return;
+      }
+      if (to === "out") stdout += add;
+      else stderr += add;
+    };
+    child.stdout!.setEncoding("utf8").on("data", (d: string) => take(d, "out"));
+    child.stderr!.setEncoding("utf8").on("data", (d: string) => take(d, "err"));
+    const timer = setTimeout(() => {
+      timedOut = true;
+      child.kill("SIGKILL");
+    }, job.timeoutMs);
+    child.on("error", (error) => {
+      clearTimeout(timer);
+      resolve({ status: null, signal: null, stdout, stderr, error, timedOut, overflow });
+    });
+    child.on("close", (status, signal) => {
+      clearTimeout(timer);
+      resolve({ status, signal, stdout, stderr, timedOut, overflow });
+    });
+  });
+}
 
-function prepareRun(deck: string, opts: RunOptions): Job {
+export type RunOptions = { timeoutMs?: number; spinit?: string; circuitOffset?: number; circuit?: string; maxRawBytes?: number };
+export type Job = { dir: string; command: string; args: string[]; spawn: { cwd: string; env: NodeJS.ProcessEnv }; timeoutMs: number; cpu: number; maxRaw: number };
+export type Exit = { status: number | null; signal: NodeJS.Signals | null; stdout: string; stderr: string; error?: Error; timedOut: boolean; overflow: boolean };
+
+export function prepareRun(deck: string, opts: RunOptions, rawFile = true): Job {
   const timeoutMs = opts.timeoutMs ?? DEFAULT_TIMEOUT_MS;
   const maxRaw = opts.maxRawBytes ?? MAX_RAW_BYTES;
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), "assay-spice-"));
@@ -89,7 +94,7 @@ function prepareRun(deck: string, opts: RunOptions): Job {
   return {
     dir, timeoutMs, cpu, maxRaw,
     command: "prlimit",
-    args: [`--as=${MAX_MEMORY_BYTES}`, `--cpu=${cpu}`, `--fsize=${maxRaw}`, "--", "ngspice", "-b", "-r", "out.raw", "deck.cir"],
+    args: [`--as=${MAX_MEMORY_BYTES}`, `--cpu=${cpu}`, `--fsize=${maxRaw}`, "--", "ngspice", "-b", ...(rawFile ? ["-r", "out.raw"] : []), "deck.cir"],
     // A minimal environment: nothing of the app (secrets, URLs) reaches the simulator.
     spawn: { cwd: dir, env: { PATH: process.env.PATH ?? "/usr/bin:/bin", HOME: dir, TMPDIR: dir, LANG: "C", SPICE_SCRIPTS: path.join(dir, "scripts"), NODE_ENV: process.env.NODE_ENV } },
   };

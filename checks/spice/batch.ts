@@ -1,0 +1,36 @@
+import fs from "node:fs";
+import path from "node:path";
+import { DEFAULT_TIMEOUT_MS, execute, prepareRun } from "./run-ngspice";
+
+/** Short analyses share one ngspice process this many at a time (process start-up is most of their cost). */
+export const BATCH_SIZE = 16;
+
+/**
+ * Several complete decks in one ngspice process: an engine-written control block sources each
+ * deck, runs it, writes its raw file and removes the circuit and its plots. Each deck's title is
+ * replaced by a marker that its raw file must carry, so a deck that failed can never be answered
+ * with another's plot. Returns one raw file per deck, or null where the deck must run alone
+ * (which also gives its error message exactly as a single run would).
+ */
+export async function runBatchAsync(decks: string[], timeoutMs = DEFAULT_TIMEOUT_MS): Promise<(Buffer | null)[]> {
+  const marker = (i: number) => `assay batch member ${i}`;
+  const control = ["* assay batch", ".control", "set filetype=binary"];
+  decks.forEach((_, i) => control.push(`source d${i}.cir`, "run", `write o${i}.raw`, "remcirc", "destroy all"));
+  control.push("quit", ".endc", ".end", "");
+  const job = prepareRun(control.join("\n"), { timeoutMs: timeoutMs * decks.length }, false);
+  try {
+    decks.forEach((deck, i) => fs.writeFileSync(path.join(job.dir, `d${i}.cir`), `${marker(i)}\n${deck.slice(deck.indexOf("\n") + 1)}`));
+    await execute(job);
+    return decks.map((_, i) => {
+      try {
+        const raw = fs.readFileSync(path.join(job.dir, `o${i}.raw`));
+        const title = /^Title: (.*)$/m.exec(raw.subarray(0, 200).toString("latin1"))?.[1];
+        return title === marker(i) ? raw : null;
+      } catch {
+        return null;
+      }
+    });
+  } finally {
+    await fs.promises.rm(job.dir, { recursive: true, force: true });
+  }
+}
