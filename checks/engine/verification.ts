@@ -54,8 +54,15 @@ export class Verification {
     private parse: (o: SimOutcome & { ok: true }, req: SimRequest) => Known,
   ) {
     this.tol = simulationTolerances(block, statements);
-    // Samples move every toleranced parameter, so simulated and plain checks share them.
-    if (mc && side) this.samples = monteCarloSamples(block.params, toleranced(block.params), mc.n);
+    // The same seeded samples as the plain checks, with what the circuit cannot see held at
+    // nominal (as at the corners), so a simulated check compares the circuit with itself.
+    if (mc && side) {
+      const seen = new Set(this.tol.map((t) => t.p.name));
+      this.samples = monteCarloSamples(block.params, toleranced(block.params), mc.n).map((c) => ({
+        label: Object.fromEntries(Object.entries(c.label).filter(([k]) => seen.has(k))),
+        values: Object.fromEntries(Object.entries(c.values).map(([k, x]) => [k, seen.has(k) ? x : block.params.find((p) => p.name === k)!.si])),
+      }));
+    }
   }
 
   get simulates() {
