@@ -1,6 +1,7 @@
 import fs from "node:fs";
 import path from "node:path";
 import { defaultModelsDir } from "./paths";
+import { tableAsPwl } from "./table-source";
 import { SpiceError } from "./types";
 
 // DESIGN.md "Block file format": what a block circuit may hold. Everything else is refused
@@ -90,11 +91,16 @@ function sanitizeLines(source: string, scope: Scope): string {
     if (first.startsWith(".")) return void out.push(checkCard(first, text, raw, line, scope));
     if (first[0] === "a")
       throw new SpiceError(`XSPICE code-model instance "${first}" (A element) is not allowed: code models are not loaded, and some read files`, line);
-    if ((first[0] === "e" || first[0] === "g") && /\btable\b/i.test(text))
-      throw new SpiceError(
-        `"${first}": a TABLE source needs ngspice's analog code-model library, which also holds models that read files; write it as a B source with pwl(), e.g. B${first.slice(1)} out 0 V = pwl(V(in), 0, 0, 1, 1.5)`,
-        line,
-      );
+    if ((first[0] === "e" || first[0] === "g") && /\btable\b/i.test(text)) {
+      // Joined with its continuation lines, which become comments so line numbers still map back.
+      let joined = text;
+      for (let k = i + 1; k < lines.length && code(lines[k]).startsWith("+"); k++) {
+        joined += ` ${code(lines[k]).slice(1)}`;
+        lines[k] = `* (continued above) ${lines[k]}`;
+      }
+      card = "";
+      return void out.push(tableAsPwl(joined, line));
+    }
     if (!ELEMENTS.includes(first[0]))
       throw new SpiceError(`"${first}" is not a SPICE element line; ${what} holds ${scope.kind === "circuit" ? ALLOWED_TEXT : MODEL_FILE_TEXT}`, line);
     out.push(raw);

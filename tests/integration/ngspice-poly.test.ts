@@ -3,7 +3,8 @@ import os from "node:os";
 import path from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
 import { verifyBlock } from "@/checks";
-import { sanitizeNetlist } from "@/checks/spice";
+import { at } from "@/checks/measures";
+import { sanitizeNetlist, simulate } from "@/checks/spice";
 
 // Vendor-style macro-models: POLY(n) controlled sources run (the engine's spinit loads the
 // spice2poly code model alone); code models that read files stay refused; a simulator error
@@ -65,12 +66,25 @@ describe("POLY sources", () => {
 });
 
 describe("code models that read files stay refused", () => {
-  it("refuses an A element (filesource reads a file) and a TABLE source, on their lines", () => {
+  it("refuses an A element (filesource reads a file) on its line", () => {
     expect(() => sanitizeNetlist("R1 a 0 1k\nA1 %v([a]) src\n.model src filesource (file=\"/etc/passwd\")")).toThrow(
       expect.objectContaining({ line: 2, message: expect.stringMatching(/code-model instance "a1"/) }),
     );
-    expect(() => sanitizeNetlist("V1 in 0 1\nE1 out 0 TABLE {V(in)} = (0,0) (1,1.5)")).toThrow(
-      expect.objectContaining({ line: 2, message: expect.stringMatching(/TABLE source .* B source with pwl\(\)/) }),
-    );
+  });
+});
+
+describe("TABLE sources", () => {
+  it("run as a B source with pwl(), clamped at the table's ends, continuation lines kept in place", () => {
+    // A TABLE interpolates linearly between its points and holds the end values beyond them
+    // (common practice for SPICE table sources).
+    const circuit = "V1 in 0 DC 0\nR1 in 0 1k\nE1 t 0 TABLE {V(in)*2} =\n+ (0, 0) (1, 1.5)\n+ (3, 2)\nRT t 0 1k";
+    const clean = sanitizeNetlist(circuit);
+    expect(clean.split("\n")).toHaveLength(6);
+    expect(clean.split("\n")[2]).toBe("BE1 t 0 V = pwl(min(max(V(in)*2, 0), 3), 0, 0, 1, 1.5, 3, 2)");
+    const res = simulate({ title: "table", circuit, params: {}, analysis: { kind: "dc", source: "V1", from: -1, to: 3, step: 0.25 } }, { cacheDir });
+    expect(at(res, "t", -1)).toBeCloseTo(0, 9);
+    expect(at(res, "t", 0.25)).toBeCloseTo(0.75, 9);
+    expect(at(res, "t", 1)).toBeCloseTo(1.75, 9);
+    expect(at(res, "t", 3)).toBeCloseTo(2, 9);
   });
 });
