@@ -1,4 +1,5 @@
-// npm run worker [-- --team SLUG ...]: verifies queued check runs until SIGTERM/SIGINT (started by npm start).
+// npm run worker [-- --team SLUG ...]: verifies queued check runs and runs simulate jobs of any run until SIGTERM/SIGINT
+// (started by npm start). --team limits the start-up sweep of stale heads to those teams; runs come from one queue.
 import { TeamSchema } from "../entities";
 import { closeOrm, getEm } from "../lib/db/orm";
 import { startWorker } from "../lib/runs/worker";

@@ -121,6 +121,10 @@ describe("versions, forks and runs", () => {
     const run = await pollRun(blockSchema.parse(data).run!.id, w.people.viewer.read);
     expect(run).toMatchObject({ status: "done", badge: "verified", slug: pub, version: 1 });
     expect(run.report!.quantities.fc.value).toBeCloseTo(fc(4.7e3, 10e-9), 0);
+    // Once done, progress counts every simulation the run took (the report lists each one).
+    expect(run.progress.done).toBe(run.progress.total);
+    expect(run.progress.total).toBeGreaterThanOrEqual((run.report as unknown as { simulations: unknown[] }).simulations.length);
+    expect(run.progress.total).toBeGreaterThan(0);
   });
 
   it("forks with new values, and the fork's run reaches its verdict", async () => {
