@@ -1,11 +1,11 @@
 import type PgBoss from "pg-boss";
-import { localExecutor, type SimExecutor } from "@/checks";
+import { defaultConcurrency, localExecutor, type SimExecutor } from "@/checks";
 import { getEm } from "@/lib/db/orm";
 import { beforeBossStops, inTransaction, SIMULATE_QUEUE, startedBoss } from "@/lib/queue/boss";
 import { SIM_CHANNEL, type SimJobData } from "./sim-jobs";
 
-/** Simulations one worker process runs at once: one per process by default, as ngspice uses one core. */
-export const SIM_SLOTS = Math.max(1, Number(process.env.ASSAY_SIM_CONCURRENCY ?? 1));
+/** Simulations one worker process runs at once: one per core by default (ngspice uses one), like the engine's own. */
+export const SIM_SLOTS = Math.max(1, Number(process.env.ASSAY_SIM_CONCURRENCY ?? defaultConcurrency()));
 
 type Loop = { wake: () => void; stop: () => Promise<void> };
 let current: Loop | null = null;
