@@ -80,7 +80,7 @@ export function problem(err: unknown, headers: HeadersInit = {}): Response {
   h.set("Content-Type", "application/problem+json");
   h.set("Cache-Control", "no-store");
   if (doc.status === 401) h.set("WWW-Authenticate", 'Bearer realm="assay"');
-  // RFC 9110 §10.2.3: a 429 says in seconds when to come back (the body repeats it as `retryAfter`).
-  if (doc.status === 429 && typeof doc.retryAfter === "number") h.set("Retry-After", String(doc.retryAfter));
+  // RFC 9110 §10.2.3: a 429 or 503 says in seconds when to come back (the body repeats it as `retryAfter`).
+  if ((doc.status === 429 || doc.status === 503) && typeof doc.retryAfter === "number") h.set("Retry-After", String(doc.retryAfter));
   return new Response(JSON.stringify(doc), { status: doc.status, headers: h });
 }

@@ -5,6 +5,7 @@ import type { Caller } from "./caller";
 export type Action =
   | "block.read"
   | "block.create"
+  | "block.publish"
   | "block.fork"
   | "block.edit"
   | "block.archive"
@@ -36,6 +37,8 @@ const needs: Record<Action, Role> = {
   "block.fork": "author",
   "block.edit": "author",
   "block.archive": "maintainer",
+  // Making a block public publishes the team's work: maintainers decide, at creation as later (DESIGN.md, Roles).
+  "block.publish": "maintainer",
   "version.approve": "maintainer",
   "review.request": "author",
   "team.manage": "admin",

@@ -41,7 +41,15 @@ export async function sessionClaims(cookieHeader: string | null | undefined): Pr
  * Who sent this request: a Bearer API token, else the session cookie, else anonymous.
  * Works on any WHATWG Request (route handlers, tests), not only inside Next.
  */
-export async function callerFromRequest(req: Request): Promise<Caller> {
+// One resolution per request: the route wrapper resolves the caller before the handler asks again.
+const resolved = new WeakMap<Request, Promise<Caller>>();
+export function callerFromRequest(req: Request): Promise<Caller> {
+  let caller = resolved.get(req);
+  if (!caller) resolved.set(req, (caller = resolveCaller(req)));
+  return caller;
+}
+
+async function resolveCaller(req: Request): Promise<Caller> {
   return withEm((em) => callerFromRequestWith(em, req));
 }
 

@@ -23,7 +23,7 @@ export async function archiveBlock(caller: Caller, slug: string): Promise<{ slug
 export async function setVisibility(caller: Caller, slug: string, visibility: Visibility): Promise<{ slug: string; visibility: Visibility }> {
   if (visibility !== "team" && visibility !== "public") throw new AppError("validation", "visibility is team or public");
   const em = await getEm();
-  const block = await loadBlock(em, caller, slug, "block.archive");
+  const block = await loadBlock(em, caller, slug, "block.publish");
   if (block.visibility === visibility) return { slug: block.slug, visibility };
   await em.transactional(async (tx) => {
     const b = await tx.findOneOrFail(BlockSchema, { id: block.id }, { populate: ["team", "head"] });

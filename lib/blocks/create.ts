@@ -7,18 +7,28 @@ import { AppError } from "@/lib/errors";
 import { parseOrThrow, requireUser } from "./common";
 import { storeVersion, type StoredResult } from "./store";
 
+/** DESIGN.md: a token's own team is the default; a person in one team needs to name none either. */
+function defaultTeam(caller: Caller): string {
+  const own = caller.token ? caller.memberships.find((m) => m.teamId === caller.token!.teamId) : undefined;
+  if (own) return own.teamSlug;
+  if (caller.memberships.length === 1) return caller.memberships[0].teamSlug;
+  throw new AppError("validation", "team: name the team (?team=SLUG); you are in several", { errors: [{ path: "team", message: "required: you are in several teams" }] });
+}
+
 /** A new block from a block file: version 1, its run queued in the same transaction. */
 export async function createBlock(
   caller: Caller,
-  input: { teamSlug: string; text: string; visibility?: Visibility; message?: string },
+  input: { teamSlug?: string; text: string; visibility?: Visibility; message?: string },
 ): Promise<StoredResult> {
   const user = requireUser(caller);
   const em = await getEm();
-  const team = await em.findOne(TeamSchema, { slug: String(input.teamSlug ?? "") });
-  if (!team) throw new AppError("not_found", `no team "${input.teamSlug}"`);
+  const teamSlug = input.teamSlug ?? defaultTeam(caller);
+  const team = await em.findOne(TeamSchema, { slug: String(teamSlug) });
+  if (!team) throw new AppError("not_found", `no team "${teamSlug}"`);
   assertCan(caller, "block.create", { kind: "team", teamId: team.id });
   const visibility = input.visibility ?? "team";
   if (visibility !== "team" && visibility !== "public") throw new AppError("validation", "visibility is team or public");
+  if (visibility === "public") assertCan(caller, "block.publish", { kind: "team", teamId: team.id });
   const parsed = parseOrThrow(input.text);
   try {
     return await em.transactional(async (tx) => {

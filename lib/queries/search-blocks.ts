@@ -2,7 +2,7 @@
 import { keepPreviousData, queryOptions, useQuery } from "@tanstack/react-query";
 import type { SearchResult } from "@/lib/search/types";
 import type { SearchFilters } from "@/lib/validation/blocks";
-import { apiJson } from "./http";
+import { ApiError, apiJson } from "./http";
 
 export type { SearchFilters, SearchResult };
 
@@ -25,6 +25,9 @@ export const searchBlocksQueryOptions = (f: SearchFilters, initial?: { for: stri
     placeholderData: keepPreviousData,
     initialData: initial?.data && initial.for === searchQueryString(f) ? initial.data : undefined,
     staleTime: 30_000,
+    // An answer from the server (search unavailable, a bad filter) is shown at once instead of retried behind
+    // "Searching…"; only a request that got no answer is tried again.
+    retry: (failures, err) => !(err instanceof ApiError) && failures < 2,
   });
 
 export const useSearchBlocks = (f: SearchFilters, initial?: { for: string; data: SearchResult | null }) =>

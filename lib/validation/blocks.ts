@@ -82,7 +82,7 @@ export const retuneBodySchema = z.strictObject({
 });
 
 export const createQuerySchema = z.object({
-  team: teamSlugSchema,
+  team: teamSlugSchema.optional().meta({ description: "Team that owns the block (default: a token's own team, or the caller's only team)" }),
   visibility: z.enum(["team", "public"]).optional(),
 });
 export const fileVersionQuerySchema = z.object({

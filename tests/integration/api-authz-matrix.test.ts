@@ -131,6 +131,38 @@ describe("authorization matrix", () => {
     });
   }
 
+  // DESIGN.md, REST API: the caller is resolved before the request is validated, so a signed-out or bad-token
+  // call is a 401 whatever is wrong with its body, query or type, and learns nothing about what would validate.
+  it("answers 401 to every malformed request from a signed-out or bad-token caller", async () => {
+    const big = "x".repeat(300 * 1024);
+    const malformed: [string, string, RequestInit][] = [];
+    const open = new Set(["GET /api/v1/health", "GET /api/v1/openapi.json", "GET /api/v1/bench/constant"]); // no caller, no input
+    for (const r of servedRoutes().filter((x) => !open.has(x))) {
+      const [method, template] = r.split(" ");
+      const path = template.replace("[slug]", slug).replace("[n]", "1").replace("[id]", runId);
+      if (method === "GET") {
+        malformed.push([r, `${path}?limit=-3&cursor=%00&version=x&format=nope`, { method }]);
+        continue;
+      }
+      malformed.push(
+        [r, path, { method, headers: { "Content-Type": "application/json" }, body: "{not json" }],
+        [r, path, { method, headers: { "Content-Type": "application/json" }, body: JSON.stringify({ params: 7, baseVersion: "x", slug: "NO SLUG" }) }],
+        [r, path, { method, headers: { "Content-Type": "image/png" }, body: "\x89PNG" }],
+        [r, path, { method, headers: { "Content-Type": "text/markdown" }, body: big }],
+        [r, `${path}?team=Not+A+Slug&baseVersion=-1`, { method, headers: { "Content-Type": "text/markdown" }, body: "---\nslug: [\n" }],
+      );
+    }
+    const wrong: string[] = [];
+    for (const [r, path, init] of malformed) {
+      for (const auth of [{}, bearer("asy_" + "B".repeat(43))]) {
+        const res = await fetch(`${w.app.url}${path}`, { ...init, headers: { ...(init.headers as Record<string, string>), ...auth } });
+        await res.arrayBuffer();
+        if (res.status !== 401) wrong.push(`${r} ${init.method} ${path.slice(0, 60)} ${"Authorization" in auth ? "bad token" : "signed out"} → ${res.status}`);
+      }
+    }
+    expect(wrong).toEqual([]);
+  }, 300_000);
+
   it("refuses a cookie-carried write from a foreign origin, and lets the same write from our own origin through", async () => {
     const cookie = await w.cookieFor(w.people.author.id);
     const send = (origin: string) =>
