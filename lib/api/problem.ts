@@ -81,6 +81,8 @@ export function problem(err: unknown, headers: HeadersInit = {}): Response {
   h.set("Cache-Control", "no-store");
   if (doc.status === 401) h.set("WWW-Authenticate", 'Bearer realm="assay"');
   // RFC 9110 §10.2.3: a 429 or 503 says in seconds when to come back (the body repeats it as `retryAfter`).
+  // The rest of an oversized body is never read: end the connection instead of leaving the client to send it.
+  if (doc.status === 413) h.set("Connection", "close");
   if ((doc.status === 429 || doc.status === 503) && typeof doc.retryAfter === "number") h.set("Retry-After", String(doc.retryAfter));
   return new Response(JSON.stringify(doc), { status: doc.status, headers: h });
 }

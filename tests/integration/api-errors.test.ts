@@ -1,3 +1,4 @@
+import net from "node:net";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { PROBLEM_BASE, STALE_BASE_TYPE } from "@/lib/api/problem";
 import { problemSchema } from "@/lib/validation/api";
@@ -79,7 +80,38 @@ describe("409 conflict", () => {
   });
 });
 
+describe("a team-bound token", () => {
+  it("creates in its own team without ?team= (DESIGN.md: a token's own team is the default)", async () => {
+    const res = await md(w.people.author.write, rcBlockText(`n-${w.tag}`), "/api/v1/blocks");
+    expect(res.status).toBe(201);
+    const block = (await (await send(`/api/v1/blocks/n-${w.tag}`, { token: w.people.author.read })).json()) as { team: string };
+    expect(block.team).toBe(w.teamA.slug);
+  });
+});
+
 describe("413 and 415", () => {
+  it("closes the connection after an early 413 on a chunked body, so the next request is not left waiting", async () => {
+    const { hostname, port } = new URL(w.app.url);
+    const socket = net.connect(Number(port), hostname);
+    await new Promise((r) => socket.once("connect", r));
+    let received = "";
+    socket.on("data", (b) => (received += b.toString()));
+    const closed = new Promise<number>((r) => socket.once("close", () => r(Date.now())));
+    socket.write(`POST /api/v1/blocks?team=${w.teamA.slug} HTTP/1.1\r\nHost: ${hostname}\r\nAuthorization: Bearer ${w.people.author.write}\r\n` +
+      "Content-Type: text/markdown\r\nTransfer-Encoding: chunked\r\n\r\n");
+    const chunk = "x".repeat(64 * 1024);
+    for (let i = 0; i < 5 && !received; i++) socket.write(`${chunk.length.toString(16)}\r\n${chunk}\r\n`); // 320 KiB, never ended
+    const until = Date.now() + 10_000;
+    while (!/\r\n\r\n/.test(received) && Date.now() < until) await new Promise((r) => setTimeout(r, 20));
+    const answeredAt = Date.now();
+    expect(received).toMatch(/^HTTP\/1\.1 413 /);
+    expect(received).toMatch(/\r\nconnection: close\r\n/i);
+    const closedAt = await Promise.race([closed, new Promise<number>((r) => setTimeout(() => r(Infinity), 5_000))]);
+    expect(closedAt - answeredAt).toBeLessThan(2_000);
+    socket.destroy();
+  });
+
+
   it("refuse a block file over 256 KiB, and a JSON body over 64 KiB", async () => {
     const big = rcBlockText(`big-${w.tag}`) + "\n" + "x".repeat(260 * 1024);
     await problemOf(await md(w.people.author.write, big), 413, PROBLEM_BASE + "payload-too-large");
@@ -95,10 +127,8 @@ describe("413 and 415", () => {
 
 describe("422 validation", () => {
   it("lists the issues of a bad query or body, with their paths", async () => {
-    const limit = await problemOf(await send(`/api/v1/blocks?limit=500`), 422, PROBLEM_BASE + "validation");
+    const limit = await problemOf(await send(`/api/v1/blocks?limit=500`, { token: w.people.viewer.read }), 422, PROBLEM_BASE + "validation");
     expect(limit.errors?.[0].path).toBe("limit");
-    const noTeam = await problemOf(await md(w.people.author.write, rcBlockText(`n-${w.tag}`), "/api/v1/blocks"), 422, PROBLEM_BASE + "validation");
-    expect(noTeam.errors?.[0].path).toBe("team");
     const noBase = await problemOf(await json(w.people.author.write, `/api/v1/blocks/${slug}/versions`, { params: { R: "1 kohm" } }), 422, PROBLEM_BASE + "validation");
     expect(noBase.errors?.map((e) => e.path)).toContain("baseVersion");
     const series = await problemOf(await json(w.people.viewer.read, `/api/v1/blocks/${slug}/retune`, { param: "R", target: { quantity: "fc", value: "1 kHz" }, series: "E25" }), 422, PROBLEM_BASE + "validation");
