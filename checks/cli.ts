@@ -1,10 +1,14 @@
-// npm run -s verify -- FILE.md [--json]
-// Checks one block file; FILE is relative to where the command was typed (INIT_CWD).
-// Exit 0 verified, 1 failing or unchecked, 2 error.
+// npm run -s verify -- FILE.md [FILE.md | 'GLOB' ...] [--json]
+// Checks block files; paths and globs are relative to where the command was typed (INIT_CWD). Files are verified
+// in parallel, one sandbox child per core. With --json, stdout holds one report a line, in the order given.
+// Exit code of the worst file: 0 verified, 1 failing or unchecked, 2 error.
 import { readFileSync } from "node:fs";
+import os from "node:os";
 import path from "node:path";
+import { globSync, isDynamicPattern } from "tinyglobby";
 import type { Report } from "./engine/types";
 import { verifyBlock } from "./sandbox/api";
+import { SandboxLane, verifyLane } from "./sandbox/client";
 
 const MARK: Record<string, string> = { pass: "✓", fail: "✗", error: "!", skipped: "-" };
 
@@ -27,25 +31,62 @@ function human(report: Report, file: string): string {
   return out.join("\n");
 }
 
+const exitCode = (status: Report["status"] | "unreadable"): number => (status === "verified" ? 0 : status === "error" || status === "unreadable" ? 2 : 1);
+
+function expand(args: string[], cwd: string): string[] {
+  return args.flatMap((a) => (isDynamicPattern(a) ? globSync(a, { cwd, onlyFiles: true }).sort() : [a]));
+}
+
+type Outcome = { file: string; report?: Report; problem?: string };
+
+async function verifyFile(file: string, cwd: string, lane: SandboxLane): Promise<Outcome> {
+  let text: string;
+  try {
+    text = readFileSync(path.resolve(cwd, file), "utf8");
+  } catch (e) {
+    return { file, problem: `cannot read ${file}: ${(e as Error).message}` };
+  }
+  return { file, report: (await verifyBlock(text, { lane })).report };
+}
+
 async function main(): Promise<number> {
   const args = process.argv.slice(2);
   const json = args.includes("--json");
-  const files = args.filter((a) => !a.startsWith("--"));
-  if (files.length !== 1) {
-    process.stderr.write("usage: npm run -s verify -- FILE.md [--json]\n");
+  const cwd = process.env.INIT_CWD ?? process.cwd();
+  const files = expand(args.filter((a) => !a.startsWith("--")), cwd);
+  if (files.length === 0) {
+    process.stderr.write("usage: npm run -s verify -- FILE.md [MORE.md | 'content/blocks/*.md' ...] [--json]\n");
     return 2;
   }
-  const file = path.resolve(process.env.INIT_CWD ?? process.cwd(), files[0]);
-  let text: string;
-  try {
-    text = readFileSync(file, "utf8");
-  } catch (e) {
-    process.stderr.write(`cannot read ${file}: ${(e as Error).message}\n`);
-    return 2;
+  // One sandbox child per core at most: each runs its file's simulations, so files simulate side by side.
+  const width = Math.min(files.length, os.availableParallelism());
+  const lanes = [verifyLane, ...Array.from({ length: width - 1 }, () => new SandboxLane(768))];
+  const outcomes: Promise<Outcome>[] = new Array(files.length);
+  let next = 0;
+  const started: ((o: Promise<Outcome>) => void)[] = [];
+  const slots = files.map((_, i) => new Promise<Outcome>((resolve) => (started[i] = (o) => void o.then(resolve))));
+  await Promise.all(lanes.map(async (lane) => {
+    for (let i = next++; i < files.length; i = next++) {
+      outcomes[i] = verifyFile(files[i], cwd, lane);
+      started[i](outcomes[i]);
+      await outcomes[i];
+    }
+  }).concat((async () => {
+    // Printed in the order given, each as soon as it and those before it are done.
+    for (const slot of slots) {
+      const o = await slot;
+      if (o.problem) process.stderr.write(o.problem + "\n");
+      else if (json) process.stdout.write(JSON.stringify(files.length > 1 ? { file: o.file, ...o.report } : o.report) + "\n");
+      else process.stdout.write(human(o.report!, o.file) + "\n" + (files.length > 1 ? "\n" : ""));
+    }
+  })()));
+  const done = await Promise.all(outcomes);
+  const statuses = done.map((o) => o.report?.status ?? ("unreadable" as const));
+  if (files.length > 1 && !json) {
+    const count = (s: string) => statuses.filter((x) => x === s).length;
+    process.stdout.write(`${files.length} files: ${count("verified")} verified, ${count("failing") + count("unchecked")} failing or unchecked, ${count("error") + count("unreadable")} error\n`);
   }
-  const { report } = await verifyBlock(text);
-  process.stdout.write(json ? JSON.stringify(report, null, 2) + "\n" : human(report, files[0]) + "\n");
-  return report.status === "verified" ? 0 : report.status === "error" ? 2 : 1;
+  return Math.max(...statuses.map(exitCode));
 }
 
 main().then(

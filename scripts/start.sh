@@ -15,6 +15,7 @@ export APP_URL="${APP_URL:-http://127.0.0.1:$PORT}"
 export NEXTAUTH_URL="$APP_URL"
 export ASSAY_ROOT="$ROOT"
 node --import tsx scripts/env-secrets.ts var >/dev/null
+node scripts/engine-build.mjs # the CLI and the sandbox child as plain JavaScript, rebuilt when checks/ changed
 # Generated once into var/ and never committed.
 NEXTAUTH_SECRET="${NEXTAUTH_SECRET:-$(cat var/nextauth-secret)}"; export NEXTAUTH_SECRET
 MEILI_MASTER_KEY="${MEILI_MASTER_KEY:-$(cat var/search-key)}"; export MEILI_MASTER_KEY

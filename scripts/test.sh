@@ -12,6 +12,7 @@ export ASSAY_E2E=1
 ensure_system_packages
 ensure_node_modules
 export ASSAY_ROOT="$ROOT"
+node scripts/engine-build.mjs # the CLI and the sandbox child as plain JavaScript, rebuilt when checks/ changed
 export VITE_CONFIG_NATIVE_IGNORE_WARNING=true
 
 status=0

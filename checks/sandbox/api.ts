@@ -4,7 +4,7 @@ import type { RunProgress, SimExecutor } from "../engine/executor";
 import { runCapFromEnv, type RunCap } from "../engine/plan";
 import type { Report, Waveform } from "../engine/types";
 import { reportStatus } from "../engine/status";
-import { previewLane, verifyLane } from "./client";
+import { previewLane, verifyLane, type SandboxLane } from "./client";
 import type { ModelTexts } from "../spice/sanitize";
 
 const PREVIEW_TIMEOUT_MS = 3_000;
@@ -40,12 +40,14 @@ export type VerifyOptions = {
   cap?: RunCap;
   /** Model files `.include` names, resolved by the caller for the block's team (team first, then shared). */
   models?: ModelTexts;
+  /** The sandbox child to run in (the CLI runs one per core); the shared verify lane by default. */
+  lane?: SandboxLane;
 };
 
 /** Full verification in the sandbox child. Never throws for bad input: errors go in the report. */
 export async function verifyBlock(text: string, opts: VerifyOptions = {}): Promise<{ report: Report; waveforms: Waveform[] }> {
-  const { timeoutMs = VERIFY_TIMEOUT_MS, executor, onProgress, cap = runCapFromEnv(), ...rest } = opts;
-  const reply = await verifyLane.request("verify", String(text ?? ""), { ...rest, cap, remote: Boolean(executor) }, timeoutMs, { executor, progress: onProgress });
+  const { timeoutMs = VERIFY_TIMEOUT_MS, executor, onProgress, cap = runCapFromEnv(), lane = verifyLane, ...rest } = opts;
+  const reply = await lane.request("verify", String(text ?? ""), { ...rest, cap, remote: Boolean(executor) }, timeoutMs, { executor, progress: onProgress });
   if (!reply.ok) return { report: errorReport(text, reply.error ?? "the check run failed"), waveforms: [] };
   return reply.value as { report: Report; waveforms: Waveform[] };
 }

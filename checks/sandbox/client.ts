@@ -1,6 +1,6 @@
 import { fork, type ChildProcess } from "node:child_process";
 import type { RunProgress, SimExecutor, SimRequest } from "../engine/executor";
-import { assayRoot, childEntry } from "./root";
+import { assayRoot, childCommand } from "./root";
 
 // The child runs scripts from users: give it what it needs to run and no secrets (database URL, keys).
 const PASSED_ENV = /^(PATH|HOME|TMPDIR|TMP|TEMP|LANG|LC_ALL|NODE_ENV|TZ|ASSAY_(SIM_CACHE|SIM_CACHE_MB|MODELS_DIR|NGSPICE_CODEMODELS)|SPICE_.*)$/;
@@ -44,10 +44,13 @@ export class SandboxLane {
 
   private start(): Promise<void> {
     const root = assayRoot();
-    const child = fork(childEntry(), [], {
+    const { entry, execArgv } = childCommand();
+    // A child being replaced (timed out, or started again before it answered) is ended, never left running.
+    if (this.child && this.child.exitCode === null) this.child.kill("SIGKILL");
+    const child = fork(entry, [], {
       cwd: root,
       execPath: process.execPath,
-      execArgv: ["--import", "tsx", `--max-old-space-size=${this.memoryMb}`],
+      execArgv: [...execArgv, `--max-old-space-size=${this.memoryMb}`],
       stdio: ["ignore", "ignore", "pipe", "ipc"],
       env: childEnv(root) as NodeJS.ProcessEnv,
       serialization: "advanced",
@@ -128,6 +131,9 @@ export class SandboxLane {
   }
 }
 
-// Previews and full runs get a lane each, so a long simulation never holds up a keystroke.
-export const previewLane = new SandboxLane(256);
-export const verifyLane = new SandboxLane(768);
+// Previews and full runs get a lane each, so a long simulation never holds up a keystroke. One pair per process:
+// Next bundles this module into each route that uses it, and each copy would otherwise start children of its own.
+const lanes = globalThis as unknown as { __assayLanes?: { preview: SandboxLane; verify: SandboxLane } };
+lanes.__assayLanes ??= { preview: new SandboxLane(256), verify: new SandboxLane(768) };
+export const previewLane = lanes.__assayLanes.preview;
+export const verifyLane = lanes.__assayLanes.verify;
