@@ -6,6 +6,7 @@ import path from "node:path";
 import { spiceDeck, verifyBlock, warmEngine } from "@/checks";
 import { benchAnalyses } from "./analyses";
 import { OSC_ANALYSIS, expressionBlock, oscillatorBlock } from "./blocks";
+import { benchCli } from "./cli";
 
 const RUNS = Number(process.env.BENCH_RUNS ?? 7);
 const tmp = fs.mkdtempSync(path.join(os.tmpdir(), "assay-bench-"));
@@ -67,6 +68,7 @@ async function main() {
   console.log(`  ratio engine / bare: ${(e / b).toFixed(2)}   (target <= 1.25)`);
   console.log(`  cached rerun verifyBlock: ${ms(median(cached))}`);
   await benchAnalyses(tmp, RUNS);
+  await benchCli(tmp, RUNS, bareNgspice);
 }
 
 main()

@@ -5,15 +5,8 @@ import { assertCan } from "@/lib/auth/permissions";
 import { getEm } from "@/lib/db/orm";
 import { AppError } from "@/lib/errors";
 import { parseOrThrow, requireUser } from "./common";
+import { defaultTeam } from "./team-default";
 import { storeVersion, type StoredResult } from "./store";
-
-/** DESIGN.md: a token's own team is the default; a person in one team needs to name none either. */
-function defaultTeam(caller: Caller): string {
-  const own = caller.token ? caller.memberships.find((m) => m.teamId === caller.token!.teamId) : undefined;
-  if (own) return own.teamSlug;
-  if (caller.memberships.length === 1) return caller.memberships[0].teamSlug;
-  throw new AppError("validation", "team: name the team (?team=SLUG); you are in several", { errors: [{ path: "team", message: "required: you are in several teams" }] });
-}
 
 /** A new block from a block file: version 1, its run queued in the same transaction. */
 export async function createBlock(

@@ -11,14 +11,8 @@ import {
   searchQuerySchema,
 } from "@/lib/validation/blocks";
 import { blockSchema, createdSchema, searchResultSchema, versionListSchema } from "./responses";
-import { cursorQuery, etagHeaders, json, problems } from "./shared";
+import { blockFileBody, cursorQuery, etagHeaders, json, problems } from "./shared";
 
-const blockFileBody = {
-  "text/markdown": { schema: { type: "string" as const, description: "A block file (frontmatter, note, spice and check fences), at most 256 KiB" } },
-  "multipart/form-data": {
-    schema: { type: "object" as const, required: ["file"], properties: { file: { type: "string" as const, contentMediaType: "text/markdown" } } },
-  },
-};
 
 const createdResponse = {
   description: "Created; the first check run is queued",

@@ -1,9 +1,9 @@
 import { z } from "zod";
 import type { OpenAPIRegistry } from "@asteasolutions/zod-to-openapi";
 import { runParamsSchema, slugParamsSchema } from "@/lib/validation/api";
-import { evaluateBodySchema, retuneBodySchema } from "@/lib/validation/blocks";
+import { evaluateBodySchema, evaluateFileQuerySchema, retuneBodySchema } from "@/lib/validation/blocks";
 import { reportSchema, retuneResultSchema, runSchema } from "./responses";
-import { json, problems } from "./shared";
+import { blockFileBody, json, problems } from "./shared";
 
 export function registerRunPaths(r: OpenAPIRegistry): void {
   r.registerPath({
@@ -11,12 +11,27 @@ export function registerRunPaths(r: OpenAPIRegistry): void {
     path: "/api/v1/blocks/{slug}/evaluate",
     operationId: "evaluateBlock",
     tags: ["checks"],
-    summary: "Check the head with draft parameter values; nothing is stored",
-    description: "Without simulate the checks that need a simulation are skipped and the status is never verified. "
+    summary: "Check the head (or a pinned version) with draft values, or an edited block file of this block; nothing is stored",
+    description: "JSON: without simulate the checks that need a simulation are skipped and the status is never verified. "
+      + "A block file (text/markdown or multipart `file`) of this block is checked as it is, with simulations unless ?simulate=false. "
       + "Engine calls are budgeted per minute: per token or signed-in user, and for signed-out callers per block and overall; "
       + "an evaluation costs 1 point, with simulate 6, a retune 2 (defaults 60 points per caller, 20 per block and 60 overall signed out).",
-    request: { params: slugParamsSchema, body: { required: true, content: json(evaluateBodySchema) } },
+    request: {
+      params: slugParamsSchema,
+      query: evaluateFileQuerySchema.pick({ simulate: true }),
+      body: { required: true, content: { ...json(evaluateBodySchema), ...blockFileBody } },
+    },
     responses: { 200: { description: "The report", content: json(reportSchema) }, ...problems(401, 403, 404, 413, 415, 422, 429) },
+  });
+  r.registerPath({
+    method: "post",
+    path: "/api/v1/evaluate",
+    operationId: "evaluateFile",
+    tags: ["checks"],
+    summary: "Check a block file that is not in the library yet (CI, before a push); nothing is stored",
+    description: "For a member of the team (any role, any token scope); simulations run unless ?simulate=false. Budgeted like evaluate.",
+    request: { query: evaluateFileQuerySchema, body: { required: true, content: blockFileBody } },
+    responses: { 200: { description: "The report", content: json(reportSchema) }, ...problems(401, 404, 413, 415, 422, 429) },
   });
   r.registerPath({
     method: "post",

@@ -68,8 +68,8 @@ export interface paths {
         get?: never;
         put?: never;
         /**
-         * Check the head with draft parameter values; nothing is stored
-         * @description Without simulate the checks that need a simulation are skipped and the status is never verified. Engine calls are budgeted per minute: per token or signed-in user, and for signed-out callers per block and overall; an evaluation costs 1 point, with simulate 6, a retune 2 (defaults 60 points per caller, 20 per block and 60 overall signed out).
+         * Check the head (or a pinned version) with draft values, or an edited block file of this block; nothing is stored
+         * @description JSON: without simulate the checks that need a simulation are skipped and the status is never verified. A block file (text/markdown or multipart `file`) of this block is checked as it is, with simulations unless ?simulate=false. Engine calls are budgeted per minute: per token or signed-in user, and for signed-out callers per block and overall; an evaluation costs 1 point, with simulate 6, a retune 2 (defaults 60 points per caller, 20 per block and 60 overall signed out).
          */
         post: operations["evaluateBlock"];
         delete?: never;
@@ -144,6 +144,26 @@ export interface paths {
         get: operations["getVersion"];
         put?: never;
         post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/api/v1/evaluate": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Check a block file that is not in the library yet (CI, before a push); nothing is stored
+         * @description For a member of the team (any role, any token scope); simulations run unless ?simulate=false. Budgeted like evaluate.
+         */
+        post: operations["evaluateFile"];
         delete?: never;
         options?: never;
         head?: never;
@@ -656,9 +676,9 @@ export interface operations {
     };
     createBlock: {
         parameters: {
-            query: {
-                /** @description Team slug */
-                team: string;
+            query?: {
+                /** @description Team that owns the block (default: a token's own team, or the caller's only team) */
+                team?: string;
                 visibility?: "team" | "public";
             };
             header?: never;
@@ -864,7 +884,10 @@ export interface operations {
     };
     evaluateBlock: {
         parameters: {
-            query?: never;
+            query?: {
+                /** @description Run the simulations (default true for a file: CI wants the simulated quantities) */
+                simulate?: "true" | "false";
+            };
             header?: never;
             path: {
                 /** @description Block slug, unique across the instance */
@@ -888,7 +911,16 @@ export interface operations {
                     };
                     /** @description Run the simulations too; without it simulated checks are skipped */
                     simulate?: boolean;
+                    /**
+                     * @description Evaluate this stored version instead of the head
+                     * @example 3
+                     */
+                    version?: number;
                 };
+                "multipart/form-data": {
+                    file: string;
+                };
+                "text/markdown": string;
             };
         };
         responses: {
@@ -1449,6 +1481,94 @@ export interface operations {
             /** @description The request did not validate; `errors` lists the issues */
             422: {
                 headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    evaluateFile: {
+        parameters: {
+            query?: {
+                /** @description Run the simulations (default true for a file: CI wants the simulated quantities) */
+                simulate?: "true" | "false";
+                /** @description Team whose engine budget and models apply (default: a token's own team, or the caller's only team) */
+                team?: string;
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "multipart/form-data": {
+                    file: string;
+                };
+                "text/markdown": string;
+            };
+        };
+        responses: {
+            /** @description The report */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Report"] & unknown;
+                };
+            };
+            /** @description Sign-in or a valid token is required (or the token is malformed, revoked or expired) */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such resource, or a team block outside the caller's teams */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than allowed */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unsupported Content-Type */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The request did not validate; `errors` lists the issues */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Too many engine runs for this caller (signed out: for this block, or for everyone signed out); wait `Retry-After` seconds (`retryAfter` in the body) */
+            429: {
+                headers: {
+                    /** @description Seconds until the budget allows this call again (RFC 9110 §10.2.3) */
+                    "Retry-After": string;
                     [name: string]: unknown;
                 };
                 content: {

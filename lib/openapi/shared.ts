@@ -34,3 +34,11 @@ export const etagHeaders = z.object({
 });
 
 export const cursorQuery = cursorQuerySchema;
+
+/** A block file upload: the body itself, or the `file` part of a form. */
+export const blockFileBody = {
+  "text/markdown": { schema: { type: "string" as const, description: "A block file (frontmatter, note, spice and check fences), at most 256 KiB" } },
+  "multipart/form-data": {
+    schema: { type: "object" as const, required: ["file"], properties: { file: { type: "string" as const, contentMediaType: "text/markdown" } } },
+  },
+};

@@ -69,6 +69,13 @@ export const retuneFormSchema = z.object({
 export const evaluateBodySchema = z.strictObject({
   params: paramValuesSchema.default({}),
   simulate: z.boolean().optional().meta({ description: "Run the simulations too; without it simulated checks are skipped" }),
+  version: versionNumberSchema.optional().meta({ description: "Evaluate this stored version instead of the head" }),
+});
+/** With a block file body (text/markdown): simulations run unless `simulate=false`. */
+export const evaluateFileQuerySchema = z.object({
+  simulate: z.enum(["true", "false"]).default("true").transform((v) => v === "true")
+    .meta({ description: "Run the simulations (default true for a file: CI wants the simulated quantities)" }),
+  team: teamSlugSchema.optional().meta({ description: "Team whose engine budget and models apply (default: a token's own team, or the caller's only team)" }),
 });
 
 export const retuneBodySchema = z.strictObject({

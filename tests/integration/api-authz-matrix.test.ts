@@ -65,6 +65,11 @@ const MATRIX: Record<string, Entry> = {
     call: async () => json(`/api/v1/blocks/${slug}/retune`, { param: "R", target: { quantity: "fc", value: "3.4 kHz" }, series: "E24" }),
     expect: { ...readTeamBlock },
   },
+  "POST /api/v1/evaluate": {
+    // A file not in the library, for any member of the named team (a read token too); outsiders do not see the team.
+    call: async () => ({ path: `/api/v1/evaluate?team=${w.teamA.slug}&simulate=false`, method: "POST", body: rcBlockText(`rc-ci-${unique()}`), type: "text/markdown" }),
+    expect: { ...all(200), anonymous: 401, otherTeam: 404 },
+  },
   "GET /api/v1/blocks/[slug]/badge.svg": { call: async () => ({ path: `/api/v1/blocks/${slug}/badge.svg`, method: "GET" }), expect: readTeamBlock },
   "GET /api/v1/runs/[id]": { call: async () => ({ path: `/api/v1/runs/${runId}`, method: "GET" }), expect: readTeamBlock },
   // The shared model library is everyone's; a team's files are its members' alone (404 outside, as for team blocks).
@@ -136,7 +141,8 @@ describe("authorization matrix", () => {
   it("answers 401 to every malformed request from a signed-out or bad-token caller", async () => {
     const big = "x".repeat(300 * 1024);
     const malformed: [string, string, RequestInit][] = [];
-    const open = new Set(["GET /api/v1/health", "GET /api/v1/openapi.json", "GET /api/v1/bench/constant"]); // no caller, no input
+    // No caller and no input (health, the document, the bench floor), or no input beyond an id in the path (a run).
+    const open = new Set(["GET /api/v1/health", "GET /api/v1/openapi.json", "GET /api/v1/bench/constant", "GET /api/v1/runs/[id]"]);
     for (const r of servedRoutes().filter((x) => !open.has(x))) {
       const [method, template] = r.split(" ");
       const path = template.replace("[slug]", slug).replace("[n]", "1").replace("[id]", runId);

@@ -16,6 +16,7 @@ const ROUTES = [
   "get /api/v1/blocks/{slug}/versions/{n}",
   "post /api/v1/blocks/{slug}/forks",
   "post /api/v1/blocks/{slug}/evaluate",
+  "post /api/v1/evaluate",
   "post /api/v1/blocks/{slug}/retune",
   "get /api/v1/runs/{id}",
   "get /api/v1/blocks/{slug}/badge.svg",

@@ -1,0 +1,21 @@
+import { readBlockFile } from "@/lib/api/body";
+import { noStore } from "@/lib/api/cache";
+import { consumeEngine } from "@/lib/api/engine-limit";
+import { route } from "@/lib/api/handler";
+import { callerFromRequest } from "@/lib/auth/request-caller";
+import { teamForEvaluation } from "@/lib/blocks/team-default";
+import { evaluateFile } from "@/lib/runs/preview";
+import { queryObject } from "@/lib/validation/api";
+import { evaluateFileQuerySchema } from "@/lib/validation/blocks";
+
+export const dynamic = "force-dynamic";
+
+// A block file not in the library yet (CI checks it before it is pushed): a report, nothing stored.
+export const POST = route(async (req) => {
+  const caller = await callerFromRequest(req);
+  const query = evaluateFileQuerySchema.parse(queryObject(req.url));
+  const team = teamForEvaluation(caller, query.team);
+  const text = await readBlockFile(req);
+  await consumeEngine(caller, `new:${team.slug}`, query.simulate ? "simulate" : "evaluate");
+  return Response.json(await evaluateFile(text, { simulate: query.simulate, teamId: team.id }), { headers: noStore });
+});
