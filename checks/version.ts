@@ -4,7 +4,7 @@ import path from "node:path";
 import { defaultModelsDir } from "./spice/paths";
 
 // Bump whenever a change could alter a report for the same block file.
-export const ENGINE_VERSION = "1.7.0";
+export const ENGINE_VERSION = "1.8.0";
 
 /** sha256 over the shared model library: each .lib file's name and bytes, in sorted name order. */
 export function modelLibraryHash(modelsDir?: string): string {

@@ -37,10 +37,18 @@ export function readTolerance(tol: string, unit: string): Tolerance {
 }
 
 /** Validate the `params` list; one error per mistake, each with its file line. */
+/** Parameters per block (checks/README.md, limits). */
+export const MAX_PARAMS = 200;
+
 export function readParams(node: Node | null | undefined, lineOf: (n: Node | null | undefined) => number, errors: BlockError[]): ParamSpec[] {
   if (node == null) return [];
   if (!isSeq(node)) {
     errors.push({ message: "params must be a list of { name, value, tol?, note? }", line: lineOf(node) });
+    return [];
+  }
+  // Each parameter multiplies the corner and sensitivity work: a block is a circuit block, not a data file.
+  if (node.items.length > MAX_PARAMS) {
+    errors.push({ message: `at most ${MAX_PARAMS} parameters per block (this one has ${node.items.length})`, line: lineOf(node) });
     return [];
   }
   const out: ParamSpec[] = [];

@@ -56,3 +56,21 @@ export async function consumeEngine(caller: Caller, slug: string, call: EngineCa
     }
   }
 }
+
+/** Wall time of engine work worth one more point: a heavy call (many parameters, corners) drains the budget by its work. */
+export const WORK_MS_PER_POINT = 250;
+
+/**
+ * Counts one engine call up front, runs it, then charges the budget by the work it took (`penalty` never refuses:
+ * the next call is the one that waits).
+ */
+export async function engineCall<T>(caller: Caller, slug: string, call: EngineCall, work: () => Promise<T>): Promise<T> {
+  await consumeEngine(caller, slug, call);
+  const t0 = performance.now();
+  try {
+    return await work();
+  } finally {
+    const extra = Math.floor((performance.now() - t0) / WORK_MS_PER_POINT);
+    if (extra > 0) for (const [name, points, key] of engineBuckets(caller, slug)) await limiter(name, points).penalty(key, extra);
+  }
+}

@@ -1,6 +1,6 @@
 import { readBlockFile } from "@/lib/api/body";
 import { noStore } from "@/lib/api/cache";
-import { consumeEngine } from "@/lib/api/engine-limit";
+import { engineCall } from "@/lib/api/engine-limit";
 import { route } from "@/lib/api/handler";
 import { callerFromRequest } from "@/lib/auth/request-caller";
 import { teamForEvaluation } from "@/lib/blocks/team-default";
@@ -16,6 +16,6 @@ export const POST = route(async (req) => {
   const query = evaluateFileQuerySchema.parse(queryObject(req.url));
   const team = teamForEvaluation(caller, query.team);
   const text = await readBlockFile(req);
-  await consumeEngine(caller, `new:${team.slug}`, query.simulate ? "simulate" : "evaluate");
-  return Response.json(await evaluateFile(text, { simulate: query.simulate, teamId: team.id }), { headers: noStore });
+  const report = await engineCall(caller, `new:${team.slug}`, query.simulate ? "simulate" : "evaluate", () => evaluateFile(text, { simulate: query.simulate, teamId: team.id }));
+  return Response.json(report, { headers: noStore });
 });

@@ -1,6 +1,6 @@
 import { isBlockFileRequest, readBlockFile, readJson } from "@/lib/api/body";
 import { noStore } from "@/lib/api/cache";
-import { consumeEngine } from "@/lib/api/engine-limit";
+import { engineCall } from "@/lib/api/engine-limit";
 import { pathParams, route } from "@/lib/api/handler";
 import { callerFromRequest } from "@/lib/auth/request-caller";
 import { evaluateBlock } from "@/lib/runs/preview";
@@ -16,6 +16,6 @@ export const POST = route<{ slug: string }>(async (req, params) => {
   const input = isBlockFileRequest(req)
     ? { text: await readBlockFile(req), simulate: evaluateFileQuerySchema.parse(queryObject(req.url)).simulate }
     : evaluateBodySchema.parse(await readJson(req));
-  await consumeEngine(caller, slug, input.simulate === true ? "simulate" : "evaluate");
-  return Response.json(await evaluateBlock(caller, slug, input), { headers: noStore });
+  const report = await engineCall(caller, slug, input.simulate === true ? "simulate" : "evaluate", () => evaluateBlock(caller, slug, input));
+  return Response.json(report, { headers: noStore });
 });

@@ -1,6 +1,6 @@
 import { readJson } from "@/lib/api/body";
 import { noStore } from "@/lib/api/cache";
-import { consumeEngine } from "@/lib/api/engine-limit";
+import { engineCall } from "@/lib/api/engine-limit";
 import { pathParams, route } from "@/lib/api/handler";
 import { callerFromRequest } from "@/lib/auth/request-caller";
 import { retuneBlock } from "@/lib/runs/preview";
@@ -13,7 +13,6 @@ export const POST = route<{ slug: string }>(async (req, params) => {
   const { slug } = pathParams(slugParamsSchema, params);
   const body = retuneBodySchema.parse(await readJson(req));
   const caller = await callerFromRequest(req);
-  await consumeEngine(caller, slug, "retune");
-  const { value, snapped, report } = await retuneBlock(caller, slug, body);
+  const { value, snapped, report } = await engineCall(caller, slug, "retune", () => retuneBlock(caller, slug, body));
   return Response.json({ value, snapped, report }, { headers: noStore });
 });
