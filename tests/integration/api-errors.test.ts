@@ -121,7 +121,7 @@ describe("413 and 415", () => {
   it("refuse a content type a route does not take", async () => {
     await problemOf(await send(`/api/v1/blocks?team=${w.teamA.slug}`, { method: "POST", token: w.people.author.write, headers: { "Content-Type": "application/json" }, body: "{}" }), 415, PROBLEM_BASE + "unsupported-media-type");
     await problemOf(await send(`/api/v1/blocks/${slug}/versions`, { method: "POST", token: w.people.author.write, headers: { "Content-Type": "text/plain" }, body: "R=1" }), 415, PROBLEM_BASE + "unsupported-media-type");
-    await problemOf(await send(`/api/v1/blocks/${slug}/evaluate`, { method: "POST", token: w.people.author.write, headers: { "Content-Type": "text/markdown" }, body: "x" }), 415, PROBLEM_BASE + "unsupported-media-type");
+    await problemOf(await send(`/api/v1/blocks/${slug}/evaluate`, { method: "POST", token: w.people.author.write, headers: { "Content-Type": "text/plain" }, body: "x" }), 415, PROBLEM_BASE + "unsupported-media-type");
   });
 });
 
