@@ -1,12 +1,11 @@
 import { randomUUID } from "node:crypto";
 import os from "node:os";
-import pg from "pg";
 import { warmEngine } from "@/checks";
-import { databaseUrl } from "@/lib/db/database-url";
 import { getEm } from "@/lib/db/orm";
 import { RUN_CHANNEL } from "./enqueue";
 import { processNext } from "./execute";
 import { beat, forget, pruneSilent } from "./heartbeat";
+import { listenFor } from "./listen";
 import { stopBoss } from "@/lib/queue/boss";
 import { LEASE_SECONDS, reapExpired, releaseRun, requeueLost } from "./lease";
 import { enqueueStaleHeads } from "./reverify";
@@ -36,14 +35,13 @@ export function startWorker(opts: WorkerOptions = {}): { id: string; stop: () =>
     wake = () => { clearTimeout(t); wake = null; resolve(); };
   });
 
-  const listener = new pg.Client({ connectionString: databaseUrl() });
+  let listener: { stop: () => Promise<void> } | null = null;
   // New runs wake the verify loop; new simulate jobs (an empty payload) the simulate loop; a stored result its coordinator.
-  listener.on("notification", (n) => {
+  const onNotify = (n: { channel: string; payload?: string }) => {
     if (n.channel !== SIM_CHANNEL) wake?.();
     else if (n.payload) resultArrived(n.payload);
     else if (!stopping) simulating(id, log).wake();
-  });
-  listener.on("error", (err) => log(`listen connection lost (${err.message}); polling only`));
+  };
 
   const timers: NodeJS.Timeout[] = [];
   const every = (ms: number, fn: () => Promise<unknown>) =>
@@ -52,7 +50,11 @@ export function startWorker(opts: WorkerOptions = {}): { id: string; stop: () =>
   const done = (async () => {
     const em = await getEm();
     await beat(em, id, null, startedAt);
-    await listener.connect().then(() => listener.query(`LISTEN ${RUN_CHANNEL}; LISTEN ${SIM_CHANNEL}`)).catch((err: Error) => log(`no LISTEN (${err.message}); polling only`));
+    // Reconnects after a database restart; whatever was sent meanwhile is looked for once.
+    listener = listenFor({
+      channels: [RUN_CHANNEL, SIM_CHANNEL], onNotify, log,
+      onRestored: () => { wake?.(); if (!stopping) simulating(id, log).wake(); },
+    });
     every(5000, async () => beat(await getEm(), id, current, startedAt));
     every(Math.min(10_000, LEASE_SECONDS * 500), async () => {
       const back = await requeueLost(await getEm());
@@ -89,7 +91,7 @@ export function startWorker(opts: WorkerOptions = {}): { id: string; stop: () =>
     if (current) await releaseRun(em, current, id).catch(() => undefined);
     await forget(em, id).catch(() => undefined);
     await stopBoss();
-    await listener.end().catch(() => undefined);
+    await listener?.stop();
   };
   return { id, stop, done };
 }
