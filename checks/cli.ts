@@ -61,25 +61,20 @@ async function main(): Promise<number> {
   // One sandbox child per core at most: each runs its file's simulations, so files simulate side by side.
   const width = Math.min(files.length, os.availableParallelism());
   const lanes = [verifyLane, ...Array.from({ length: width - 1 }, () => new SandboxLane(768))];
-  const outcomes: Promise<Outcome>[] = new Array(files.length);
+  // Each file's outcome is a promise made up front; lanes fill them in turn, the printer reads them in order.
+  const settle: ((o: Outcome) => void)[] = [];
+  const outcomes = files.map((_, i) => new Promise<Outcome>((resolve) => (settle[i] = resolve)));
   let next = 0;
-  const started: ((o: Promise<Outcome>) => void)[] = [];
-  const slots = files.map((_, i) => new Promise<Outcome>((resolve) => (started[i] = (o) => void o.then(resolve))));
-  await Promise.all(lanes.map(async (lane) => {
-    for (let i = next++; i < files.length; i = next++) {
-      outcomes[i] = verifyFile(files[i], cwd, lane);
-      started[i](outcomes[i]);
-      await outcomes[i];
-    }
-  }).concat((async () => {
-    // Printed in the order given, each as soon as it and those before it are done.
-    for (const slot of slots) {
-      const o = await slot;
-      if (o.problem) process.stderr.write(o.problem + "\n");
-      else if (json) process.stdout.write(JSON.stringify(files.length > 1 ? { file: o.file, ...o.report } : o.report) + "\n");
-      else process.stdout.write(human(o.report!, o.file) + "\n" + (files.length > 1 ? "\n" : ""));
-    }
-  })()));
+  const verifying = lanes.map(async (lane) => {
+    for (let i = next++; i < files.length; i = next++) settle[i](await verifyFile(files[i], cwd, lane));
+  });
+  for (const outcome of outcomes) {
+    const o = await outcome; // printed in the order given, each as soon as it and those before it are done
+    if (o.problem) process.stderr.write(o.problem + "\n");
+    else if (json) process.stdout.write(JSON.stringify(files.length > 1 ? { file: o.file, ...o.report } : o.report) + "\n");
+    else process.stdout.write(human(o.report!, o.file) + "\n" + (files.length > 1 ? "\n" : ""));
+  }
+  await Promise.all(verifying);
   const done = await Promise.all(outcomes);
   const statuses = done.map((o) => o.report?.status ?? ("unreadable" as const));
   if (files.length > 1 && !json) {

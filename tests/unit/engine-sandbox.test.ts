@@ -93,4 +93,17 @@ describe("verify CLI", () => {
     expect(r.stdout).toMatch(/^fail\.md: FAILING/);
     expect(r.stdout).toContain("R = 1 kohm > 2 kohm ✗");
   });
+  it("checks several files and a glob in one call, compiled: one JSON report a line in the order given, exit of the worst", () => {
+    const dir = mkdtempSync(path.join(os.tmpdir(), "assay-cli-"));
+    writeFileSync(path.join(dir, "a-ok.md"), probe(""));
+    writeFileSync(path.join(dir, "b-fail.md"), probe("").replace("R > 0 ohm", "R > 2 kohm"));
+    writeFileSync(path.join(dir, "c-ok.md"), probe(""));
+    // The path `npm run -s verify` takes: the compiled CLI, rebuilt first when checks/ changed.
+    const r = spawnSync(process.execPath, [path.join(root, "scripts/engine-build.mjs"), "--run-cli", "c-ok.md", "[ab]-*.md", "--json"], {
+      cwd: root, encoding: "utf8", env: { ...process.env, INIT_CWD: dir }, timeout: 120_000,
+    });
+    expect(r.status, r.stderr).toBe(1);
+    const lines = r.stdout.trim().split("\n").map((l) => JSON.parse(l) as { file: string; status: string });
+    expect(lines.map((l) => [l.file, l.status])).toEqual([["c-ok.md", "verified"], ["a-ok.md", "verified"], ["b-fail.md", "failing"]]);
+  }, 180_000);
 });
