@@ -36,9 +36,10 @@ afterAll(async () => w?.stop(), 60_000);
 
 describe("creating and reading blocks", () => {
   it("creates from a text/markdown body: 201, Location, { slug, version, run }", async () => {
+    // Public from the start: a maintainer's decision (DESIGN.md, Roles), so a maintainer's token creates it.
     const res = await fetch(`${w.app.url}/api/v1/blocks?team=${w.teamA.slug}&visibility=public`, {
       method: "POST",
-      headers: { ...bearer(w.people.author.write), "Content-Type": "text/markdown" },
+      headers: { ...bearer(w.people.maintainer.write), "Content-Type": "text/markdown" },
       body: rcBlockText(pub),
     });
     expect(res.status).toBe(201);
@@ -155,7 +156,7 @@ describe("versions, forks and runs", () => {
     const post = (baseVersion: number) =>
       fetch(`${w.app.url}/api/v1/blocks/${pub}/versions`, {
         method: "POST",
-        headers: { ...bearer(w.people.author.write), "Content-Type": "application/json" },
+        headers: { ...bearer(w.people.maintainer.write), "Content-Type": "application/json" },
         body: JSON.stringify({ params: { R: "3.9 kohm" }, baseVersion, message: "faster corner" }),
       });
     const ok = await post(1);
@@ -167,7 +168,7 @@ describe("versions, forks and runs", () => {
     expect(await stale.json()).toMatchObject({ type: STALE_BASE_TYPE, status: 409, head: 2 });
     const file = await fetch(`${w.app.url}/api/v1/blocks/${pub}/versions?baseVersion=1`, {
       method: "POST",
-      headers: { ...bearer(w.people.author.write), "Content-Type": "text/markdown" },
+      headers: { ...bearer(w.people.maintainer.write), "Content-Type": "text/markdown" },
       body: rcBlockText(pub).replace("4.7 kohm", "4.3 kohm"),
     });
     expect(file.status).toBe(409);

@@ -23,7 +23,7 @@ describe("block read path", () => {
   it("gives the same view and lineage as getBlock and getLineage, checked against the stored rows", async () => {
     const { team, tag, callers } = await makeTeam(["author", "maintainer"]);
     const slug = `read-${tag}`;
-    await createBlock(callers.author, { teamSlug: team.slug, text: rcBlock(slug), visibility: "public" });
+    await createBlock(callers.maintainer, { teamSlug: team.slug, text: rcBlock(slug), visibility: "public" });
     const read = await getBlockWithLineage(await contextFor(callers.maintainer), { slug });
     const view = await read.view();
     expect(view).toEqual(await getBlock(await contextFor(callers.maintainer), { slug }));
@@ -43,7 +43,7 @@ describe("block read path", () => {
   it("changes the ETag exactly when the JSON changes: run state, approval, forks, parent versions, archive", async () => {
     const { team, tag, callers } = await makeTeam(["author", "maintainer"]);
     const slug = `etag-${tag}`;
-    await createBlock(callers.author, { teamSlug: team.slug, text: rcBlock(slug), visibility: "public" });
+    await createBlock(callers.maintainer, { teamSlug: team.slug, text: rcBlock(slug), visibility: "public" });
     const seen = new Set<string>();
     const fresh = async (why: string) => {
       const e = await etagOf(callers.maintainer, slug, 1);
@@ -78,9 +78,9 @@ describe("block read path", () => {
   });
 
   it("depends on who asks: a team fork of a public block is in the lineage only for its team", async () => {
-    const { team, tag, callers } = await makeTeam(["author"]);
+    const { team, tag, callers } = await makeTeam(["author", "maintainer"]);
     const slug = `who-${tag}`;
-    await createBlock(callers.author, { teamSlug: team.slug, text: rcBlock(slug), visibility: "public" });
+    await createBlock(callers.maintainer, { teamSlug: team.slug, text: rcBlock(slug), visibility: "public" });
     const before = await etagOf(anonymous, slug);
     await forkBlock(await contextFor(callers.author), { source: slug, slug: `who-fork-${tag}` });
     const member = await getBlockWithLineage(await contextFor(callers.author), { slug });
