@@ -14,9 +14,6 @@ const nextConfig: NextConfig = {
     "nodemailer",
   ],
   poweredByHeader: false,
-  // Metadata resolves before the page streams, for every client: a page whose metadata calls notFound() (a missing
-  // or hidden block) then answers with HTTP 404, not a 200 whose body says "not found".
-  htmlLimitedBots: /.*/,
   // Types are checked once, by `npm run typecheck` in npm test, so a start never fails on a type error.
   typescript: { ignoreBuildErrors: true },
   typedRoutes: false,

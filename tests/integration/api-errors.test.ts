@@ -80,23 +80,6 @@ describe("409 conflict", () => {
   });
 });
 
-describe("block pages", () => {
-  it("answer HTTP 404 for a missing block, a hidden team block and a missing version, 200 to a member", async () => {
-    const page = async (path: string, cookie?: string) => {
-      const res = await fetch(`${w.app.url}${path}`, { headers: cookie ? { Cookie: cookie } : {}, redirect: "manual" });
-      await res.arrayBuffer();
-      return res.status;
-    };
-    const member = await w.cookieFor(w.people.viewer.id);
-    expect(await page(`/blocks/no-such-block-${w.tag}`)).toBe(404);
-    expect(await page(`/blocks/${slug}`)).toBe(404); // a team block, signed out
-    expect(await page(`/blocks/${slug}`, await w.cookieFor(w.outsider.id))).toBe(404);
-    expect(await page(`/blocks/${slug}/versions/99`, member)).toBe(404);
-    expect(await page(`/blocks/${slug}`, member)).toBe(200);
-    expect(await page(`/blocks/${slug}/versions/1`, member)).toBe(200);
-  });
-});
-
 describe("a team-bound token", () => {
   it("creates in its own team without ?team= (DESIGN.md: a token's own team is the default)", async () => {
     const res = await md(w.people.author.write, rcBlockText(`n-${w.tag}`), "/api/v1/blocks");

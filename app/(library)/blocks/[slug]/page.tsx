@@ -12,9 +12,8 @@ const load = cache(async (slug: string) => loadBlockPage(await pageContext(), { 
 
 export async function generateMetadata({ params }: { params: Promise<{ slug: string }> }): Promise<Metadata> {
   const { slug } = await params;
-  // Resolved before the page streams (next.config htmlLimitedBots), so a missing or hidden block is an HTTP 404.
-  const model = await orNotFound(load(slug));
-  return { title: model.block.title };
+  const model = await load(slug).catch(() => null);
+  return { title: model?.block.title ?? "Block" };
 }
 
 export default async function BlockPage({ params }: { params: Promise<{ slug: string }> }) {
