@@ -2,7 +2,7 @@ import { createHash } from "node:crypto";
 import { describe, expect, it } from "vitest";
 import { BlockVersionSchema, CheckRunSchema } from "@/entities";
 import { anonymous, type Caller } from "@/lib/auth/caller";
-import { archiveBlock } from "@/lib/blocks/archive";
+import { archiveBlock, setVisibility } from "@/lib/blocks/archive";
 import { createBlock } from "@/lib/blocks/create";
 import { forkBlock } from "@/lib/blocks/fork";
 import { contextFor } from "@/lib/context";
@@ -43,7 +43,9 @@ describe("block read path", () => {
   it("changes the ETag exactly when the JSON changes: run state, approval, forks, parent versions, archive", async () => {
     const { team, tag, callers } = await makeTeam(["author", "maintainer"]);
     const slug = `etag-${tag}`;
-    await createBlock(callers.maintainer, { teamSlug: team.slug, text: rcBlock(slug), visibility: "public" });
+    // The author writes it; a maintainer publishes it (DESIGN.md, Roles) and, not being its author, may approve it.
+    await createBlock(callers.author, { teamSlug: team.slug, text: rcBlock(slug) });
+    await setVisibility(callers.maintainer, slug, "public");
     const seen = new Set<string>();
     const fresh = async (why: string) => {
       const e = await etagOf(callers.maintainer, slug, 1);
