@@ -8,14 +8,14 @@ type ReportLike = { simulations?: Sim[]; warnings?: (string | { message: string 
 const short = (h: string | null) => (h ? h.slice(0, 12) : "—");
 
 /** What a run ran on and what it cost: versions, model hashes, each simulation's time and cache hit, warnings. */
-export function RunDetails({ run }: { run: RunView }) {
+export function RunDetails({ run, open = false }: { run: RunView; open?: boolean }) {
   const report = (run.report ?? {}) as ReportLike;
   const sims = report.simulations ?? [];
   const warnings = (report.warnings ?? []).map((w) => (typeof w === "string" ? w : w.message));
   const models = report.models ?? [];
   if (run.status !== "done" && run.status !== "error") return null;
   return (
-    <details className="mt-1 text-xs">
+    <details className="mt-1 text-xs" open={open}>
       <summary className="cursor-pointer text-graphite">How it ran</summary>
       <dl className="mt-1 grid grid-cols-[auto_1fr] gap-x-3 gap-y-0.5">
         <dt className="text-graphite">engine</dt><dd className="font-mono">{run.engineVersion ?? "—"}</dd>

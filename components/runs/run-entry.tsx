@@ -31,7 +31,7 @@ export function verdictOf(run: RunView): string {
 }
 
 /** One verification on the timeline: its mark, verdict, reason and timing, and how it ran behind a disclosure. */
-export function RunEntry({ slug, run, action }: { slug: string; run: RunView; action?: React.ReactNode }) {
+export function RunEntry({ slug, run, action, open = false }: { slug: string; run: RunView; action?: React.ReactNode; open?: boolean }) {
   return (
     <li className="relative pl-7" data-testid="run-entry" data-badge={run.badge}>
       <span aria-hidden className={`absolute left-[3px] top-2 h-3 w-3 rotate-45 rounded-[2px] border-2 ${RAIL[run.badge] ?? RAIL.unchecked}`} />
@@ -46,7 +46,7 @@ export function RunEntry({ slug, run, action }: { slug: string; run: RunView; ac
         {run.attempts > 1 ? ` · ${run.attempts} attempts` : ""}
       </p>
       {action}
-      <RunDetails run={run} />
+      <RunDetails run={run} open={open} />
     </li>
   );
 }

@@ -29,8 +29,8 @@ export default async function RunsPage({ params }: { params: Promise<{ slug: str
       </p>
       {runs.length === 0 ? <EmptyState title="Not verified yet." /> : (
         <ol className="relative max-w-3xl space-y-4 before:absolute before:bottom-2 before:left-[8px] before:top-2 before:w-px before:bg-rule" data-testid="run-history">
-          {runs.map((r) => (
-            <RunEntry key={r.id} slug={slug} run={r}
+          {runs.map((r, i) => (
+            <RunEntry key={r.id} slug={slug} run={r} open={i === 0}
               action={allowed.rerun && latest.has(r.id) && (r.status === "done" || r.status === "error") ? <RerunButton slug={slug} version={r.version} /> : null} />
           ))}
         </ol>
