@@ -4,7 +4,7 @@ import { revalidatePath } from "next/cache";
 import { z } from "zod";
 import { slugSchema } from "@/lib/validation/api";
 import { addAttachment, MAX_ATTACHMENT_BYTES } from "@/lib/attachments/attachments";
-import { getCaller } from "@/lib/auth/session";
+import { actionContext } from "@/lib/next-context";
 import { failure, type FormState } from "@/lib/actions/form-state";
 
 const TYPES: Record<string, string> = { "image/png": ".png", "image/svg+xml": ".svg" };
@@ -27,12 +27,12 @@ export async function addAttachmentAction(_prev: FormState, form: FormData): Pro
   if (!(file instanceof File) || file.size === 0) return { ok: false, errors: { file: ["Choose a PNG or SVG file."] } };
   if (!TYPES[file.type]) return { ok: false, errors: { file: [`${file.name} is ${file.type || "of unknown type"}; attach a PNG or SVG image.`] } };
   if (file.size > MAX_ATTACHMENT_BYTES) return { ok: false, errors: { file: [`${file.name} is ${(file.size / 1048576).toFixed(2)} MiB; the limit is 1 MiB.`] } };
-  const caller = await getCaller();
-  if (!caller.user) return { ok: false, message: "Sign in to attach images." };
+  const ctx = await actionContext();
+  if (!ctx.caller.user) return { ok: false, message: "Sign in to attach images." };
   let state: FormState;
   try {
     const name = attachmentName(parsed.data.name || file.name, file.type);
-    const saved = await addAttachment(caller, parsed.data.slug, { name, contentType: file.type, bytes: new Uint8Array(await file.arrayBuffer()) });
+    const saved = await addAttachment(ctx, { slug: parsed.data.slug, name, contentType: file.type, bytes: new Uint8Array(await file.arrayBuffer()) });
     state = { ok: true, message: `Attached ${saved.name}. Put ![schematic](${saved.name}) in the note to show it.`, data: { name: saved.name } };
   } catch (err) {
     return failure(err);

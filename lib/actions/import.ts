@@ -4,6 +4,7 @@ import { redirect } from "next/navigation";
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
 import { importNetlist } from "@/checks";
+import { contextFor } from "@/lib/context";
 import { addAttachment, MAX_ATTACHMENT_BYTES } from "@/lib/attachments/attachments";
 import { getCaller } from "@/lib/auth/session";
 import { createBlock } from "@/lib/blocks/create";
@@ -53,7 +54,7 @@ export async function createImportAction(_prev: FormState, form: FormData): Prom
     slug = (await createBlock(caller, { teamSlug: parsed.data.team, text: parsed.data.text, visibility: parsed.data.visibility, message: "imported" })).slug;
     for (const img of images) {
       const type = img.name.toLowerCase().endsWith(".svg") ? "image/svg+xml" : "image/png";
-      await addAttachment(caller, slug, { name: img.name.toLowerCase(), contentType: type, bytes: new Uint8Array(await img.arrayBuffer()) });
+      await addAttachment(await contextFor(caller), { slug, name: img.name.toLowerCase(), contentType: type, bytes: new Uint8Array(await img.arrayBuffer()) });
     }
   } catch (err) {
     return { ...failure(err), data: { blockText: parsed.data.text } };

@@ -1,9 +1,10 @@
 import { createHash } from "node:crypto";
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { AttachmentSchema, UserSchema } from "@/entities";
-import type { Caller } from "@/lib/auth/caller";
+import type { Ctx } from "@/lib/context";
 import { loadBlock, requireUser } from "@/lib/blocks/common";
-import { getEm } from "@/lib/db/orm";
+import type { AttachmentRef, NewAttachment } from "@/lib/validation/attachments";
+import type { BlockInput } from "@/lib/validation/blocks";
 import { AppError } from "@/lib/errors";
 import { sanitiseSvg } from "./svg-sanitise";
 
@@ -14,10 +15,9 @@ const NAME = /^[a-z0-9][a-z0-9._-]{0,98}\.(png|svg)$/;
 export interface AttachmentInfo { name: string; contentType: string; size: number; sha256: string }
 
 /** A schematic image for the note (PNG, or SVG reduced to drawing elements), at most 1 MiB; same name replaces. */
-export async function addAttachment(caller: Caller, slug: string, input: { name: string; contentType: string; bytes: Uint8Array }): Promise<AttachmentInfo> {
+export async function addAttachment({ em, caller }: Ctx, input: NewAttachment): Promise<AttachmentInfo> {
   const user = requireUser(caller);
-  const em = await getEm();
-  const block = await loadBlock(em, caller, slug, "block.edit");
+  const block = await loadBlock(em, caller, input.slug, "block.edit");
   const name = String(input.name ?? "").toLowerCase();
   if (!NAME.test(name)) throw new AppError("validation", "name the file like schematic.png or schematic.svg (a-z, 0-9, . _ -)");
   let bytes = Buffer.from(input.bytes);
@@ -47,17 +47,15 @@ export async function addAttachment(caller: Caller, slug: string, input: { name:
   return { name, contentType, size: bytes.length, sha256 };
 }
 
-export async function getAttachment(caller: Caller, slug: string, name: string): Promise<AttachmentInfo & { bytes: Buffer }> {
-  const em = await getEm();
-  const block = await loadBlock(em, caller, slug);
-  const a = await em.findOne(AttachmentSchema, { block, name: String(name).toLowerCase() }, { populate: ["bytes"] });
+export async function getAttachment({ em, caller }: Ctx, input: AttachmentRef): Promise<AttachmentInfo & { bytes: Buffer }> {
+  const block = await loadBlock(em, caller, input.slug);
+  const a = await em.findOne(AttachmentSchema, { block, name: input.name.toLowerCase() }, { populate: ["bytes"] });
   if (!a) throw new AppError("not_found", "no such attachment");
   return { name: a.name, contentType: a.contentType, size: a.size, sha256: a.sha256, bytes: Buffer.from(a.bytes) };
 }
 
-export async function listAttachments(caller: Caller, slug: string): Promise<AttachmentInfo[]> {
-  const em = await getEm();
-  const block = await loadBlock(em, caller, slug);
+export async function listAttachments({ em, caller }: Ctx, input: BlockInput): Promise<AttachmentInfo[]> {
+  const block = await loadBlock(em, caller, input.slug);
   return attachmentsOf(em, block.id);
 }
 

@@ -6,6 +6,7 @@ import { createBlock } from "@/lib/blocks/create";
 import { closeOrm } from "@/lib/db/orm";
 import type { AppError } from "@/lib/errors";
 import { dividerBlock, drain, makeTeam, type TestTeam } from "./blocks-helpers";
+import { contextFor } from "@/lib/context";
 
 let team: TestTeam;
 const slug = () => `att-${team.tag}`;
@@ -21,16 +22,16 @@ const png = Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0
 
 describe("attachments", () => {
   it("stores a PNG and refuses what is not one, or too big, or of another type", async () => {
-    const info = await addAttachment(team.author, slug(), { name: "Schematic.png", contentType: "image/png", bytes: png });
+    const info = await addAttachment(await contextFor(team.author), { slug: slug(), name: "Schematic.png", contentType: "image/png", bytes: png });
     expect(info).toMatchObject({ name: "schematic.png", contentType: "image/png", size: png.length });
-    expect((await getAttachment(team.viewer, slug(), "schematic.png")).bytes.equals(png)).toBe(true);
-    expect(await code(addAttachment(team.author, slug(), { name: "x.png", contentType: "image/png", bytes: Buffer.from("GIF89a") }))).toBe("validation");
-    expect(await code(addAttachment(team.author, slug(), { name: "x.gif", contentType: "image/gif", bytes: Buffer.from("GIF89a") }))).toBe("validation");
-    expect(await code(addAttachment(team.author, slug(), { name: "x.png", contentType: "image/gif", bytes: png }))).toBe("unsupported_media_type");
+    expect((await getAttachment(await contextFor(team.viewer), { slug: slug(), name: "schematic.png" })).bytes.equals(png)).toBe(true);
+    expect(await code(addAttachment(await contextFor(team.author), { slug: slug(), name: "x.png", contentType: "image/png", bytes: Buffer.from("GIF89a") }))).toBe("validation");
+    expect(await code(addAttachment(await contextFor(team.author), { slug: slug(), name: "x.gif", contentType: "image/gif", bytes: Buffer.from("GIF89a") }))).toBe("validation");
+    expect(await code(addAttachment(await contextFor(team.author), { slug: slug(), name: "x.png", contentType: "image/gif", bytes: png }))).toBe("unsupported_media_type");
     const big = Buffer.concat([png, Buffer.alloc(1024 * 1024)]);
-    expect(await code(addAttachment(team.author, slug(), { name: "big.png", contentType: "image/png", bytes: big }))).toBe("payload_too_large");
-    expect(await code(addAttachment(team.viewer, slug(), { name: "v.png", contentType: "image/png", bytes: png }))).toBe("forbidden");
-    expect(await code(getAttachment(team.outsider, slug(), "schematic.png"))).toBe("not_found");
+    expect(await code(addAttachment(await contextFor(team.author), { slug: slug(), name: "big.png", contentType: "image/png", bytes: big }))).toBe("payload_too_large");
+    expect(await code(addAttachment(await contextFor(team.viewer), { slug: slug(), name: "v.png", contentType: "image/png", bytes: png }))).toBe("forbidden");
+    expect(await code(getAttachment(await contextFor(team.outsider), { slug: slug(), name: "schematic.png" }))).toBe("not_found");
   });
 
   it("reduces an SVG to drawing elements: no script, event handlers, foreign content or outside links", async () => {
@@ -45,14 +46,14 @@ describe("attachments", () => {
   <foreignObject><div>html</div></foreignObject>
   <rect style="fill: url(https://example.test/x)" width="1" height="1"/>
 </svg>`;
-    await addAttachment(team.author, slug(), { name: "divider.svg", contentType: "image/svg+xml", bytes: Buffer.from(svg) });
-    const out = (await getAttachment(team.viewer, slug(), "divider.svg")).bytes.toString("utf8");
+    await addAttachment(await contextFor(team.author), { slug: slug(), name: "divider.svg", contentType: "image/svg+xml", bytes: Buffer.from(svg) });
+    const out = (await getAttachment(await contextFor(team.viewer), { slug: slug(), name: "divider.svg" })).bytes.toString("utf8");
     expect(out).toContain('<path d="M0 20 H100"');
     expect(out).toContain("R1 10k");
     expect(out).toContain('fill="url(#r)"');
     for (const bad of ["<script", "alert(2)", "alert(3)", "onload", "foreignObject", "example.test", "<a", "javascript"]) expect(out).not.toContain(bad);
-    expect(await code(addAttachment(team.author, slug(), { name: "x.svg", contentType: "image/svg+xml", bytes: Buffer.from("<html><body/></html>") }))).toBe("validation");
-    expect(await code(addAttachment(team.author, slug(), { name: "e.svg", contentType: "image/svg+xml", bytes: Buffer.from('<!DOCTYPE svg [<!ENTITY a "b">]><svg/>') }))).toBe("validation");
-    expect((await listAttachments(team.viewer, slug())).map((a) => a.name)).toEqual(["divider.svg", "schematic.png"]);
+    expect(await code(addAttachment(await contextFor(team.author), { slug: slug(), name: "x.svg", contentType: "image/svg+xml", bytes: Buffer.from("<html><body/></html>") }))).toBe("validation");
+    expect(await code(addAttachment(await contextFor(team.author), { slug: slug(), name: "e.svg", contentType: "image/svg+xml", bytes: Buffer.from('<!DOCTYPE svg [<!ENTITY a "b">]><svg/>') }))).toBe("validation");
+    expect((await listAttachments(await contextFor(team.viewer), { slug: slug() })).map((a) => a.name)).toEqual(["divider.svg", "schematic.png"]);
   });
 });

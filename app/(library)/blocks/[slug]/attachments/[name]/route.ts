@@ -1,12 +1,12 @@
-import { getCaller } from "@/lib/auth/session";
 import { getAttachment } from "@/lib/attachments/attachments";
+import { requestContext } from "@/lib/context";
 import { isAppError } from "@/lib/errors";
 
 // A schematic image shown in a note. SVGs were sanitised on upload; the CSP here stops script even so.
 export async function GET(_req: Request, ctx: { params: Promise<{ slug: string; name: string }> }) {
   const { slug, name } = await ctx.params;
   try {
-    const a = await getAttachment(await getCaller(), slug, decodeURIComponent(name));
+    const a = await getAttachment(await requestContext(_req), { slug, name: decodeURIComponent(name) });
     return new Response(new Uint8Array(a.bytes), {
       headers: {
         "Content-Type": a.contentType,
