@@ -9,6 +9,7 @@ export { unitChanges } from "./block/unit-changes";
 export { eseries } from "./eseries";
 export { spiceDeck } from "./spice-deck";
 export { circuitRefusal } from "./spice/refusal";
+export { scriptRefusal } from "./engine/script-refusal";
 export { SpiceError } from "./spice/types";
 export { importNetlist } from "./import-netlist";
 export { MODEL_FILE, sanitizeModelFile, type ModelTexts } from "./spice/sanitize";

@@ -1,6 +1,6 @@
 import { createHash } from "node:crypto";
 import type { EntityManager } from "@mikro-orm/postgresql";
-import { SpiceError, circuitRefusal, parseBlock, spiceDeck, type ParamSpec, type ParsedBlock } from "@/checks";
+import { SpiceError, circuitRefusal, parseBlock, scriptRefusal, spiceDeck, type ParamSpec, type ParsedBlock } from "@/checks";
 import { BlockSchema, BlockVersionSchema, type Block, type BlockVersion, type StoredParam } from "@/entities";
 import type { Caller } from "@/lib/auth/caller";
 import { assertCan, type Action, type BlockResource } from "@/lib/auth/permissions";
@@ -24,6 +24,12 @@ export function parseOrThrow(text: string): ParsedBlock {
     const line = refused.line === undefined ? undefined : block.netlistLine + refused.line - 1;
     const error = { message: `netlist: ${refused.message}`, ...(line ? { line } : {}) };
     throw new AppError("validation", `the block file is not valid: ${error.message}${line ? ` (line ${line})` : ""}`, { errors: [error] });
+  }
+  // A script line that does not parse is refused too; what only a simulation can judge is left to the run.
+  const unreadable = scriptRefusal(block);
+  if (unreadable) {
+    const where = unreadable.line ? ` (line ${unreadable.line})` : "";
+    throw new AppError("validation", `the block file is not valid: ${unreadable.message}${where}`, { errors: [unreadable] });
   }
   return block;
 }

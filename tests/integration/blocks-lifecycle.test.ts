@@ -139,6 +139,13 @@ describe("versions, lineage and comparison", () => {
     expect(await count()).toBe(before);
     const redimensioned = await addVersion(team.author, slug, { text: wienFixture(slug).replace("{ name: Rf, value: 22 kohm", "{ name: Rf, value: 22 V"), baseVersion: 1 }).catch((e) => e);
     expect((redimensioned as AppError).message).toMatch(/parameter "Rf" was in ohm; "22 V" is in V \(line \d+\)/);
+    // A script line that does not parse could only earn an `error` badge: refused at its line, nothing stored.
+    const broken = wienFixture(slug).replace("```check\n", "```check\nloop = (1 + Rf / Rg\n");
+    const unreadable = await addVersion(team.author, slug, { text: broken, baseVersion: 1 }).catch((e) => e);
+    expect((unreadable as AppError).code).toBe("validation");
+    const line = broken.split("\n").indexOf("loop = (1 + Rf / Rg") + 1;
+    expect((unreadable as AppError).extra.errors).toEqual([expect.objectContaining({ line })]);
+    expect(await count()).toBe(before);
     const same = await addVersion(team.author, slug, { params: { Rf: "22 kohm" }, baseVersion: 1 }).catch((e) => e);
     expect((same as AppError).code).toBe("validation");
     const dup = await createBlock(team.author, { teamSlug: team.slug, text: wienFixture(slug) }).catch((e) => e);
