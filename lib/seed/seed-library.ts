@@ -1,13 +1,14 @@
 import { readdirSync, readFileSync } from "node:fs";
 import path from "node:path";
 import type { EntityManager } from "@mikro-orm/postgresql";
-import { BlockSchema, ReviewSchema, UserSchema } from "@/entities";
+import { BlockSchema, ModelSchema, ReviewSchema, UserSchema } from "@/entities";
 import { loadCaller } from "@/lib/auth/load-caller";
 import { setVisibility } from "@/lib/blocks/archive";
 import { createBlock } from "@/lib/blocks/create";
 import { forkBlock } from "@/lib/blocks/fork";
 import { contextFor } from "@/lib/context";
 import { addVersion } from "@/lib/blocks/versions";
+import { uploadModel } from "@/lib/models/upload";
 import { decide } from "@/lib/reviews/reviews";
 
 // Fenwick's library as the demo shows it: every content block, a few published, one fork, one retuned block,
@@ -27,6 +28,8 @@ const RETUNE = {
 const APPROVE = { slug: "wien-bridge-sine-1k", version: 1, comment: "Start-up margin and amplitude agree with my bench notes." };
 
 const blocksDir = () => path.join(process.env.ASSAY_ROOT || process.cwd(), "content/blocks");
+// Fenwick's own model files and the blocks that include them (content/team/fenwick): models first, so the blocks resolve.
+const teamDir = (sub: string) => path.join(process.env.ASSAY_ROOT || process.cwd(), "content/team/fenwick", sub);
 
 export async function seedLibrary(em: EntityManager): Promise<{ created: number }> {
   const nadia = await em.findOne(UserSchema, { email: AUTHOR });
@@ -37,9 +40,16 @@ export async function seedLibrary(em: EntityManager): Promise<{ created: number 
   const exists = async (slug: string) => (await em.fork().count(BlockSchema, { slug })) > 0;
   let created = 0;
 
-  const files = readdirSync(blocksDir()).filter((f) => f.endsWith(".md")).sort();
+  for (const name of readdirSync(teamDir("models")).filter((f) => f.endsWith(".lib")).sort()) {
+    if (await em.fork().count(ModelSchema, { team: { slug: "fenwick" }, name })) continue;
+    await uploadModel(await contextFor(author), { team: "fenwick", name, text: readFileSync(path.join(teamDir("models"), name), "utf8"), message: "from the component engineering notebook" });
+  }
+  const files = [
+    ...readdirSync(blocksDir()).filter((f) => f.endsWith(".md")).sort().map((f) => path.join(blocksDir(), f)),
+    ...readdirSync(teamDir("blocks")).filter((f) => f.endsWith(".md")).sort().map((f) => path.join(teamDir("blocks"), f)),
+  ];
   for (const file of files) {
-    const text = readFileSync(path.join(blocksDir(), file), "utf8");
+    const text = readFileSync(file, "utf8");
     const slug = /^slug:\s*["']?([a-z0-9-]+)/m.exec(text)?.[1] ?? file.replace(/\.md$/, "");
     if (await exists(slug)) continue;
     try {

@@ -2,7 +2,7 @@ import { readdirSync, readFileSync } from "node:fs";
 import { afterAll, describe, expect, it, vi } from "vitest";
 
 await vi.hoisted(async () => { await (await import("./blocks-db")).usePrivateDatabase(); });
-import { BlockSchema, BlockVersionSchema, CheckRunSchema, ReviewSchema, TeamSchema, UserSchema } from "@/entities";
+import { BlockSchema, BlockVersionSchema, CheckRunSchema, ModelSchema, ReviewSchema, TeamSchema, UserSchema } from "@/entities";
 import { anonymous } from "@/lib/auth/caller";
 import { loadCaller } from "@/lib/auth/load-caller";
 import { compareVersions } from "@/lib/blocks/compare";
@@ -17,9 +17,13 @@ afterAll(closeOrm);
 describe("demo library seed", () => {
   it("imports every content block into fenwick with a fork, a second version and an approval; a second run creates nothing", { timeout: 120_000 }, async () => {
     await seedPeople(await getEm());
-    const files = readdirSync("content/blocks").filter((f) => f.endsWith(".md"));
+    // content/blocks, and the blocks that include Fenwick's own model files (content/team/fenwick/blocks).
+    const files = [
+      ...readdirSync("content/blocks").filter((f) => f.endsWith(".md")).map((f) => `content/blocks/${f}`),
+      ...readdirSync("content/team/fenwick/blocks").filter((f) => f.endsWith(".md")).map((f) => `content/team/fenwick/blocks/${f}`),
+    ];
     // Other test files may add fenwick blocks of their own: look only at the seeded slugs.
-    const slugs = [...files.map((f) => /^slug:\s*([a-z0-9-]+)/m.exec(readFileSync(`content/blocks/${f}`, "utf8"))![1]), "rc-lowpass-antialias-5k1"];
+    const slugs = [...files.map((f) => /^slug:\s*([a-z0-9-]+)/m.exec(readFileSync(f, "utf8"))![1]), "rc-lowpass-antialias-5k1"];
     const first = await seedLibrary(await getEm());
     const em = await getEm();
     const fenwick = await em.findOneOrFail(TeamSchema, { slug: "fenwick" });
@@ -44,6 +48,10 @@ describe("demo library seed", () => {
     expect(await em.count(ReviewSchema, { decision: "approved", version: { block: { slug: "wien-bridge-sine-1k" } } } as never)).toBe(1);
     const runs = await em.count(CheckRunSchema, { version: { block: { slug: { $in: slugs } } } } as never);
     expect(runs).toBe(files.length + 2);
+
+    // Fenwick's model files are uploaded once, as version 1.
+    const models = await em.find(ModelSchema, { team: fenwick }, { populate: ["head"] });
+    expect(models.map((m) => [m.name, m.head!.number]).sort()).toEqual([["fwk-d1s.lib", 1], ["fwk-opa1.lib", 1]]);
 
     const second = await seedLibrary(await getEm());
     expect(second.created).toBe(0);
