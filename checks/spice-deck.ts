@@ -2,6 +2,7 @@ import { parseBlock } from "./block/parse";
 import { withParams } from "./block/with-params";
 import { circuitRefusal } from "./spice/refusal";
 import { SpiceError } from "./spice/types";
+import { deckValues } from "./engine/prepare";
 import { inlineIncludes, type InlineModel } from "./spice/model-file";
 
 /**
@@ -20,7 +21,9 @@ export function spiceDeck(
   const refused = circuitRefusal(block.netlist);
   if (refused) throw new SpiceError(`netlist: ${refused.message}`, refused.line === undefined ? undefined : block.netlistLine + refused.line - 1);
   const title = block.title.replace(/[\r\n]+/g, " ").trim();
-  const lines = block.params.map((p) => `.param ${p.name}=${String(p.si)}`);
+  // The same numbers the engine's own decks carry (temperatures in °C).
+  const values = deckValues(block, Object.fromEntries(block.params.map((p) => [p.name, p.si])));
+  const lines = block.params.map((p) => `.param ${p.name}=${String(values[p.name])}`);
   const circuit = inlineIncludes(block.netlist.replace(/\s+$/, ""), opts.models ?? {});
   return [title, ...lines, circuit, ...(opts.analyses ?? []), ".end", ""].join("\n");
 }

@@ -8,6 +8,7 @@ import { Wordmark } from "./wordmark";
 const NAV = [
   { href: "/", label: "Library" },
   { href: "/reviews", label: "Reviews" },
+  { href: "/models", label: "Models" },
   { href: "/import", label: "Import" },
   { href: "/team", label: "Team" },
   { href: "/settings", label: "Settings" },

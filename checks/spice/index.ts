@@ -43,6 +43,11 @@ export function resultFromRaw(analysis: Analysis, raw: Uint8Array, ms: number, c
   return { ...toResult(analysis, parseRawFile(buf)), ms, cached };
 }
 
+/** One plot of a raw file (a deck with several analyses writes one plot each), as the measures read it. */
+export function resultFromPlot(analysis: Analysis, plot: RawPlot): SimResult {
+  return { ...toResult(analysis, [plot]), ms: 0, cached: false };
+}
+
 const PLOT_NAME = {
   tran: /transient/i, ac: /^ac/i, op: /operating point/i, dc: /^dc transfer/i, noise: /noise spectral density/i, tf: /transfer function/i,
 } as const;
