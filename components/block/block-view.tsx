@@ -12,6 +12,7 @@ import { AttachmentsPanel } from "./attachments-panel";
 import { BlockActions } from "./block-actions";
 import { HistoryPanel } from "./history-panel";
 import { LineagePanel } from "./lineage-panel";
+import { ModelsUsed } from "./models-used";
 import { LiveBadgeProvider } from "./live-badge";
 import { Panel } from "./panel";
 import { RunPlots } from "./run-plots";
@@ -80,6 +81,7 @@ export function BlockView({ model }: { model: BlockPageModel }) {
           </Panel>
           <Panel title="Quantities"><QuantityList quantities={report.quantities} /></Panel>
           <AttachmentsPanel slug={slug} attachments={attachments} canAttach={allowed.attach} />
+          <Panel title="Model files"><ModelsUsed slug={slug} version={block.version} team={block.team} models={block.models} /></Panel>
           <Panel title="Lineage"><LineagePanel lineage={lineage} /></Panel>
           <HistoryPanel slug={slug} runs={runs} reviews={reviews.slice(0, 6)} />
           <ApiPanel slug={slug} version={block.version} isHead={isHead} visibility={block.visibility} />
