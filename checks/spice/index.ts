@@ -43,9 +43,9 @@ export function resultFromRaw(analysis: Analysis, raw: Uint8Array, ms: number, c
   return { ...toResult(analysis, parseRawFile(buf)), ms, cached };
 }
 
-/** One plot of a raw file (a deck with several analyses writes one plot each), as the measures read it. */
-export function resultFromPlot(analysis: Analysis, plot: RawPlot): SimResult {
-  return { ...toResult(analysis, [plot]), ms: 0, cached: false };
+/** One analysis's plots of a raw file (a deck with several analyses writes plots for each), as the measures read them. */
+export function resultFromPlots(analysis: Analysis, plots: RawPlot[]): SimResult {
+  return { ...toResult(analysis, plots), ms: 0, cached: false };
 }
 
 const PLOT_NAME = {
