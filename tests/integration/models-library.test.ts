@@ -100,7 +100,7 @@ describe("team model library", () => {
 
     // A public block of team A that includes it: readable by the outsider, but a fork into their team is refused.
     const source = `public-${team.tag}`;
-    await createBlock(team.author, { teamSlug: team.slug, text: blockText(source, name), visibility: "public" });
+    await createBlock(team.maintainer, { teamSlug: team.slug, text: blockText(source, name), visibility: "public" }); // maintainers publish
     const err = await forkBlock(await ctx(team.outsider), { source, team: other }).catch((e) => e);
     expect(err).toBeInstanceOf(AppError);
     expect(err.code).toBe("validation");
