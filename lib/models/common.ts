@@ -28,3 +28,13 @@ export async function readableTeams(ctx: Ctx, slug?: string): Promise<Team[]> {
   if (ids.length === 0) return [];
   return ctx.em.find(TeamSchema, { id: { $in: ids } }, { orderBy: { slug: "asc" } });
 }
+
+/** A signed-out or bad-token caller learns nothing about what would validate (DESIGN.md "REST API v1"): 401. */
+export function parseFor<T>(ctx: Ctx, parse: () => T): T {
+  try {
+    return parse();
+  } catch (err) {
+    if (!ctx.caller.user) throw new AppError("unauthenticated", "sign in first");
+    throw err;
+  }
+}

@@ -12,10 +12,10 @@ export const modelNameSchema = z
 /** A team slug, or `shared` for the shared model library (content/models). */
 export const libraryParamSchema = teamSlugSchema.meta({ description: "Team slug, or `shared` for the shared model library", example: "fenwick" });
 
-export const modelListQuerySchema = z.object({ team: libraryParamSchema.optional() });
+export const modelListQuerySchema = z.object({ team: libraryParamSchema.optional() }).strict();
 export const libraryParamsSchema = z.object({ team: libraryParamSchema });
 export const modelParamsSchema = z.object({ team: libraryParamSchema, name: modelNameSchema });
-export const modelQuerySchema = z.object({ version: versionNumberSchema.optional() });
+export const modelQuerySchema = z.object({ version: versionNumberSchema.optional() }).strict();
 export const uploadQuerySchema = z.object({
   name: modelNameSchema.optional().meta({ description: "File name when the body is text/plain (multipart takes the file's own name)" }),
   message: z.string().max(2000).optional().meta({ description: "What changed" }),

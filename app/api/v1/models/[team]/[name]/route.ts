@@ -3,7 +3,7 @@ import { conditional } from "@/lib/api/etag";
 import { pathParams, route } from "@/lib/api/handler";
 import { requestContext } from "@/lib/context";
 import { getModel, getModelVersion } from "@/lib/models/read";
-import { SHARED } from "@/lib/models/common";
+import { parseFor, SHARED } from "@/lib/models/common";
 import { queryObject } from "@/lib/validation/api";
 import { modelParamsSchema, modelQuerySchema } from "@/lib/validation/models";
 
@@ -14,7 +14,7 @@ export const dynamic = "force-dynamic";
 export const GET = route<{ team: string; name: string }>(async (req, params) => {
   const ctx = await requestContext(req);
   const { team, name } = pathParams(modelParamsSchema, params);
-  const { version } = modelQuerySchema.parse(queryObject(req.url));
+  const { version } = parseFor(ctx, () => modelQuerySchema.parse(queryObject(req.url)));
   const visibility = team === SHARED ? "public" : "team";
   if (version !== undefined) {
     return conditional(req, JSON.stringify(await getModelVersion(ctx, { team, name, version })), {
