@@ -53,7 +53,8 @@ export async function seedLibrary(em: EntityManager): Promise<{ created: number 
     const slug = /^slug:\s*["']?([a-z0-9-]+)/m.exec(text)?.[1] ?? file.replace(/\.md$/, "");
     if (await exists(slug)) continue;
     try {
-      await createBlock(author, { teamSlug: "fenwick", text, visibility: PUBLIC.includes(slug) ? "public" : "team", message: "imported from the bench notebook" });
+      // Authors create; publishing is a maintainer's decision (the roles table), made just below.
+      await createBlock(author, { teamSlug: "fenwick", text, message: "imported from the bench notebook" });
       created++;
     } catch (err) {
       console.warn(`[assay] seed: ${file} was not imported: ${(err as Error).message}`);
