@@ -12,11 +12,3 @@ export function PageSkeleton({ label = "Loading" }: { label?: string }) {
     </div>
   );
 }
-
-/**
- * The loading state of a page that never answers 404. Pages that can (a block, a model) have no loading
- * boundary above them: behind one Next streams a 200 before the page knows the block is hidden or missing.
- */
-export default function PageLoading() {
-  return <PageSkeleton />;
-}
