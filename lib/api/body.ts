@@ -39,12 +39,29 @@ export async function readLimited(req: Request, limit: number): Promise<Uint8Arr
 
 const tooLarge = (limit: number) => new AppError("payload_too_large", `the body is larger than ${limit / 1024} KiB`);
 
-function decodeUtf8(bytes: Uint8Array): string {
+/** Uploaded text must be UTF-8; `what` names the file in the refusal ("block file", "model file"). */
+export function decodeUtf8(bytes: Uint8Array, what = "block file"): string {
   try {
     return new TextDecoder("utf-8", { fatal: true }).decode(bytes);
   } catch {
-    throw new AppError("validation", "the block file is not UTF-8 text", { errors: [{ message: "not UTF-8 text" }] });
+    throw new AppError("validation", `the ${what} is not UTF-8 text`, { errors: [{ message: "not UTF-8 text" }] });
   }
+}
+
+/** The `file` part of a multipart upload, read within `limit` (multipart framing adds a little on top). */
+export async function readFilePart(req: Request, limit: number): Promise<File> {
+  const bytes = await readLimited(req, limit + 16 * 1024);
+  let form: FormData;
+  try {
+    form = await new Response(bytes, { headers: { "content-type": req.headers.get("content-type")! } }).formData();
+  } catch {
+    throw new AppError("validation", "the multipart body could not be read", { errors: [{ message: "malformed multipart body", path: "file" }] });
+  }
+  const file = form.get("file");
+  if (!file || typeof file === "string") {
+    throw new AppError("validation", "the form has no `file` part", { errors: [{ message: "required", path: "file" }] });
+  }
+  return file;
 }
 
 export const isBlockFileRequest = (req: Request) => MARKDOWN_TYPES.has(mediaType(req)) || mediaType(req) === "multipart/form-data";
@@ -56,18 +73,7 @@ export async function readBlockFile(req: Request): Promise<string> {
   if (type !== "multipart/form-data") {
     throw new AppError("unsupported_media_type", "send the block file as text/markdown or as the `file` part of multipart/form-data");
   }
-  // Multipart framing adds a little; the file itself is held to the same limit below.
-  const bytes = await readLimited(req, MAX_BLOCK_FILE_BYTES + 16 * 1024);
-  let form: FormData;
-  try {
-    form = await new Response(bytes, { headers: { "content-type": req.headers.get("content-type")! } }).formData();
-  } catch {
-    throw new AppError("validation", "the multipart body could not be read", { errors: [{ message: "malformed multipart body", path: "file" }] });
-  }
-  const file = form.get("file");
-  if (!file || typeof file === "string") {
-    throw new AppError("validation", "the form has no `file` part", { errors: [{ message: "required", path: "file" }] });
-  }
+  const file = await readFilePart(req, MAX_BLOCK_FILE_BYTES);
   if (file.size > MAX_BLOCK_FILE_BYTES) throw tooLarge(MAX_BLOCK_FILE_BYTES);
   return decodeUtf8(new Uint8Array(await file.arrayBuffer()));
 }
