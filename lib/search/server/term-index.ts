@@ -1,33 +1,10 @@
-import MiniSearch from "minisearch";
+import SearchableMap from "minisearch/SearchableMap";
 import { searchableText } from "./doc-values";
 import { tokenize } from "./tokenize";
 import { allowedTypos, termTypos, type TypoLimits } from "./typo";
 
-export interface IndexedDoc {
-  key: string;
-  doc: Record<string, unknown>;
-}
-
-// MiniSearch keeps the inverted index (a radix tree of terms → fields →
-// documents); this subclass reads its vocabulary and postings so the typo and
-// prefix rules can be Meilisearch's rather than MiniSearch's own fuzzy match.
-class MiniSearchIndex extends MiniSearch<IndexedDoc> {
-  vocabulary(): IterableIterator<string> {
-    return this._index.keys();
-  }
-  withPrefix(prefix: string): IterableIterator<string> {
-    return this._index.atPrefix(prefix).keys();
-  }
-  postings(term: string): Map<number, Map<number, number>> | undefined {
-    return this._index.get(term);
-  }
-  externalKey(shortId: number): string | undefined {
-    return this._documentIds.get(shortId);
-  }
-  fieldIds(): Record<string, number> {
-    return this._fieldIds;
-  }
-}
+/** Where a term occurs: attribute → document key → how often. */
+type Postings = Map<string, Map<string, number>>;
 
 export interface WordHit {
   typos: number;
@@ -42,36 +19,52 @@ export interface TypoSettings extends TypoLimits {
   disableOnNumbers: boolean;
 }
 
+// The inverted index: a radix tree (MiniSearch's public SearchableMap) from each term to its postings, so
+// prefix lookups walk one branch; the typo and prefix rules on top are Meilisearch's, not MiniSearch's fuzzy match.
 export class TermIndex {
-  private mini: MiniSearchIndex;
-  private fieldRank: string[] = [];
-  private rankById: number[] = [];
+  private postingsOf = new SearchableMap<Postings>();
+  private termsOfDoc = new Map<string, Set<string>>(); // what to take out when a document changes
+  private rankOf = new Map<string, number>();
   private byFirstLetter: Map<string, string[]> | null = null;
   private candidateCache = new Map<string, Map<string, number>>();
 
   constructor(readonly fields: string[]) {
-    this.mini = new MiniSearchIndex({
-      fields: fields.length ? fields : ["\u0000none"],
-      idField: "key",
-      extractField: (d, field) => (field === "key" ? d.key : searchableText(d.doc, field)),
-      tokenize,
-      processTerm: (t) => t,
-    });
-    for (const [name, id] of Object.entries(this.mini.fieldIds())) {
-      this.fieldRank[id] = name;
-      this.rankById[id] = fields.indexOf(name);
-    }
+    fields.forEach((f, i) => this.rankOf.has(f) || this.rankOf.set(f, i));
   }
 
   put(key: string, doc: Record<string, unknown>) {
-    if (this.mini.has(key)) this.mini.discard(key);
-    this.mini.add({ key, doc });
+    this.drop(key);
+    const terms = new Set<string>();
+    for (const field of this.rankOf.keys()) {
+      for (const term of tokenize(searchableText(doc, field))) {
+        if (!term) continue;
+        let postings = this.postingsOf.get(term);
+        if (!postings) this.postingsOf.set(term, (postings = new Map()));
+        let docs = postings.get(field);
+        if (!docs) postings.set(field, (docs = new Map()));
+        docs.set(key, (docs.get(key) ?? 0) + 1);
+        terms.add(term);
+      }
+    }
+    this.termsOfDoc.set(key, terms);
     this.changed();
   }
 
   remove(key: string) {
-    if (this.mini.has(key)) this.mini.discard(key);
+    this.drop(key);
     this.changed();
+  }
+
+  private drop(key: string) {
+    const terms = this.termsOfDoc.get(key);
+    if (!terms) return;
+    this.termsOfDoc.delete(key);
+    for (const term of terms) {
+      const postings = this.postingsOf.get(term);
+      if (!postings) continue;
+      for (const [field, docs] of postings) if (docs.delete(key) && docs.size === 0) postings.delete(field);
+      if (postings.size === 0) this.postingsOf.delete(term);
+    }
   }
 
   private changed() {
@@ -82,7 +75,7 @@ export class TermIndex {
   private groups(): Map<string, string[]> {
     if (!this.byFirstLetter) {
       const g = new Map<string, string[]>();
-      for (const term of this.mini.vocabulary()) {
+      for (const term of this.postingsOf.keys()) {
         const list = g.get(term[0]);
         if (list) list.push(term);
         else g.set(term[0], [term]);
@@ -102,8 +95,8 @@ export class TermIndex {
     if (typo.disableOnWords.has(word) || (typo.disableOnNumbers && /^\d+$/.test(word))) max = 0;
     const out = new Map<string, number>();
     if (max === 0) {
-      if (prefix) for (const t of this.mini.withPrefix(word)) out.set(t, 0);
-      else if (this.mini.postings(word)) out.set(word, 0);
+      if (prefix) for (const t of this.postingsOf.atPrefix(word).keys()) out.set(t, 0);
+      else if (this.postingsOf.has(word)) out.set(word, 0);
     } else {
       const groups = this.groups();
       const lists = max >= 2 ? [...groups.values()] : [groups.get(word[0]) ?? []];
@@ -122,16 +115,13 @@ export class TermIndex {
   match(word: string, prefix: boolean, typo: TypoSettings, fewer = 0): Map<string, WordHit> {
     const hits = new Map<string, WordHit>();
     for (const [term, typos] of this.candidates(word, prefix, typo, fewer)) {
-      const postings = this.mini.postings(term);
+      const postings = this.postingsOf.get(term);
       if (!postings) continue;
-      for (const [fieldId, docs] of postings) {
-        const field = this.fieldRank[fieldId];
+      const exact = term === word;
+      for (const [field, docs] of postings) {
         if (typos > 0 && typo.disableOnAttributes.has(field)) continue;
-        const rank = this.rankById[fieldId];
-        for (const [shortId, freq] of docs) {
-          const key = this.mini.externalKey(shortId);
-          if (key === undefined) continue;
-          const exact = term === word;
+        const rank = this.rankOf.get(field)!;
+        for (const [key, freq] of docs) {
           const prev = hits.get(key);
           if (!prev) hits.set(key, { typos, rank, exact, freq });
           else {
@@ -149,13 +139,11 @@ export class TermIndex {
   // Documents holding the exact term, with the attributes it occurs in.
   occurrences(term: string): Map<string, string[]> {
     const out = new Map<string, string[]>();
-    for (const [fieldId, docs] of this.mini.postings(term) ?? []) {
-      for (const shortId of docs.keys()) {
-        const key = this.mini.externalKey(shortId);
-        if (key === undefined) continue;
+    for (const [field, docs] of this.postingsOf.get(term) ?? []) {
+      for (const key of docs.keys()) {
         const list = out.get(key);
-        if (list) list.push(this.fieldRank[fieldId]);
-        else out.set(key, [this.fieldRank[fieldId]]);
+        if (list) list.push(field);
+        else out.set(key, [field]);
       }
     }
     return out;
@@ -163,7 +151,7 @@ export class TermIndex {
 
   documentFrequency(term: string): number {
     let n = 0;
-    for (const docs of this.mini.postings(term)?.values() ?? []) n = Math.max(n, docs.size);
+    for (const docs of this.postingsOf.get(term)?.values() ?? []) n = Math.max(n, docs.size);
     return n;
   }
 }
