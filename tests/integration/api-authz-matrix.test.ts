@@ -141,8 +141,8 @@ describe("authorization matrix", () => {
   it("answers 401 to every malformed request from a signed-out or bad-token caller", async () => {
     const big = "x".repeat(300 * 1024);
     const malformed: [string, string, RequestInit][] = [];
-    // No caller and no input (health, the document, the bench floor), or no input beyond an id in the path (a run).
-    const open = new Set(["GET /api/v1/health", "GET /api/v1/openapi.json", "GET /api/v1/bench/constant", "GET /api/v1/runs/[id]"]);
+    // No caller and no input (health, the document), or no input beyond an id in the path (a run).
+    const open = new Set(["GET /api/v1/health", "GET /api/v1/openapi.json", "GET /api/v1/runs/[id]"]);
     for (const r of servedRoutes().filter((x) => !open.has(x))) {
       const [method, template] = r.split(" ");
       const path = template.replace("[slug]", slug).replace("[n]", "1").replace("[id]", runId).replace("[team]", w.teamA.slug).replace("[name]", "opa-generic.lib");

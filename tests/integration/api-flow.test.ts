@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { BlockSchema } from "@/entities";
 import { getEm } from "@/lib/db/orm";
 import { STALE_BASE_TYPE } from "@/lib/api/problem";
-import { blockSchema, createdSchema, runSchema, searchResultSchema, versionListSchema } from "@/lib/openapi/responses";
+import { blockSchema, createdSchema, reportSchema, retuneResultSchema, runSchema, searchResultSchema, versionListSchema } from "@/lib/openapi/responses";
 import { bearer, makeWorld, rcBlockText, type ApiWorld } from "./api-fixtures";
 
 // The REST API end to end over HTTP against the built app, a worker and a search server.
@@ -201,18 +201,20 @@ describe("versions, forks and runs", () => {
   it("evaluates draft values without storing anything, and retunes R to a target snapped to E24", async () => {
     const ev = await w.client.POST("/api/v1/blocks/{slug}/evaluate", { params: { path: { slug: priv } }, headers: bearer(w.people.viewer.read), body: { params: { R: "3.3 kohm" } } });
     expect(ev.response.status).toBe(200);
-    expect(ev.data!.quantities.fc.value / fc(3.3e3, 10e-9)).toBeCloseTo(1, 3);
-    expect(ev.data!.status).not.toBe("verified");
-    expect(ev.data!.checks.filter((c) => c.simulated).every((c) => c.status === "skipped")).toBe(true);
+    const draft = reportSchema.parse(ev.data);
+    expect(draft.quantities.fc.value / fc(3.3e3, 10e-9)).toBeCloseTo(1, 3);
+    expect(draft.status).not.toBe("verified");
+    expect(draft.checks.filter((c) => c.simulated).every((c) => c.status === "skipped")).toBe(true);
     const retune = await w.client.POST("/api/v1/blocks/{slug}/retune", {
       params: { path: { slug: priv } },
       headers: bearer(w.people.viewer.read),
       body: { param: "R", target: { quantity: "fc", value: "3.4 kHz" }, series: "E24" },
     });
     expect(retune.response.status).toBe(200);
+    const solved = retuneResultSchema.parse(retune.data);
     // R = 1 / (2π · 3.4 kHz · 10 nF) = 4.68 kΩ; the nearest E24 value is 4.7 kΩ (IEC 60063 E24).
-    expect(retune.data!.value).toMatch(/^4\.6[89]\d* kohm$/);
-    expect(retune.data!.snapped).toBe("4.7 kohm");
+    expect(solved.value).toMatch(/^4\.6[89]\d* kohm$/);
+    expect(solved.snapped).toBe("4.7 kohm");
     const still = blockSchema.parse((await w.client.GET("/api/v1/blocks/{slug}", { params: { path: { slug: priv } }, headers: bearer(w.people.viewer.read) })).data);
     expect(still.version).toBe(1);
   });
