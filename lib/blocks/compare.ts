@@ -2,7 +2,8 @@ import { diffLines, type ChangeObject } from "diff";
 import { parseBlock } from "@/checks";
 import type { Ctx } from "@/lib/context";
 import type { CompareInput } from "@/lib/validation/blocks";
-import { latestRuns } from "@/lib/runs/badge";
+import type { BlockVersion } from "@/entities";
+import { latestRuns, type LatestRun } from "@/lib/runs/badge";
 import { loadBlock, loadVersion } from "./common";
 
 export type DiffPart = { value: string; added?: boolean; removed?: boolean };
@@ -28,23 +29,33 @@ export async function compareVersions({ em, caller }: Ctx, input: CompareInput):
   const block = await loadBlock(em, caller, input.slug);
   const va = await loadVersion(em, block, input.a);
   const vb = await loadVersion(em, block, input.b);
-  const pa = parseBlock(va.text).block;
+  const runs = await latestRuns(em, [va.id, vb.id]);
+  return { from: va.number, to: vb.number, ...changesBetween(va, vb, runs) };
+}
+
+export type Changes = Omit<Comparison, "from" | "to">;
+type Side = Pick<BlockVersion, "id" | "text" | "params">;
+
+/**
+ * What changed from `va` to `vb`, for versions already loaded with their latest runs. `va` null: against nothing,
+ * so every parameter, line and check of `vb` reads as new.
+ */
+export function changesBetween(va: Side | null, vb: Side, runs: Map<number, LatestRun>): Changes {
+  const pa = va ? parseBlock(va.text).block : null;
   const pb = parseBlock(vb.text).block;
 
-  const valueOf = (ps: typeof va.params) => new Map(ps.map((p) => [p.name, p.tol ? `${p.value} ± ${p.tol}` : p.value]));
-  const ma = valueOf(va.params);
+  const valueOf = (ps: Side["params"]) => new Map(ps.map((p) => [p.name, p.tol ? `${p.value} ± ${p.tol}` : p.value]));
+  const ma = valueOf(va?.params ?? []);
   const mb = valueOf(vb.params);
   const names = [...new Set([...ma.keys(), ...mb.keys()])];
   const params = names
     .filter((n) => ma.get(n) !== mb.get(n))
     .map((n) => ({ name: n, from: ma.get(n) ?? null, to: mb.get(n) ?? null }));
 
-  const runs = await latestRuns(em, [va.id, vb.id]);
-  const outcomes = (id: number) => {
-    const checks = ((runs.get(id)?.report as { checks?: { label: string; status: string }[] } | null)?.checks ?? []);
-    return new Map(checks.map((c) => [c.label, c.status]));
-  };
-  const ca = outcomes(va.id);
+  const reportOf = (id: number | undefined) => (id === undefined ? null : (runs.get(id)?.report ?? null)) as
+    { checks?: { label: string; status: string }[]; quantities?: Record<string, Q> } | null;
+  const outcomes = (id: number | undefined) => new Map((reportOf(id)?.checks ?? []).map((c) => [c.label, c.status]));
+  const ca = outcomes(va?.id);
   const cb = outcomes(vb.id);
   const labels = [...new Set([...ca.keys(), ...cb.keys()])];
   const checks = labels
@@ -52,8 +63,8 @@ export async function compareVersions({ em, caller }: Ctx, input: CompareInput):
     .map((l) => ({ label: l, from: ca.get(l) ?? null, to: cb.get(l) ?? null }));
 
   type Q = { value: number; unit: string; simulated?: boolean };
-  const quantitiesOf = (id: number) => new Map(Object.entries(((runs.get(id)?.report as { quantities?: Record<string, Q> } | null)?.quantities ?? {})));
-  const qa = quantitiesOf(va.id);
+  const quantitiesOf = (id: number | undefined) => new Map(Object.entries(reportOf(id)?.quantities ?? {}));
+  const qa = quantitiesOf(va?.id);
   const qb = quantitiesOf(vb.id);
   const quantities = [...new Set([...qa.keys(), ...qb.keys()])].map((name) => {
     const [x, y] = [qa.get(name), qb.get(name)];
@@ -62,8 +73,6 @@ export async function compareVersions({ em, caller }: Ctx, input: CompareInput):
 
   return {
     quantities,
-    from: va.number,
-    to: vb.number,
     params,
     note: parts(pa?.note ?? "", pb?.note ?? ""),
     netlist: parts(pa?.netlist ?? "", pb?.netlist ?? ""),

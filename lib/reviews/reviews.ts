@@ -1,5 +1,5 @@
 import type { EntityManager } from "@mikro-orm/postgresql";
-import { MembershipSchema, ReviewSchema, UserSchema, type Block, type BlockVersion, type ReviewDecision } from "@/entities";
+import { MembershipSchema, ReviewSchema, UserSchema, type Block, type BlockVersion, type Review, type ReviewDecision } from "@/entities";
 import type { Ctx } from "@/lib/context";
 import { assertCan, can } from "@/lib/auth/permissions";
 import { loadBlock, loadVersion, requireUser, resourceOf } from "@/lib/blocks/common";
@@ -70,8 +70,8 @@ export interface QueueItem {
   slug: string; title: string; team: string; version: number; badge: Badge; requestedBy: string | null; requestedAt: string;
 }
 
-/** Open requests on head versions of teams where the caller may approve, minus their own versions. */
-export async function reviewQueue({ em, caller }: Ctx): Promise<QueueItem[]> {
+/** The open review requests on head versions of teams where the caller may approve, minus their own versions, oldest first. */
+export async function openRequests({ em, caller }: Ctx): Promise<Review[]> {
   if (!caller.user) return [];
   const rows = await em.getConnection().execute<{ review_id: number }[]>(
     `select distinct on (r.version_id) r.id as review_id from reviews r
@@ -81,12 +81,20 @@ export async function reviewQueue({ em, caller }: Ctx): Promise<QueueItem[]> {
       order by r.version_id, r.created_at`, [caller.user.id]);
   const reviews = await em.find(ReviewSchema, { id: { $in: rows.map((r) => r.review_id) } },
     { populate: ["version", "version.block", "version.block.team", "requestedBy"], orderBy: { createdAt: "asc" } });
-  const mine = reviews.filter((r) => can(caller, "version.approve", resourceOf(r.version.block)));
-  const badges = await badgesFor(em, mine.map((r) => r.version.id));
-  return mine.map((r) => ({
-    slug: r.version.block.slug, title: r.version.block.title, team: r.version.block.team.slug, version: r.version.number,
-    badge: badges.get(r.version.id)!.badge, requestedBy: r.requestedBy?.name ?? null, requestedAt: r.createdAt.toISOString(),
-  }));
+  return reviews.filter((r) => can(caller, "version.approve", resourceOf(r.version.block)));
+}
+
+/** One open request as the queue lists it, its version's badge from `badges`. */
+export const queueItem = (r: Review, badge: Badge): QueueItem => ({
+  slug: r.version.block.slug, title: r.version.block.title, team: r.version.block.team.slug, version: r.version.number,
+  badge, requestedBy: r.requestedBy?.name ?? null, requestedAt: r.createdAt.toISOString(),
+});
+
+/** Open requests on head versions of teams where the caller may approve, minus their own versions. */
+export async function reviewQueue(ctx: Ctx): Promise<QueueItem[]> {
+  const mine = await openRequests(ctx);
+  const badges = await badgesFor(ctx.em, mine.map((r) => r.version.id));
+  return mine.map((r) => queueItem(r, badges.get(r.version.id)!.badge));
 }
 
 export interface ReviewRow {
