@@ -1,5 +1,6 @@
 import { LineCounter, parseDocument, type Document } from "yaml";
 import type { BlockError } from "./types";
+import { plainYamlError } from "./yaml-errors";
 
 export type Frontmatter = {
   doc: Document;
@@ -33,7 +34,11 @@ export function readFrontmatter(text: string, errors: BlockError[]): Frontmatter
   const counter = new LineCounter();
   const doc = parseDocument(yamlText, { lineCounter: counter, prettyErrors: false, uniqueKeys: true });
   const lineAt = (o: number) => counter.linePos(o).line + 1;
-  for (const e of doc.errors) errors.push({ message: `frontmatter: ${e.message.split("\n")[0]}`, line: lineAt(e.pos[0]) });
+  // One sentence for the first mistake, at its line in the file: the parser's other errors follow from it.
+  if (doc.errors.length) {
+    const plain = plainYamlError(doc.errors, yamlText, (o) => counter.linePos(o).line);
+    errors.push({ message: plain.message, line: plain.line + 1 });
+  }
   const bodyStart = bom + lines.slice(0, close + 1).join("\n").length + 1;
   return { doc, offset, lineAt, body: text.slice(bodyStart), bodyLine: close + 2 };
 }

@@ -14,13 +14,17 @@ export function BlockEditor({ slug, baseVersion, initialText, readOnly }: { slug
   const gutter = useRef<HTMLDivElement>(null);
   const draft = useDebounced(text, 400);
   const check = useQuery({ queryKey: ["draft-check", slug, draft], queryFn: () => checkDraftAction(draft, slug), placeholderData: keepPreviousData });
-  const errors = check.data?.errors ?? [];
+  // The text a save was refused for: its errors stay at the field until the text changes.
+  const [sent, setSent] = useState<string | null>(null);
+  // One list at the field: the live reading of the draft, and a refused save's errors when the draft reads the same
+  // (the server and the live check run the same parser, so an error is listed once).
+  const errors = unique([...(check.data?.errors ?? []), ...(sent === text ? state.lines ?? [] : [])]);
   const byLine = new Map<number, string[]>();
   for (const e of errors) if (e.line) byLine.set(e.line, [...(byLine.get(e.line) ?? []), e.message]);
   const lines = text.split("\n").length;
 
   return (
-    <form action={action} className="space-y-3" aria-describedby="editor-status">
+    <form action={action} onSubmit={() => setSent(text)} className="space-y-3" aria-describedby="editor-status">
       <input type="hidden" name="slug" value={slug} />
       <input type="hidden" name="baseVersion" value={baseVersion} />
       <label htmlFor="block-text" className="text-sm font-medium">Block file</label>
@@ -38,7 +42,7 @@ export function BlockEditor({ slug, baseVersion, initialText, readOnly }: { slug
       <div id="editor-errors" aria-live="polite" className="text-sm">
         {errors.length ? (
           <ul className="space-y-0.5 text-brick" data-testid="editor-errors">
-            {errors.map((e, i) => <li key={i}><span className="font-mono">{e.line ? `line ${e.line}` : "file"}</span>: {e.message}</li>)}
+            {errors.map((e, i) => <li key={i}><span className="font-mono">{e.line ? `Line ${e.line}` : "File"}</span>: {e.message}</li>)}
           </ul>
         ) : check.data ? (
           <p className="text-verdigris">The engine reads the file{check.data.failing.length ? `; ${check.data.failing.length} expression check(s) fail: ${check.data.failing.join(", ")}` : ""}.</p>
@@ -69,9 +73,19 @@ export function BlockEditor({ slug, baseVersion, initialText, readOnly }: { slug
             <Link className="text-copper-dark underline" href={`/blocks/${slug}/compare?a=${baseVersion}&b=${state.head}`}>compare v{baseVersion} with v{state.head}</Link>
           </p>
         ) : null}
-        {state.lines?.length ? <ul className="list-disc pl-5 text-brick">{state.lines.map((l, i) => <li key={i}>{l.line ? `line ${l.line}: ` : ""}{l.message}</li>)}</ul> : null}
         {state.errors?.text ? <p className="text-brick">{state.errors.text[0]}</p> : null}
       </div>
     </form>
   );
+}
+
+/** Each error once, in order. */
+function unique(errors: { message: string; line?: number }[]): { message: string; line?: number }[] {
+  const seen = new Set<string>();
+  return errors.filter((e) => {
+    const key = `${e.line ?? ""}:${e.message}`;
+    if (seen.has(key)) return false;
+    seen.add(key);
+    return true;
+  });
 }

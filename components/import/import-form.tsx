@@ -50,9 +50,13 @@ export function ImportForm({ teams }: { teams: string[] }) {
         <ImportParams params={params} onChange={editParam} />
         <label htmlFor="import-text" className="block text-sm">Block file
           <textarea id="import-text" name="text" value={text} onChange={(e) => setText(e.target.value)} rows={18} spellCheck={false} wrap="off"
+            aria-invalid={Boolean(made.lines?.length || made.errors?.text)} aria-describedby="import-text-errors"
             className={`${field} mt-0.5 font-mono text-xs leading-5`} placeholder="The file read in step 1 appears here; you may also paste one." />
         </label>
-        {made.errors?.text ? <p className="text-sm text-brick">{made.errors.text[0]}</p> : null}
+        <div id="import-text-errors" className="text-sm text-brick">
+          {made.errors?.text ? <p>{made.errors.text[0]}</p> : null}
+          {made.lines?.length ? <ul className="space-y-0.5" data-testid="create-errors">{made.lines.map((l, i) => <li key={i}><span className="font-mono">{l.line ? `Line ${l.line}` : "File"}</span>: {l.message}</li>)}</ul> : null}
+        </div>
         <div className="grid gap-2 sm:grid-cols-2">
           <label htmlFor="import-team" className="text-sm">Team
             <select id="import-team" name="team" className={field}>{teams.map((t) => <option key={t}>{t}</option>)}</select>
@@ -70,7 +74,6 @@ export function ImportForm({ teams }: { teams: string[] }) {
         </button>
         <div id="create-status" aria-live="polite" className="text-sm">
           {made.message ? <p role={made.ok === false ? "alert" : undefined} className={made.ok === false ? "text-brick" : "text-verdigris"}>{made.message}</p> : null}
-          {made.lines?.length ? <ul className="list-disc pl-5 text-brick" data-testid="create-errors">{made.lines.map((l, i) => <li key={i}>{l.line ? `line ${l.line}: ` : ""}{l.message}</li>)}</ul> : null}
         </div>
       </form>
     </div>

@@ -34,10 +34,13 @@ export function failure(err: unknown, names: { slug?: string } = {}): FormState 
     const messages = [err.message, ...(extra.errors ?? []).map((e) => e.message)];
     const errors = fieldErrorsOf([...new Set(messages)], extra, names);
     const placed = Object.keys(errors).length > 0;
-    return {
-      ok: false, message: placed ? "Some fields need attention; the rest is kept as you typed it." : err.message,
-      lines: placed ? extra.errors?.filter((e) => !/^parameter "/.test(e.message)) : extra.errors, head: extra.head, errors: placed ? errors : undefined,
-    };
+    const lines = placed ? extra.errors?.filter((e) => !/^parameter "/.test(e.message)) : extra.errors;
+    // Errors with a line are shown at the block file's field, beside that line; the message only says where to look.
+    const atLine = lines?.find((e) => e.line);
+    const message = placed
+      ? "Some fields need attention; the rest is kept as you typed it."
+      : atLine ? `Nothing was saved: the block file needs a fix at line ${atLine.line}; the rest is kept as you typed it.` : err.message;
+    return { ok: false, message, lines, head: extra.head, errors: placed ? errors : undefined };
   }
   console.error(err);
   return { ok: false, message: "Something went wrong on the server; the change was not saved." };

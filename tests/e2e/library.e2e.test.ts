@@ -128,6 +128,12 @@ describe("the library in a browser", () => {
     await new SignInPage(reviewer).signIn("tomas.reyes@fenwick.test");
     const reviews = new ReviewsPage(reviewer);
     await reviews.open();
+    // The entry shows v2's checks and, since the fork was never approved, every parameter as new.
+    const entry = reviews.entry(FORK, 2);
+    await expect(entry.getByTestId("check-list").locator("li").count()).resolves.toBe(6);
+    await expect(entry.getByTestId("check-list").textContent()).resolves.toMatch(/small-signal gain 10 \+\/- 3% at every corner\s*passes/);
+    await expect(entry.getByTestId("review-changes").locator("h3").textContent()).resolves.toMatch(/No approved version yet/);
+    await expect(entry.locator("tr[data-param=Rf] td").last().textContent()).resolves.toMatch(/^(100 kΩ|100000\b)/);
     await settle(reviewer, "09-review-queue", reviewerErrors);
     await reviews.approve(FORK, 2, "Gain and limiting agree with the hand analysis.");
     await new BlockPage(reviewer).open(FORK);
@@ -170,8 +176,22 @@ describe("the library in a browser", () => {
     await editor.fill(text.replace(/^category: .*$/m, "category: teapot"));
     const shown = page.getByTestId("editor-errors");
     await shown.waitFor({ timeout: 30_000 });
-    await expect(shown.textContent()).resolves.toMatch(/line 4/);
+    await expect(shown.textContent()).resolves.toMatch(/Line 4/);
     await settle(page, "13-edit-line-errors", errors);
+    // Front matter that is not YAML: one plain sentence at the line where the quote opened, listed once at the file,
+    // and still once after a refused save, which keeps the message typed (YAML 1.2 §7.3.1 double-quoted scalars).
+    const titleLine = text.split("\n").findIndex((l) => l.startsWith("title:")) + 1;
+    await editor.fill(text.replace(/^title: (.*)$/m, 'title: "$1'));
+    await shown.getByText(`Line ${titleLine}: the double quote opened on this line is never closed`).waitFor({ timeout: 30_000 });
+    await expect(shown.locator("li").count()).resolves.toBe(1);
+    await page.getByLabel("Message").fill("quote the title");
+    await page.getByRole("button", { name: /^Save as v\d+$/ }).click();
+    const status = page.locator("#editor-status");
+    await status.getByRole("alert").waitFor({ timeout: 30_000 });
+    await expect(status.textContent()).resolves.toBe(`Nothing was saved: the block file needs a fix at line ${titleLine}; the rest is kept as you typed it.`);
+    await expect(shown.locator("li").count()).resolves.toBe(1);
+    await expect(page.getByLabel("Message").inputValue()).resolves.toBe("quote the title");
+    await settle(page, "13b-edit-yaml-error", errors);
   });
 
   it("attaches a schematic from the block page, refusing a file over 1 MiB first", async () => {

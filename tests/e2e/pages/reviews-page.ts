@@ -1,10 +1,15 @@
-import type { Page } from "playwright-core";
+import type { Locator, Page } from "playwright-core";
 
 export class ReviewsPage {
   constructor(private readonly page: Page) {}
 
   async open(): Promise<void> {
     await this.page.goto("/reviews");
+  }
+
+  /** One waiting version's entry: its checks and its changes since the last approved version. */
+  entry(slug: string, version: number): Locator {
+    return this.page.locator(`[data-testid=review-entry][data-slug="${slug}"][data-version="${version}"]`);
   }
 
   async approve(slug: string, version: number, comment: string): Promise<void> {
