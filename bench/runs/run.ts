@@ -81,11 +81,13 @@ async function main() {
 
     // 1b. Live preview through the service (head read + engine preview lane), one per keystroke, nothing stored.
     const { previewDraft } = await import("../../lib/runs/preview");
-    await previewDraft(caller, "lat-wien", { Rf: "22 kohm" });
+    const { contextFor } = await import("../../lib/context");
+    // A context per call, as each keystroke's request makes its own.
+    await previewDraft(await contextFor(caller), { slug: "lat-wien", params: { Rf: "22 kohm" } });
     const previews: number[] = [];
     for (let i = 0; i < LATENCY_SAMPLES; i++) {
       const t0 = performance.now();
-      await previewDraft(caller, "lat-wien", { Rf: `${(18 + i * 0.3).toFixed(1)} kohm` });
+      await previewDraft(await contextFor(caller), { slug: "lat-wien", params: { Rf: `${(18 + i * 0.3).toFixed(1)} kohm` } });
       previews.push(performance.now() - t0);
     }
     console.log(`previewDraft (Wien, 2^4 tolerance corners, no simulation): median ${median(previews).toFixed(0)} ms, p90 ${p90(previews).toFixed(0)} ms (n=${LATENCY_SAMPLES})`);

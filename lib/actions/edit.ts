@@ -6,22 +6,25 @@ import { z } from "zod";
 import { slugSchema } from "@/lib/validation/api";
 import { parseBlock, type BlockError } from "@/checks";
 import { getCaller } from "@/lib/auth/session";
+import { actionContext } from "@/lib/next-context";
 import { addVersion } from "@/lib/blocks/versions";
 import { previewDraftFile } from "@/lib/runs/preview";
-import { isAppError } from "@/lib/errors";
+import { AppError, isAppError } from "@/lib/errors";
 import { failure, type FormState } from "@/lib/actions/form-state";
 
 const MAX_FILE = 256 * 1024;
 
 /** The engine's word on a draft file, with line numbers: parse errors first, else the preview's errors and checks. */
 export async function checkDraftAction(text: string, slug: string): Promise<{ errors: BlockError[]; failing: string[] }> {
-  const caller = await getCaller();
-  if (!caller.user) return { errors: [{ message: "sign in to check a draft" }], failing: [] };
+  const ctx = await actionContext();
+  if (!ctx.caller.user) return { errors: [{ message: "sign in to check a draft" }], failing: [] };
   const draft = String(text ?? "").slice(0, MAX_FILE);
   const { errors } = parseBlock(draft);
   if (errors.length) return { errors, failing: [] };
   // The block's team decides which model files its includes name.
-  const report = await previewDraftFile(caller, String(slug ?? ""), draft);
+  const target = slugSchema.safeParse(slug);
+  if (!target.success) throw new AppError("not_found", "no such block");
+  const report = await previewDraftFile(ctx, { slug: target.data, text: draft });
   return {
     errors: [...report.errors, ...report.checks.filter((c) => c.status === "error").map((c) => ({ message: `${c.label}: ${c.detail}`, line: c.line }))],
     failing: report.checks.filter((c) => c.status === "fail").map((c) => c.label),

@@ -2,7 +2,6 @@ import type { EntityManager } from "@mikro-orm/postgresql";
 import { ENGINE_VERSION, modelLibraryHash } from "@/checks";
 import type { CheckRun } from "@/entities";
 import type { Badge } from "@/lib/badges/badges";
-import { getEm } from "@/lib/db/orm";
 import { latestRunsSql } from "./latest-run";
 
 export { BADGES, type Badge } from "@/lib/badges/badges";
@@ -73,11 +72,4 @@ export async function badgesFor(em: EntityManager, versionIds: number[], stamp =
     const run = runs.get(id) ?? null;
     return [id, { badge: badgeOfRun(run, stamp), run }];
   }));
-}
-
-/** A version's badge by id, or a run's badge. */
-export async function badgeFor(versionOrRun: number | RunLike | null, em?: EntityManager): Promise<Badge> {
-  if (versionOrRun === null || typeof versionOrRun !== "number") return badgeOfRun(versionOrRun);
-  const m = em ?? (await getEm());
-  return (await badgesFor(m, [versionOrRun])).get(versionOrRun)!.badge;
 }

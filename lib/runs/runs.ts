@@ -1,10 +1,10 @@
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { CheckRunSchema, type CheckRun, type RunModel } from "@/entities";
-import type { Caller } from "@/lib/auth/caller";
 import { assertCan } from "@/lib/auth/permissions";
 import { loadBlock, resourceOf } from "@/lib/blocks/common";
-import { getEm } from "@/lib/db/orm";
+import type { Ctx } from "@/lib/context";
 import { AppError } from "@/lib/errors";
+import type { RunInput, RunListInput } from "@/lib/validation/runs";
 import { badgeOfRun, currentStamp, type Badge } from "./badge";
 
 export interface RunView {
@@ -17,11 +17,8 @@ export interface RunView {
   createdAt: string; startedAt: string | null; finishedAt: string | null;
 }
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-
-async function loadRun(caller: Caller, id: string, populate: ("waveforms")[] = []): Promise<CheckRun> {
-  if (!UUID.test(String(id))) throw new AppError("not_found", "no such run");
-  const em = await getEm();
+// The id is a UUID (runInputSchema): anything else never reaches the database.
+async function loadRun({ em, caller }: Ctx, { id }: RunInput, populate: ("waveforms")[] = []): Promise<CheckRun> {
   const run = await em.findOne(CheckRunSchema, { id }, { populate: ["version", "version.block", "version.block.team", ...populate] });
   if (!run) throw new AppError("not_found", "no such run");
   assertCan(caller, "block.read", resourceOf(run.version.block));
@@ -37,13 +34,12 @@ const view = (run: CheckRun, stamp = currentStamp()): RunView => ({
   startedAt: run.startedAt?.toISOString() ?? null, finishedAt: run.finishedAt?.toISOString() ?? null,
 });
 
-export async function getRun(caller: Caller, id: string): Promise<RunView> {
-  return view(await loadRun(caller, id));
+export async function getRun(ctx: Ctx, input: RunInput): Promise<RunView> {
+  return view(await loadRun(ctx, input));
 }
 
 /** Every run of every version of the block, newest first. */
-export async function listRuns(caller: Caller, slug: string, limit = 100): Promise<RunView[]> {
-  const em = await getEm();
+export async function listRuns({ em, caller }: Ctx, { slug, limit }: RunListInput): Promise<RunView[]> {
   const block = await loadBlock(em, caller, slug);
   return runsOfBlock(em, block.id, limit);
 }
@@ -63,8 +59,8 @@ export async function waveformsOfRun(em: EntityManager, runId: string): Promise<
 }
 
 /** The downsampled series the engine returned with the report (empty until the run is done). */
-export async function getWaveforms(caller: Caller, runId: string): Promise<unknown[]> {
-  const run = await loadRun(caller, runId, ["waveforms"]);
+export async function getWaveforms(ctx: Ctx, input: RunInput): Promise<unknown[]> {
+  const run = await loadRun(ctx, input, ["waveforms"]);
   return run.waveforms ?? [];
 }
 

@@ -35,10 +35,10 @@ describe("create, fork, run, badge", () => {
     const parent = await getBlock(await contextFor(team.author), { slug });
     expect(parent.badge).toBe("verified");
     expect(parent.report?.status).toBe("verified");
-    const run = await getRun(team.viewer, created.run.id);
+    const run = await getRun(await contextFor(team.viewer), { id: created.run.id });
     expect(run).toMatchObject({ status: "done", badge: "verified", engineVersion: ENGINE_VERSION, ngspiceVersion: ngspiceVersion(), modelLibraryHash: modelLibraryHash(), attempts: 1 });
     expect(run.durationMs).toBeGreaterThan(0);
-    const waves = (await getWaveforms(team.viewer, created.run.id)) as { analysis: string; series: { node: string }[] }[];
+    const waves = (await getWaveforms(await contextFor(team.viewer), { id: created.run.id })) as { analysis: string; series: { node: string }[] }[];
     expect(waves[0].analysis).toBe("tran");
     expect(waves[0].series.map((s) => s.node)).toContain("out");
 
@@ -117,7 +117,7 @@ describe("versions, lineage and comparison", () => {
     expect(v3.version).toBe(3);
     const cmp2 = await compareVersions(await contextFor(team.viewer), { slug, a: 2, b: 3 });
     expect(cmp2.script.filter((p) => p.added).map((p) => p.value)).toEqual(['check("loop gain above one at every corner", loop_gain > 1.05)\n']);
-    expect((await listRuns(team.viewer, slug)).length).toBe(3);
+    expect((await listRuns(await contextFor(team.viewer), { slug })).length).toBe(3);
     expect(await spiceDeckText(await contextFor(team.viewer), { slug, version: 3 })).toMatch(/\.param\s+rf\s*=\s*24000|\.param\s+Rf\s*=\s*24000/i);
     await drain(team);
   });

@@ -10,6 +10,7 @@ import { uploadModel } from "@/lib/models/upload";
 import { getRun } from "@/lib/runs/runs";
 import type { Caller } from "@/lib/auth/caller";
 import { drain, makeTeam, type TestTeam } from "./blocks-helpers";
+import { contextFor } from "@/lib/context";
 
 let team: TestTeam;
 beforeAll(async () => { team = await makeTeam(); });
@@ -65,7 +66,7 @@ describe("team model library", () => {
     const slug = `drop-${team.tag}`;
     const created = await createBlock(team.author, { teamSlug: team.slug, text: blockText(slug, name) });
     await drain(team);
-    const run = await getRun(team.viewer, created.run.id);
+    const run = await getRun(await contextFor(team.viewer), { id: created.run.id });
     expect(run.badge).toBe("verified");
     expect(run.models).toEqual([{ name, sha256: up.sha256, source: "team", version: 1 }]);
     expect(measuredVd(run.report!)).toBeCloseTo(shockley(2.52e-9), 3);
@@ -79,7 +80,7 @@ describe("team model library", () => {
     const v2 = await uploadModel(await ctx(team.author), { team: team.slug, name, text: diode("10.08n"), message: "IS from a new lot" });
     expect(v2.version).toBe(2);
     expect(v2.reverify).toEqual([{ slug, version: 1 }]);
-    expect((await getRun(team.viewer, created.run.id)).badge).toBe("stale");
+    expect((await getRun(await contextFor(team.viewer), { id: created.run.id })).badge).toBe("stale");
     expect((await getBlock(await ctx(team.viewer), { slug })).badge).toBe("pending");
     expect(await drain(team)).toBe(1);
     const fresh = await getBlock(await ctx(team.viewer), { slug });
@@ -111,7 +112,7 @@ describe("team model library", () => {
     // A block of the other team's own that names the file: its run stops with the file's name, and nothing else.
     const own = await createBlock(team.outsider, { teamSlug: other, text: blockText(`leak-${team.tag}`, name) });
     await drain(team);
-    const run = await getRun(team.outsider, own.run.id);
+    const run = await getRun(await contextFor(team.outsider), { id: own.run.id });
     expect(run.badge).toBe("error");
     expect(run.report!.errors).toEqual([expect.objectContaining({
       line: 15, message: expect.stringMatching(new RegExp(`^(netlist|simulation): \\.include ${name.replace(/\./g, "\\.")}: no such file in the team's or the shared model library`)),

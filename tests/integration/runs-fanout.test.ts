@@ -10,6 +10,7 @@ import { createBlock } from "@/lib/blocks/create";
 import { closeOrm, getEm } from "@/lib/db/orm";
 import { getRun } from "@/lib/runs/runs";
 import { makeTeam, wienFixture, type TestTeam } from "./blocks-helpers";
+import { contextFor } from "@/lib/context";
 
 // Real worker processes sharing one verification's simulations through the `simulate` queue. A 3 s run lease and
 // a 4 s simulation expiry make a killed worker's share come back quickly; a private cache makes every run simulate.
@@ -87,7 +88,7 @@ describe("one verification spread over two workers", () => {
     const { run } = await createBlock(team.author, { teamSlug: team.slug, text: slowWien(slug) });
     const seen: { done: number; total: number }[] = [];
     const done = await until("the run to finish", async () => {
-      seen.push((await getRun(team.viewer, run.id)).progress);
+      seen.push((await getRun(await contextFor(team.viewer), { id: run.id })).progress);
       return finished(run.id);
     });
     expect(done.status).toBe("done");
@@ -98,7 +99,7 @@ describe("one verification spread over two workers", () => {
     expect(rows.every((r) => r.ok && !r.cached)).toBe(true);
     expect(new Set(rows.map((r) => r.worker_id))).toEqual(new Set([`share-c-${team.tag}`, `share-d-${team.tag}`]));
     // Progress: never goes back, was seen part-way, and ends at its total, which covers every simulation reported.
-    const final = (await getRun(team.viewer, run.id)).progress;
+    const final = (await getRun(await contextFor(team.viewer), { id: run.id })).progress;
     expect(final.done).toBe(final.total);
     expect(final.total).toBeGreaterThanOrEqual(simulations);
     expect(seen.some((p) => p.done > 0 && p.done < p.total)).toBe(true);
@@ -139,7 +140,7 @@ describe("one verification spread over two workers", () => {
     const rows = await results(run.id);
     expect(rows.length).toBeGreaterThan(before); // the rest came from worker b, the earlier ones were kept
     expect(rows.every((r) => r.ok)).toBe(true);
-    const progress = (await getRun(team.viewer, run.id)).progress;
+    const progress = (await getRun(await contextFor(team.viewer), { id: run.id })).progress;
     expect(progress.done).toBe(progress.total);
     expect(progress.total).toBeGreaterThanOrEqual((done.report as { simulations: unknown[] }).simulations.length);
     const events = await (await getEm()).find(OutboxEventSchema, { kind: "run.finished", payload: { runId: run.id } } as never);

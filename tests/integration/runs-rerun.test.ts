@@ -28,7 +28,7 @@ describe("verify again", () => {
     expect(await code(rerunVersion(await contextFor(team.maintainer), { slug, version: 1 }))).toBe("conflict");
     expect(await code(rerunVersion(await contextFor(team.maintainer), { slug, version: 9 }))).toBe("not_found");
     await drain(team);
-    const runs = await listRuns(team.viewer, slug);
+    const runs = await listRuns(await contextFor(team.viewer), { slug });
     expect(runs.map((r) => [r.trigger, r.status])).toEqual([["manual", "done"], ["new-version", "done"]]);
     expect(runs[0].badge).toBe(runs[1].badge);
   });

@@ -86,7 +86,7 @@ describe("worker processes", () => {
     // Progress counts the run's simulations; once done, every one of them (the report lists each).
     const sims = (done.report as { simulations: unknown[] }).simulations.length;
     expect(sims).toBeGreaterThan(0);
-    expect((await getRun(team.viewer, run.id)).progress).toEqual({ done: sims, total: sims });
+    expect((await getRun(await contextFor(team.viewer), { id: run.id })).progress).toEqual({ done: sims, total: sims });
     expect((await getBlock(await contextFor(team.viewer), { slug })).badge).toBe("verified");
     const finished = await (await getEm()).find(OutboxEventSchema, { kind: "run.finished", payload: { runId: run.id } } as never);
     expect(finished).toHaveLength(1);

@@ -15,7 +15,7 @@ export default async function RunsPage({ params }: { params: Promise<{ slug: str
   const { slug } = await params;
   const ctx = await pageContext();
   const { block, allowed } = await orNotFound(loadBlockVersion(ctx, { slug }));
-  const runs = await orNotFound(listRuns(ctx.caller, slug));
+  const runs = await orNotFound(listRuns(ctx, { slug }));
   // The button sits on each version's latest verification, and not while one is waiting or running.
   const latest = new Set<string>();
   const seen = new Set<number>();

@@ -1,6 +1,6 @@
 import { noStore } from "@/lib/api/cache";
 import { pathParams, route } from "@/lib/api/handler";
-import { callerFromRequest } from "@/lib/auth/request-caller";
+import { requestContext } from "@/lib/context";
 import { getRun } from "@/lib/runs/runs";
 import { runParamsSchema } from "@/lib/validation/api";
 
@@ -9,9 +9,8 @@ export const dynamic = "force-dynamic";
 const iso = (d: Date | string | null) => (d == null ? null : new Date(d).toISOString());
 
 export const GET = route<{ id: string }>(async (req, params) => {
-  const { id } = pathParams(runParamsSchema, params);
-  const caller = await callerFromRequest(req);
-  const run = await getRun(caller, id);
+  const input = pathParams(runParamsSchema, params);
+  const run = await getRun(await requestContext(req), input);
   return Response.json(
     {
       id: run.id,
