@@ -1,6 +1,7 @@
 import "server-only";
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
+import { contextFor } from "@/lib/context";
 import { withEm } from "@/lib/db/orm";
 import { acceptInvitation } from "./invitations";
 import { clientIp } from "./rate-limit";
@@ -15,6 +16,7 @@ const str = (v: unknown): string => (typeof v === "string" ? v : "");
 type Req = { headers?: Record<string, string | string[] | undefined> };
 
 /**
+ * next-auth's callbacks are an edge: each makes its own anonymous context (whoever signs in is not known yet).
  * Three ways in, all ending in a JWT session that holds only the user id (roles are read from the
  * database per request): a password, a one-time sign-in link, an invitation link.
  * A thrown error's message is what the sign-in form shows.
@@ -30,21 +32,21 @@ export function authOptions(): NextAuthOptions {
         id: "password",
         name: "E-mail and password",
         credentials: { email: { type: "email" }, password: { type: "password" } },
-        authorize: (c, req) =>
-          withEm((em) => authorizePassword(em, str(c?.email), str(c?.password), clientIp((req as Req).headers))),
+        authorize: async (c, req) =>
+          authorizePassword(await contextFor(), { email: str(c?.email), password: str(c?.password) }, clientIp((req as Req).headers)),
       }),
       CredentialsProvider({
         id: "link",
         name: "Sign-in link",
         credentials: { token: { type: "text" } },
-        authorize: (c, req) => withEm((em) => redeemSignInLink(em, str(c?.token), clientIp((req as Req).headers))),
+        authorize: async (c, req) => redeemSignInLink(await contextFor(), { token: str(c?.token) }, clientIp((req as Req).headers)),
       }),
       CredentialsProvider({
         id: "invitation",
         name: "Invitation",
         credentials: { token: { type: "text" }, name: { type: "text" }, password: { type: "password" } },
-        authorize: (c) =>
-          withEm((em) => acceptInvitation(em, str(c?.token), { name: str(c?.name) || undefined, password: str(c?.password) || undefined })),
+        authorize: async (c) =>
+          acceptInvitation(await contextFor(), { token: str(c?.token), name: str(c?.name) || undefined, password: str(c?.password) || undefined }),
       }),
     ],
     events: {

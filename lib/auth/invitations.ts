@@ -1,10 +1,10 @@
-import type { EntityManager } from "@mikro-orm/postgresql";
-import { InvitationSchema, MembershipSchema, UserSchema, type Role } from "@/entities";
+import { InvitationSchema, MembershipSchema, UserSchema } from "@/entities";
+import type { Ctx } from "@/lib/context";
 import { AppError } from "@/lib/errors";
 import { sendMail } from "@/lib/mail/mailer";
 import { invitationMessage } from "@/lib/mail/messages";
 import { randomSecret, sha256Hex } from "@/lib/tokens/secret";
-import type { Caller } from "./caller";
+import type { AcceptInvitationInput, InvitationInput, InvitationRef, LinkToken, TeamRef } from "@/lib/validation/accounts";
 import { hashPassword } from "./passwords";
 import { normaliseEmail, type SignedIn } from "./sign-in";
 import { teamForAdmin } from "./teams";
@@ -12,12 +12,7 @@ import { teamForAdmin } from "./teams";
 export const INVITATION_DAYS = 7;
 
 /** An admin invites an address to a team with a role; the link in the mail is the only copy of the token. */
-export async function inviteMember(
-  em: EntityManager,
-  caller: Caller,
-  input: { teamSlug: string; email: string; role: Role },
-  now = new Date(),
-): Promise<{ id: number }> {
+export async function inviteMember({ em, caller }: Ctx, input: InvitationInput, now = new Date()): Promise<{ id: number }> {
   const team = await teamForAdmin(em, caller, input.teamSlug);
   const email = normaliseEmail(input.email);
   const existing = await em.findOne(MembershipSchema, { team, user: { email } });
@@ -41,7 +36,7 @@ export async function inviteMember(
   return { id: inv.id };
 }
 
-export async function pendingInvitations(em: EntityManager, caller: Caller, teamSlug: string, now = new Date()) {
+export async function pendingInvitations({ em, caller }: Ctx, { teamSlug }: TeamRef, now = new Date()) {
   const team = await teamForAdmin(em, caller, teamSlug);
   const rows = await em.find(
     InvitationSchema,
@@ -51,7 +46,7 @@ export async function pendingInvitations(em: EntityManager, caller: Caller, team
   return rows.map((i) => ({ id: i.id, email: i.email, role: i.role, invitedBy: i.invitedBy.name, expiresAt: i.expiresAt }));
 }
 
-export async function withdrawInvitation(em: EntityManager, caller: Caller, teamSlug: string, id: number): Promise<void> {
+export async function withdrawInvitation({ em, caller }: Ctx, { teamSlug, id }: InvitationRef): Promise<void> {
   const team = await teamForAdmin(em, caller, teamSlug);
   await em.nativeDelete(InvitationSchema, { id, team, acceptedAt: null });
 }
@@ -59,7 +54,7 @@ export async function withdrawInvitation(em: EntityManager, caller: Caller, team
 const refused = () => new AppError("unauthenticated", "This invitation is not valid any more. Ask the team's admin for a new one.");
 
 /** What the acceptance page shows before anyone types: the team, the role, whether an account exists. */
-export async function describeInvitation(em: EntityManager, token: string, now = new Date()) {
+export async function describeInvitation({ em }: Ctx, { token }: LinkToken, now = new Date()) {
   const inv = await em.findOne(InvitationSchema, { tokenHash: sha256Hex(token) }, { populate: ["team"] });
   if (!inv || inv.acceptedAt || inv.expiresAt <= now) return null;
   const user = await em.findOne(UserSchema, { email: inv.email });
@@ -70,12 +65,7 @@ export async function describeInvitation(em: EntityManager, token: string, now =
  * Accepting proves control of the invited mailbox, like a sign-in link: it adds the membership
  * (creating the account with name and password when there is none) and signs the person in.
  */
-export async function acceptInvitation(
-  em: EntityManager,
-  token: string,
-  account: { name?: string; password?: string },
-  now = new Date(),
-): Promise<SignedIn> {
+export async function acceptInvitation({ em }: Ctx, { token, ...account }: AcceptInvitationInput, now = new Date()): Promise<SignedIn> {
   if (!/^[A-Za-z0-9_-]{20,100}$/.test(token)) throw refused();
   return em.transactional(async (tx) => {
     const hash = sha256Hex(token);

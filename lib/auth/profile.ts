@@ -1,6 +1,7 @@
-import type { EntityManager } from "@mikro-orm/postgresql";
-import { UserSchema } from "@/entities";
+import { UserSchema, type User } from "@/entities";
+import type { Ctx } from "@/lib/context";
 import { AppError } from "@/lib/errors";
+import type { PasswordChangeInput, ProfileNameInput } from "@/lib/validation/accounts";
 import type { Caller } from "./caller";
 import { hashPassword, verifyPassword } from "./passwords";
 import { currentPasswordAccepted, currentPasswordAttempt } from "./rate-limit";
@@ -12,16 +13,23 @@ function signedIn(caller: Caller) {
   return caller.user;
 }
 
-export async function updateName(em: EntityManager, caller: Caller, name: string): Promise<void> {
+/** What the settings page shows of the signed-in person. */
+export async function ownProfile({ em, caller }: Ctx): Promise<Pick<User, "email" | "name"> & { hasPassword: boolean }> {
   const me = signedIn(caller);
-  await em.nativeUpdate(UserSchema, { id: me.id }, { name: name.trim() });
+  const user = await em.findOneOrFail(UserSchema, { id: me.id });
+  return { email: user.email, name: user.name, hasPassword: !!user.passwordHash };
+}
+
+export async function updateName({ em, caller }: Ctx, { name }: ProfileNameInput): Promise<void> {
+  const me = signedIn(caller);
+  await em.nativeUpdate(UserSchema, { id: me.id }, { name });
 }
 
 /**
  * Sets a new password and ends every session that signed in before now, in one update. Returns that moment:
  * the browser that made the change signs in again at it (restartSession) and stays signed in.
  */
-export async function changePassword(em: EntityManager, caller: Caller, current: string, next: string, now = new Date()): Promise<Date> {
+export async function changePassword({ em, caller }: Ctx, { current, next }: PasswordChangeInput, now = new Date()): Promise<Date> {
   const me = signedIn(caller);
   const user = await em.findOneOrFail(UserSchema, { id: me.id });
   if (user.passwordHash) {

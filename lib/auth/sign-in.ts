@@ -1,9 +1,10 @@
-import type { EntityManager } from "@mikro-orm/postgresql";
 import { SignInLinkSchema, UserSchema } from "@/entities";
+import type { Ctx } from "@/lib/context";
 import { AppError } from "@/lib/errors";
 import { sendMail } from "@/lib/mail/mailer";
 import { signInLinkMessage } from "@/lib/mail/messages";
 import { randomSecret, sha256Hex } from "@/lib/tokens/secret";
+import type { LinkRequestInput, LinkToken, PasswordSignInInput } from "@/lib/validation/accounts";
 import { hashPassword, verifyPassword } from "./passwords";
 import { clientIp, linkRedeemAttempt, linkRequest, passwordAccepted, passwordAttempt } from "./rate-limit";
 
@@ -22,7 +23,7 @@ let decoyHash: Promise<string> | undefined;
 
 /** E-mail + password; the same refusal for an unknown address and a wrong password. */
 /** `ip` is the client's IP when a trusted proxy names it (clientIp), else null: then only the account is slowed. */
-export async function authorizePassword(em: EntityManager, email: string, password: string, ip: string | null): Promise<SignedIn> {
+export async function authorizePassword({ em }: Ctx, { email, password }: PasswordSignInInput, ip: string | null): Promise<SignedIn> {
   const address = normaliseEmail(email);
   passwordAttempt(address, ip);
   const user = await em.findOne(UserSchema, { email: address });
@@ -37,7 +38,7 @@ export async function authorizePassword(em: EntityManager, email: string, passwo
  * Mails a one-time sign-in link when the address belongs to someone; says nothing either way,
  * so the form cannot be used to find out who has an account.
  */
-export async function requestSignInLink(em: EntityManager, email: string, ip: string | null, now = new Date()): Promise<void> {
+export async function requestSignInLink({ em }: Ctx, { email }: LinkRequestInput, ip: string | null, now = new Date()): Promise<void> {
   const address = normaliseEmail(email);
   await linkRequest(address, ip);
   const user = await em.findOne(UserSchema, { email: address });
@@ -55,7 +56,7 @@ export async function requestSignInLink(em: EntityManager, email: string, ip: st
 }
 
 /** Redeems a link once: the conditional update is the single-use guarantee even when two tabs race. */
-export async function redeemSignInLink(em: EntityManager, token: string, ip: string | null, now = new Date()): Promise<SignedIn> {
+export async function redeemSignInLink({ em }: Ctx, { token }: LinkToken, ip: string | null, now = new Date()): Promise<SignedIn> {
   linkRedeemAttempt(ip);
   const refused = new AppError("unauthenticated", "This sign-in link is not valid any more. Ask for a new one.");
   if (!/^[A-Za-z0-9_-]{20,100}$/.test(token)) throw refused;

@@ -1,6 +1,8 @@
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { MembershipSchema, TeamSchema, type Role, type Team } from "@/entities";
+import type { Ctx } from "@/lib/context";
 import { AppError } from "@/lib/errors";
+import type { MemberTarget, RoleChange, TeamRef } from "@/lib/validation/accounts";
 import type { Caller } from "./caller";
 import { assertCan, roleIn } from "./permissions";
 
@@ -25,8 +27,8 @@ export async function teamForAdmin(em: EntityManager, caller: Caller, slug: stri
   return team;
 }
 
-export async function listMembers(em: EntityManager, caller: Caller, slug: string): Promise<MemberRow[]> {
-  const team = await teamForAdmin(em, caller, slug);
+export async function listMembers({ em, caller }: Ctx, { teamSlug }: TeamRef): Promise<MemberRow[]> {
+  const team = await teamForAdmin(em, caller, teamSlug);
   const rows = await em.find(MembershipSchema, { team }, { populate: ["user"], orderBy: { user: { name: "asc" } } });
   return rows.map((m) => ({ userId: m.user.id, email: m.user.email, name: m.user.name, role: m.role, since: m.createdAt }));
 }
@@ -44,8 +46,8 @@ async function assertNotLastAdmin(em: EntityManager, teamId: number, userId: num
   }
 }
 
-export async function changeRole(em: EntityManager, caller: Caller, slug: string, userId: number, role: Role): Promise<void> {
-  const team = await teamForAdmin(em, caller, slug);
+export async function changeRole({ em, caller }: Ctx, { teamSlug, userId, role }: RoleChange): Promise<void> {
+  const team = await teamForAdmin(em, caller, teamSlug);
   await em.transactional(async (tx) => {
     const m = await tx.findOne(MembershipSchema, { team, user: userId });
     if (!m) throw new AppError("not_found", "no such member");
@@ -55,8 +57,8 @@ export async function changeRole(em: EntityManager, caller: Caller, slug: string
   });
 }
 
-export async function removeMember(em: EntityManager, caller: Caller, slug: string, userId: number): Promise<void> {
-  const team = await teamForAdmin(em, caller, slug);
+export async function removeMember({ em, caller }: Ctx, { teamSlug, userId }: MemberTarget): Promise<void> {
+  const team = await teamForAdmin(em, caller, teamSlug);
   await em.transactional(async (tx) => {
     const m = await tx.findOne(MembershipSchema, { team, user: userId });
     if (!m) throw new AppError("not_found", "no such member");

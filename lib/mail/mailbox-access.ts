@@ -1,7 +1,7 @@
-import type { EntityManager } from "@mikro-orm/postgresql";
 import { InvitationSchema, MembershipSchema, UserSchema } from "@/entities";
 import type { Caller } from "@/lib/auth/caller";
 import { can } from "@/lib/auth/permissions";
+import type { Ctx } from "@/lib/context";
 import type { StoredMail } from "./sink";
 
 // The local sink holds everyone's sign-in links. An admin sees a message only when every recipient is someone
@@ -11,7 +11,8 @@ export function isMailboxViewer(caller: Caller): boolean {
   return !caller.token && caller.memberships.some((m) => can(caller, "team.manage", { kind: "team", teamId: m.teamId }));
 }
 
-export async function visibleMail(em: EntityManager, caller: Caller, mails: StoredMail[]): Promise<StoredMail[]> {
+/** Of the sink's mails, those this caller may read. */
+export async function visibleMail({ em, caller }: Ctx, mails: StoredMail[]): Promise<StoredMail[]> {
   if (!caller.user || !isMailboxViewer(caller)) return [];
   const adminOf = new Set(caller.memberships.filter((m) => can(caller, "team.manage", { kind: "team", teamId: m.teamId })).map((m) => m.teamId));
   const addresses = [...new Set(mails.flatMap((m) => m.envelope.to.map((a) => a.toLowerCase())))];

@@ -1,8 +1,9 @@
-import type { EntityManager } from "@mikro-orm/postgresql";
 import { ApiTokenSchema, TeamSchema, type TokenScope } from "@/entities";
 import type { Caller } from "@/lib/auth/caller";
 import { can, roleIn } from "@/lib/auth/permissions";
+import type { Ctx } from "@/lib/context";
 import { AppError } from "@/lib/errors";
+import type { NewTokenInput, TokenRef } from "@/lib/validation/accounts";
 import { createToken } from "./tokens";
 
 // The settings page's token operations. Anyone in a team may hold tokens for it (a token never exceeds its
@@ -27,12 +28,7 @@ export interface TokenRow {
   revokedAt: Date | null;
 }
 
-export async function createOwnToken(
-  em: EntityManager,
-  caller: Caller,
-  input: { teamSlug: string; name: string; scope: TokenScope; expiresInDays: number },
-  now = new Date(),
-): Promise<{ token: string; id: number }> {
+export async function createOwnToken({ em, caller }: Ctx, input: NewTokenInput, now = new Date()): Promise<{ token: string; id: number }> {
   const me = person(caller);
   const team = await em.findOne(TeamSchema, { slug: input.teamSlug });
   if (!team || !roleIn(caller, team.id)) throw new AppError("not_found", "no such team");
@@ -41,7 +37,7 @@ export async function createOwnToken(
   return { token, id: record.id };
 }
 
-export async function listTokens(em: EntityManager, caller: Caller): Promise<TokenRow[]> {
+export async function listTokens({ em, caller }: Ctx): Promise<TokenRow[]> {
   const me = person(caller);
   const adminOf = caller.memberships.filter((m) => can(caller, "token.manage", { kind: "team", teamId: m.teamId })).map((m) => m.teamId);
   const rows = await em.find(
@@ -64,7 +60,7 @@ export async function listTokens(em: EntityManager, caller: Caller): Promise<Tok
   }));
 }
 
-export async function revokeTokenAs(em: EntityManager, caller: Caller, id: number): Promise<void> {
+export async function revokeTokenAs({ em, caller }: Ctx, { id }: TokenRef): Promise<void> {
   const me = person(caller);
   const t = await em.findOne(ApiTokenSchema, { id });
   const allowed = t && (t.user.id === me.id || can(caller, "token.manage", { kind: "team", teamId: t.team.id }));

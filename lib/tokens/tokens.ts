@@ -34,10 +34,6 @@ export async function createToken(em: EntityManager, input: NewToken): Promise<{
   return { token, record };
 }
 
-export async function revokeToken(em: EntityManager, id: number): Promise<void> {
-  await em.nativeUpdate(ApiTokenSchema, { id, revokedAt: null }, { revokedAt: new Date() });
-}
-
 /** The Caller behind a Bearer token; a malformed, unknown, revoked or expired token is unauthenticated (401). */
 export async function findTokenCaller(em: EntityManager, token: string, now = new Date()): Promise<Caller> {
   if (!isWellFormedToken(token)) throw new AppError("unauthenticated", "malformed API token");

@@ -18,6 +18,15 @@ export const acceptInvitation = z.object({
   password: password.optional(),
 });
 export const profileName = z.object({ name: personName });
+/** A team by slug (the team page). */
+export const teamRef = z.object({ teamSlug });
+/** One member of a team, and the role an admin gives them. */
+export const memberTarget = z.object({ teamSlug, userId: z.coerce.number().int().positive() });
+export const roleChange = memberTarget.extend({ role });
+/** One pending invitation of a team. */
+export const invitationRef = z.object({ teamSlug, id: z.coerce.number().int().positive() });
+/** The secret in an invitation link, as the acceptance page reads it. */
+export const invitationToken = z.object({ token: z.string().regex(/^[A-Za-z0-9_-]{20,100}$/) });
 export const passwordChange = z
   .object({ current: z.string().max(200), next: password, repeat: z.string() })
   .refine((v) => v.next === v.repeat, { message: "The two new passwords differ.", path: ["repeat"] });
@@ -29,6 +38,24 @@ export const newToken = z.object({
   scope: z.enum(["read", "write"]),
   expiresInDays: z.coerce.number().int().refine((d) => (TOKEN_EXPIRY_DAYS as readonly number[]).includes(d), "Pick an expiry."),
 });
+/** One token of the settings page's list. */
+export const tokenRef = z.object({ id: z.coerce.number().int().positive() });
+
+export type NewTokenInput = z.infer<typeof newToken>;
+export type PasswordSignInInput = z.infer<typeof passwordSignIn>;
+export type LinkRequestInput = z.infer<typeof linkRequest>;
+/** A sign-in link's or an invitation's secret, as the link carries it (checked by the service, which refuses in words). */
+export type LinkToken = { token: string };
+export type InvitationInput = z.infer<typeof invitation>;
+export type AcceptInvitationInput = z.infer<typeof acceptInvitation>;
+export type InvitationTokenInput = z.infer<typeof invitationToken>;
+export type ProfileNameInput = z.infer<typeof profileName>;
+export type PasswordChangeInput = Pick<z.infer<typeof passwordChange>, "current" | "next">;
+export type TeamRef = z.infer<typeof teamRef>;
+export type MemberTarget = z.infer<typeof memberTarget>;
+export type RoleChange = z.infer<typeof roleChange>;
+export type InvitationRef = z.infer<typeof invitationRef>;
+export type TokenRef = z.infer<typeof tokenRef>;
 
 /** First message of a zod error, for a form's one-line answer. */
 export const firstIssue = (e: z.ZodError): string => e.issues[0]?.message ?? "Invalid input.";

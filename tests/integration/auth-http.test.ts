@@ -7,6 +7,7 @@ import { closeOrm, getEm } from "@/lib/db/orm";
 import { startApp, type AppServer } from "../support/app-server";
 import { CookieJar } from "../support/cookie-jar";
 import { PASSWORD, linkIn, mailsTo, makeTeam } from "./auth-fixtures";
+import { contextFor } from "@/lib/context";
 
 // The built app over HTTP: next-auth's own endpoints, our providers, the cookie they set, and pages reading it.
 let app: AppServer;
@@ -103,7 +104,7 @@ describe("sign-in over HTTP", () => {
 
   it("redeems a mailed sign-in link once", async () => {
     const { people } = await makeTeam(["viewer"]);
-    await requestSignInLink(await getEm(), people[0].email, "10.9.0.1");
+    await requestSignInLink(await contextFor(), { email: people[0].email }, "10.9.0.1");
     const token = linkIn(mailsTo(people[0].email)[0]).searchParams.get("token")!;
     const page = await fetch(`${app.url}/sign-in/link?token=${token}`);
     expect(page.status).toBe(200); // opening the page does not use the link up

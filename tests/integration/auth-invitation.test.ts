@@ -6,6 +6,7 @@ import { acceptInvitation, describeInvitation, inviteMember } from "@/lib/auth/i
 import { authorizePassword } from "@/lib/auth/sign-in";
 import { closeOrm, getEm } from "@/lib/db/orm";
 import { linkIn, mailsTo, makeTeam } from "./auth-fixtures";
+import { contextFor } from "@/lib/context";
 
 afterAll(closeOrm);
 
@@ -19,7 +20,7 @@ describe("sign-up by invitation", () => {
     const { slug, people } = await makeTeam(["admin"]);
     const admin = await loadCaller(await getEm(), people[0].id);
     const invitee = `new-${slug}@larkspur.test`;
-    await inviteMember(await getEm(), admin, { teamSlug: slug, email: invitee, role: "author" });
+    await inviteMember(await contextFor(admin), { teamSlug: slug, email: invitee, role: "author" });
 
     const [mail] = mailsTo(invitee);
     expect(mail.subject).toContain(`Team ${slug.slice(2)}`);
@@ -28,7 +29,7 @@ describe("sign-up by invitation", () => {
     const token = linkIn(mail).searchParams.get("token")!;
     const em = await getEm();
     expect(JSON.stringify(await em.find(InvitationSchema, { email: invitee }))).not.toContain(token);
-    expect(await describeInvitation(await getEm(), token)).toMatchObject({ email: invitee, role: "author", hasAccount: false });
+    expect(await describeInvitation(await contextFor(), { token })).toMatchObject({ email: invitee, role: "author", hasAccount: false });
 
     // A new account needs a usable password; the refusal leaves the invitation usable.
     await expect(provider("invitation")({ token, name: "Ada Quill", password: "short" }, { headers: {} })).rejects.toThrow(/10 characters/);
@@ -38,11 +39,11 @@ describe("sign-up by invitation", () => {
     const caller = await loadCaller(await getEm(), Number(signedIn!.id));
     expect(caller.user?.name).toBe("Ada Quill");
     expect(caller.memberships.map((m) => [m.teamSlug, m.role])).toEqual([[slug, "author"]]);
-    await expect(authorizePassword(await getEm(), invitee, "a long enough secret", "10.2.0.1")).resolves.toMatchObject({ email: invitee });
+    await expect(authorizePassword(await contextFor(), { email: invitee, password: "a long enough secret" }, "10.2.0.1")).resolves.toMatchObject({ email: invitee });
 
     // Used once.
-    await expect(acceptInvitation(await getEm(), token, { name: "Again", password: "a long enough secret" })).rejects.toMatchObject({ code: "unauthenticated" });
-    expect(await describeInvitation(await getEm(), token)).toBeNull();
+    await expect(acceptInvitation(await contextFor(), { token, name: "Again", password: "a long enough secret" })).rejects.toMatchObject({ code: "unauthenticated" });
+    expect(await describeInvitation(await contextFor(), { token })).toBeNull();
   });
 
   it("adds a membership to an existing account without touching its password", async () => {
@@ -50,10 +51,10 @@ describe("sign-up by invitation", () => {
     const b = await makeTeam(["viewer"]);
     const admin = await loadCaller(await getEm(), a.people[0].id);
     const existing = b.people[0];
-    await inviteMember(await getEm(), admin, { teamSlug: a.slug, email: existing.email, role: "maintainer" });
+    await inviteMember(await contextFor(admin), { teamSlug: a.slug, email: existing.email, role: "maintainer" });
     const token = linkIn(mailsTo(existing.email)[0]).searchParams.get("token")!;
     const before = (await (await getEm()).findOneOrFail(UserSchema, { id: existing.id })).passwordHash;
-    await acceptInvitation(await getEm(), token, {});
+    await acceptInvitation(await contextFor(), { token });
     const caller = await loadCaller(await getEm(), existing.id);
     expect(caller.memberships.map((m) => [m.teamSlug, m.role]).sort()).toEqual([[a.slug, "maintainer"], [b.slug, "viewer"]].sort());
     expect((await (await getEm()).findOneOrFail(UserSchema, { id: existing.id })).passwordHash).toBe(before);
@@ -62,18 +63,18 @@ describe("sign-up by invitation", () => {
   it("lets only admins invite, and refuses an expired invitation", async () => {
     const { slug, people } = await makeTeam(["admin", "maintainer"]);
     const maintainer = await loadCaller(await getEm(), people[1].id);
-    await expect(inviteMember(await getEm(), maintainer, { teamSlug: slug, email: `m-${slug}@fenwick.test`, role: "viewer" }))
+    await expect(inviteMember(await contextFor(maintainer), { teamSlug: slug, email: `m-${slug}@fenwick.test`, role: "viewer" }))
       .rejects.toMatchObject({ code: "forbidden" });
     const outsider = await loadCaller(await getEm(), (await makeTeam(["admin"])).people[0].id);
-    await expect(inviteMember(await getEm(), outsider, { teamSlug: slug, email: `o-${slug}@fenwick.test`, role: "viewer" }))
+    await expect(inviteMember(await contextFor(outsider), { teamSlug: slug, email: `o-${slug}@fenwick.test`, role: "viewer" }))
       .rejects.toMatchObject({ code: "not_found" });
 
     const admin = await loadCaller(await getEm(), people[0].id);
     const late = `late-${slug}@fenwick.test`;
-    await inviteMember(await getEm(), admin, { teamSlug: slug, email: late, role: "viewer" });
+    await inviteMember(await contextFor(admin), { teamSlug: slug, email: late, role: "viewer" });
     const token = linkIn(mailsTo(late)[0]).searchParams.get("token")!;
     const eightDaysOn = new Date(Date.now() + 8 * 86400_000);
-    await expect(acceptInvitation(await getEm(), token, { name: "Late", password: "a long enough secret" }, eightDaysOn))
+    await expect(acceptInvitation(await contextFor(), { token, name: "Late", password: "a long enough secret" }, eightDaysOn))
       .rejects.toMatchObject({ code: "unauthenticated" });
     expect(await (await getEm()).count(MembershipSchema, { user: { email: late } })).toBe(0);
   });

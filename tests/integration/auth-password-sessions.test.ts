@@ -8,6 +8,7 @@ import { claimsOf, sessionCookieFor } from "@/lib/auth/session-token";
 import { createToken } from "@/lib/tokens/tokens";
 import { closeOrm, getEm } from "@/lib/db/orm";
 import { PASSWORD, makeTeam } from "./auth-fixtures";
+import { contextFor } from "@/lib/context";
 
 afterAll(closeOrm);
 
@@ -24,7 +25,7 @@ describe("a password change ends the other sessions", () => {
     expect((await callerFromCookieHeader(elsewhere)).user?.id).toBe(me.id);
 
     const caller = await loadCaller(await getEm(), me.id);
-    const at = await changePassword(await getEm(), caller, PASSWORD, "a new passphrase, long");
+    const at = await changePassword(await contextFor(caller), { current: PASSWORD, next: "a new passphrase, long" });
     const row = await (await getEm()).findOneOrFail(UserSchema, { id: me.id });
     expect(row.sessionsValidFrom?.getTime()).toBe(at.getTime());
     expect(await verifyPassword("a new passphrase, long", row.passwordHash!)).toBe(true);
@@ -40,14 +41,14 @@ describe("a password change ends the other sessions", () => {
     const { people } = await makeTeam(["viewer"]);
     const cookie = await cookieAt(people[0], new Date(Date.now() - 1_000));
     const caller = await loadCaller(await getEm(), people[0].id);
-    await expect(changePassword(await getEm(), caller, "not my password", "a new passphrase, long")).rejects.toMatchObject({ code: "validation" });
+    await expect(changePassword(await contextFor(caller), { current: "not my password", next: "a new passphrase, long" })).rejects.toMatchObject({ code: "validation" });
     expect((await callerFromCookieHeader(cookie)).user?.id).toBe(people[0].id);
   });
 
   it("does not touch API tokens, which are revoked on their own", async () => {
     const { people, teamId } = await makeTeam(["author"]);
     const { token } = await createToken(await getEm(), { userId: people[0].id, teamId, name: "ci", scope: "read", expiresAt: null });
-    await changePassword(await getEm(), await loadCaller(await getEm(), people[0].id), PASSWORD, "a new passphrase, long");
+    await changePassword(await contextFor(await loadCaller(await getEm(), people[0].id)), { current: PASSWORD, next: "a new passphrase, long" });
     const byToken = await callerFromRequest(new Request("http://x/", { headers: { authorization: `Bearer ${token}` } }));
     expect(byToken.user?.id).toBe(people[0].id);
   });

@@ -6,6 +6,7 @@ import { closeOrm, getEm } from "@/lib/db/orm";
 import { visibleMail } from "@/lib/mail/mailbox-access";
 import type { StoredMail } from "@/lib/mail/sink";
 import { mailsTo, makeTeam } from "./auth-fixtures";
+import { contextFor } from "@/lib/context";
 
 afterAll(closeOrm);
 
@@ -23,14 +24,14 @@ describe("who may read the local mailbox", () => {
     await em.flush();
     const admin = await loadCaller(await getEm(), a.people[0].id);
     const invitee = `inv-${a.tag}@larkspur.test`;
-    await inviteMember(await getEm(), admin, { teamSlug: a.slug, email: invitee, role: "viewer" });
+    await inviteMember(await contextFor(admin), { teamSlug: a.slug, email: invitee, role: "viewer" });
     expect(mailsTo(invitee)).toHaveLength(1);
 
     const box = [a.people[0].email, a.people[1].email, a.people[2].email, b.people[0].email, invitee, `stranger-${a.tag}@x.test`].map(mailTo);
-    const seen = (await visibleMail(await getEm(), admin, box)).map((m) => m.envelope.to[0]);
+    const seen = (await visibleMail(await contextFor(admin), box)).map((m) => m.envelope.to[0]);
     expect(seen).toEqual([a.people[0].email, a.people[1].email, invitee]);
 
     const author = await loadCaller(await getEm(), a.people[1].id);
-    expect(await visibleMail(await getEm(), author, box)).toEqual([]);
+    expect(await visibleMail(await contextFor(author), box)).toEqual([]);
   });
 });

@@ -4,6 +4,7 @@ import { ApiTokenSchema } from "@/entities";
 import { loadCaller } from "@/lib/auth/load-caller";
 import { assertCan } from "@/lib/auth/permissions";
 import { callerFromRequest } from "@/lib/auth/request-caller";
+import { contextFor } from "@/lib/context";
 import { closeOrm, getEm } from "@/lib/db/orm";
 import { createOwnToken, listTokens, revokeTokenAs } from "@/lib/tokens/manage";
 import { createToken } from "@/lib/tokens/tokens";
@@ -26,7 +27,7 @@ describe("API tokens", () => {
     expect(record.prefix).toBe(token.slice(0, 12));
     // Listing never returns the token either.
     const me = await loadCaller(await getEm(), people[0].id);
-    expect(JSON.stringify(await listTokens(await getEm(), me))).not.toContain(token);
+    expect(JSON.stringify(await listTokens(await contextFor(me)))).not.toContain(token);
   });
 
   it("answers 401 to malformed, unknown, revoked and expired tokens", async () => {
@@ -43,7 +44,7 @@ describe("API tokens", () => {
     expect(caller.token).toEqual({ id: live.record.id, teamId, scope: "write" });
 
     const owner = await loadCaller(await getEm(), people[0].id);
-    await revokeTokenAs(await getEm(), owner, live.record.id);
+    await revokeTokenAs(await contextFor(owner), { id: live.record.id });
     await expect(callerFromRequest(bearer(live.token))).rejects.toMatchObject({ status: 401, message: expect.stringMatching(/revoked/) });
 
     const old = await createToken(await getEm(), { userId: people[0].id, teamId, name: "b", scope: "read", expiresAt: new Date(Date.now() - 1000) });
@@ -77,20 +78,20 @@ describe("API tokens", () => {
   it("lets members make tokens for their own teams and admins revoke any token of their team", async () => {
     const { slug, teamId, people } = await makeTeam(["admin", "viewer", "author"]);
     const viewer = await loadCaller(await getEm(), people[1].id);
-    const made = await createOwnToken(await getEm(), viewer, { teamSlug: slug, name: "bench", scope: "read", expiresInDays: 30 });
+    const made = await createOwnToken(await contextFor(viewer), { teamSlug: slug, name: "bench", scope: "read", expiresInDays: 30 });
     const stranger = await makeTeam(["admin"]);
-    await expect(createOwnToken(await getEm(), viewer, { teamSlug: stranger.slug, name: "x", scope: "read", expiresInDays: 0 }))
+    await expect(createOwnToken(await contextFor(viewer), { teamSlug: stranger.slug, name: "x", scope: "read", expiresInDays: 0 }))
       .rejects.toMatchObject({ status: 404 });
     const author = await loadCaller(await getEm(), people[2].id);
-    await expect(revokeTokenAs(await getEm(), author, made.id)).rejects.toMatchObject({ status: 404 });
+    await expect(revokeTokenAs(await contextFor(author), { id: made.id })).rejects.toMatchObject({ status: 404 });
     const admin = await loadCaller(await getEm(), people[0].id);
-    expect((await listTokens(await getEm(), admin)).map((t) => t.id)).toContain(made.id);
-    await revokeTokenAs(await getEm(), admin, made.id);
+    expect((await listTokens(await contextFor(admin))).map((t) => t.id)).toContain(made.id);
+    await revokeTokenAs(await contextFor(admin), { id: made.id });
     await expect(callerFromRequest(bearer(made.token))).rejects.toMatchObject({ status: 401 });
     // A token cannot mint tokens.
     const t = await createToken(await getEm(), { userId: people[0].id, teamId, name: "w", scope: "write", expiresAt: null });
     const viaToken = await callerFromRequest(bearer(t.token));
-    await expect(createOwnToken(await getEm(), viaToken, { teamSlug: slug, name: "y", scope: "write", expiresInDays: 0 })).rejects.toMatchObject({ status: 403 });
+    await expect(createOwnToken(await contextFor(viaToken), { teamSlug: slug, name: "y", scope: "write", expiresInDays: 0 })).rejects.toMatchObject({ status: 403 });
   });
 
   it("reads the session cookie from a plain Request, and ignores one signed with another secret", async () => {

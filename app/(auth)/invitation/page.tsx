@@ -1,7 +1,8 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { describeInvitation } from "@/lib/auth/invitations";
-import { withEm } from "@/lib/db/orm";
+import { contextFor } from "@/lib/context";
+import { invitationToken } from "@/lib/validation/accounts";
 import { AcceptForm } from "./accept-form";
 
 export const metadata: Metadata = { title: "Invitation" };
@@ -9,7 +10,9 @@ export const dynamic = "force-dynamic";
 
 export default async function InvitationPage({ searchParams }: { searchParams: Promise<{ token?: string }> }) {
   const { token } = await searchParams;
-  const inv = token && /^[A-Za-z0-9_-]{20,100}$/.test(token) ? await withEm((em) => describeInvitation(em, token)) : null;
+  const link = invitationToken.safeParse({ token });
+  // Whoever follows the link is not signed in yet: an anonymous context.
+  const inv = link.success ? await describeInvitation(await contextFor(), link.data) : null;
   if (!token || !inv) {
     return (
       <div className="space-y-3">

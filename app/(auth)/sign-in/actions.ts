@@ -2,7 +2,7 @@
 import { headers } from "next/headers";
 import { clientIp } from "@/lib/auth/rate-limit";
 import { requestSignInLink } from "@/lib/auth/sign-in";
-import { withEm } from "@/lib/db/orm";
+import { contextFor } from "@/lib/context";
 import { isAppError } from "@/lib/errors";
 import { firstIssue, linkRequest } from "@/lib/validation/accounts";
 
@@ -17,7 +17,7 @@ export async function requestLinkAction(_prev: LinkState, form: FormData): Promi
   if (!parsed.success) return { ok: false, message: firstIssue(parsed.error) };
   try {
     const ip = clientIp(await headers());
-    await withEm((em) => requestSignInLink(em, parsed.data.email, ip));
+    await requestSignInLink(await contextFor(), parsed.data, ip);
   } catch (err) {
     if (isAppError(err)) return { ok: false, message: err.message };
     console.error(err);

@@ -3,9 +3,9 @@ import { notFound } from "next/navigation";
 import { when } from "@/components/eng";
 import { EmptyState } from "@/components/empty-state";
 import { requireUser } from "@/lib/auth/session";
-import { withEm } from "@/lib/db/orm";
 import { readSink, sinkDir } from "@/lib/mail/mailbox";
 import { isMailboxViewer, visibleMail } from "@/lib/mail/mailbox-access";
+import { pageContext } from "@/lib/next-context";
 
 export const metadata: Metadata = { title: "Mailbox" };
 export const dynamic = "force-dynamic";
@@ -16,7 +16,7 @@ export default async function MailboxPage() {
   if (!dir) notFound();
   const caller = await requireUser("/mailbox");
   if (!isMailboxViewer(caller)) notFound();
-  const mails = await withEm((em) => visibleMail(em, caller, readSink(dir, 300)));
+  const mails = await visibleMail(await pageContext(), readSink(dir, 300));
   return (
     <div className="max-w-4xl space-y-4">
       <h1 className="font-serif text-2xl font-semibold">Mailbox</h1>

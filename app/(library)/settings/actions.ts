@@ -1,17 +1,17 @@
 "use server";
 import { revalidatePath } from "next/cache";
 import { changePassword, updateName } from "@/lib/auth/profile";
-import { getCaller, restartSession } from "@/lib/auth/session";
-import { withEm } from "@/lib/db/orm";
+import { restartSession } from "@/lib/auth/session";
+import { actionContext } from "@/lib/next-context";
 import { firstIssue, passwordChange, profileName } from "@/lib/validation/accounts";
 import { failure, type FormState } from "@/lib/actions/form-state";
 
 export async function updateNameAction(_prev: FormState, form: FormData): Promise<FormState> {
   const parsed = profileName.safeParse({ name: form.get("name") });
   if (!parsed.success) return { ok: false, message: firstIssue(parsed.error) };
-  const caller = await getCaller();
+  const ctx = await actionContext();
   try {
-    await withEm((em) => updateName(em, caller, parsed.data.name));
+    await updateName(ctx, parsed.data);
   } catch (err) {
     return failure(err);
   }
@@ -22,11 +22,11 @@ export async function updateNameAction(_prev: FormState, form: FormData): Promis
 export async function changePasswordAction(_prev: FormState, form: FormData): Promise<FormState> {
   const parsed = passwordChange.safeParse(Object.fromEntries(form));
   if (!parsed.success) return { ok: false, message: firstIssue(parsed.error) };
-  const caller = await getCaller();
+  const ctx = await actionContext();
   try {
-    const at = await withEm((em) => changePassword(em, caller, parsed.data.current, parsed.data.next));
+    const at = await changePassword(ctx, parsed.data);
     // The change ended every session signed in before it, this browser's too: sign it in again here.
-    await restartSession(caller.user!, at);
+    await restartSession(ctx.caller.user!, at);
   } catch (err) {
     return failure(err);
   }

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
-import { UserSchema } from "@/entities";
+import { ownProfile } from "@/lib/auth/profile";
 import { requireUser } from "@/lib/auth/session";
-import { withEm } from "@/lib/db/orm";
+import { pageContext } from "@/lib/next-context";
 import { NameForm, PasswordForm } from "./profile-forms";
 import { SettingsNav } from "./settings-nav";
 
@@ -10,7 +10,7 @@ export const dynamic = "force-dynamic";
 
 export default async function SettingsPage() {
   const caller = await requireUser("/settings");
-  const user = await withEm((em) => em.findOneOrFail(UserSchema, { id: caller.user.id }));
+  const user = await ownProfile(await pageContext());
   return (
     <div className="max-w-3xl space-y-6">
       <h1 className="font-serif text-2xl font-semibold">Settings</h1>
@@ -23,7 +23,7 @@ export default async function SettingsPage() {
         </section>
         <section aria-labelledby="pw-h" className="rounded border border-rule bg-panel p-4">
           <h2 id="pw-h" className="mb-3 font-serif text-lg font-semibold">Password</h2>
-          <PasswordForm hasPassword={!!user.passwordHash} />
+          <PasswordForm hasPassword={user.hasPassword} />
         </section>
       </div>
       <section aria-labelledby="teams-h" className="rounded border border-rule bg-panel p-4">

@@ -1,15 +1,12 @@
 "use server";
 import { revalidatePath } from "next/cache";
-import { z } from "zod";
 import { inviteMember, withdrawInvitation } from "@/lib/auth/invitations";
-import { getCaller } from "@/lib/auth/session";
 import { changeRole, removeMember } from "@/lib/auth/teams";
-import { withEm } from "@/lib/db/orm";
-import { firstIssue, invitation, role, teamSlug } from "@/lib/validation/accounts";
+import { actionContext } from "@/lib/next-context";
+import { firstIssue, invitation, invitationRef, memberTarget, roleChange } from "@/lib/validation/accounts";
 import { failure, type FormState } from "@/lib/actions/form-state";
 
 // Every action re-resolves the caller and the services check the admin role themselves.
-const memberTarget = z.object({ teamSlug, userId: z.coerce.number().int().positive() });
 
 async function run(fn: () => Promise<unknown>, ok: string): Promise<FormState> {
   try {
@@ -22,30 +19,29 @@ async function run(fn: () => Promise<unknown>, ok: string): Promise<FormState> {
 }
 
 export async function changeRoleAction(_prev: FormState, form: FormData): Promise<FormState> {
-  const parsed = memberTarget.extend({ role }).safeParse(Object.fromEntries(form));
+  const parsed = roleChange.safeParse(Object.fromEntries(form));
   if (!parsed.success) return { ok: false, message: firstIssue(parsed.error) };
-  const caller = await getCaller();
-  const { teamSlug: slug, userId, role: r } = parsed.data;
-  return run(() => withEm((em) => changeRole(em, caller, slug, userId, r)), `Role set to ${r}.`);
+  const ctx = await actionContext();
+  return run(() => changeRole(ctx, parsed.data), `Role set to ${parsed.data.role}.`);
 }
 
 export async function removeMemberAction(_prev: FormState, form: FormData): Promise<FormState> {
   const parsed = memberTarget.safeParse(Object.fromEntries(form));
   if (!parsed.success) return { ok: false, message: firstIssue(parsed.error) };
-  const caller = await getCaller();
-  return run(() => withEm((em) => removeMember(em, caller, parsed.data.teamSlug, parsed.data.userId)), "Removed from the team.");
+  const ctx = await actionContext();
+  return run(() => removeMember(ctx, parsed.data), "Removed from the team.");
 }
 
 export async function inviteAction(_prev: FormState, form: FormData): Promise<FormState> {
   const parsed = invitation.safeParse(Object.fromEntries(form));
   if (!parsed.success) return { ok: false, message: firstIssue(parsed.error) };
-  const caller = await getCaller();
-  return run(() => withEm((em) => inviteMember(em, caller, parsed.data)), `Invitation mailed to ${parsed.data.email}.`);
+  const ctx = await actionContext();
+  return run(() => inviteMember(ctx, parsed.data), `Invitation mailed to ${parsed.data.email}.`);
 }
 
 export async function withdrawAction(_prev: FormState, form: FormData): Promise<FormState> {
-  const parsed = z.object({ teamSlug, id: z.coerce.number().int().positive() }).safeParse(Object.fromEntries(form));
+  const parsed = invitationRef.safeParse(Object.fromEntries(form));
   if (!parsed.success) return { ok: false, message: firstIssue(parsed.error) };
-  const caller = await getCaller();
-  return run(() => withEm((em) => withdrawInvitation(em, caller, parsed.data.teamSlug, parsed.data.id)), "Invitation withdrawn.");
+  const ctx = await actionContext();
+  return run(() => withdrawInvitation(ctx, parsed.data), "Invitation withdrawn.");
 }

@@ -5,7 +5,7 @@ import { EmptyState } from "@/components/empty-state";
 import { pendingInvitations } from "@/lib/auth/invitations";
 import { requireUser } from "@/lib/auth/session";
 import { adminTeams, listMembers } from "@/lib/auth/teams";
-import { withEm } from "@/lib/db/orm";
+import { pageContext } from "@/lib/next-context";
 import { InviteForm, RemoveForm, RoleForm, WithdrawForm } from "./team-forms";
 
 export const metadata: Metadata = { title: "Team" };
@@ -26,7 +26,9 @@ export default async function TeamPage({ searchParams }: { searchParams: Promise
   }
   const { team: wanted } = await searchParams;
   const slug = mine.find((m) => m.teamSlug === wanted)?.teamSlug ?? mine[0].teamSlug;
-  const [members, invitations] = await withEm(async (em) => [await listMembers(em, caller, slug), await pendingInvitations(em, caller, slug)] as const);
+  const ctx = await pageContext();
+  const members = await listMembers(ctx, { teamSlug: slug });
+  const invitations = await pendingInvitations(ctx, { teamSlug: slug });
   const admins = members.filter((m) => m.role === "admin").length;
   return (
     <div className="max-w-5xl space-y-6">

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import { when } from "@/components/eng";
 import { EmptyState } from "@/components/empty-state";
 import { requireUser } from "@/lib/auth/session";
-import { withEm } from "@/lib/db/orm";
+import { pageContext } from "@/lib/next-context";
 import { listTokens, type TokenRow } from "@/lib/tokens/manage";
 import { SettingsNav } from "../settings-nav";
 import { CreateTokenForm, RevokeButton } from "./token-forms";
@@ -18,7 +18,7 @@ function state(t: TokenRow, now: number): string {
 
 export default async function TokensPage() {
   const caller = await requireUser("/settings/tokens");
-  const tokens = await withEm((em) => listTokens(em, caller));
+  const tokens = await listTokens(await pageContext());
   const now = Date.now();
   const others = tokens.some((t) => !t.mine);
   return (
