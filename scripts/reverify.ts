@@ -6,13 +6,14 @@ import { enqueueStaleHeads } from "../lib/runs/reverify";
 
 async function main() {
   const args = process.argv.slice(2);
+  const em = await getEm(); // the script's one unit of work
   const teamIds: number[] = [];
   for (const slug of args.flatMap((a, i) => (a === "--team" && args[i + 1] ? [args[i + 1]] : []))) {
-    const team = await (await getEm()).findOne(TeamSchema, { slug });
+    const team = await em.findOne(TeamSchema, { slug });
     if (!team) throw new Error(`no team "${slug}"`);
     teamIds.push(team.id);
   }
-  const { queued, slugs } = await enqueueStaleHeads(await getEm(), { teamIds });
+  const { queued, slugs } = await enqueueStaleHeads(em, { teamIds });
   console.log(`[assay] queued ${queued} head version(s) for verification${slugs.length ? ": " + slugs.join(", ") : ""}`);
 }
 
