@@ -1,4 +1,4 @@
-import type { YAMLError } from "yaml";
+import { Lexer, type YAMLError } from "yaml";
 
 // The YAML library reports one mistake as several errors, in its own terms ("Nested mappings are not allowed in
 // compact mappings"), at the place it gave up rather than where the mistake is. A person editing a block file wants
@@ -36,13 +36,28 @@ const misindented = (lines: string[], i: number): PlainYamlError => ({
   message: /^[ ]*\t/.test(lines[i] ?? "") ? TAB : `${subject(lines, i)} is indented differently from the line above`,
 });
 
-/** The line (index) where an unclosed quote of kind `q` opened: the nearest line at or above `from` with an odd count of it. */
-function openingQuote(lines: string[], from: number, q: string): number {
-  for (let j = Math.min(from, lines.length - 1); j >= 0; j--) {
-    const count = lines[j].split(q).length - 1 - (q === '"' ? (lines[j].match(/\\"/g)?.length ?? 0) : 0);
-    if (count % 2 === 1) return j;
+/** Whether a quoted scalar's source ends with its closing quote (not an escaped one: \" in double, '' in single quotes). */
+function closed(token: string, q: string): boolean {
+  const body = token.slice(1);
+  if (!body.endsWith(q)) return false;
+  const escape = q === '"' ? "\\" : "'";
+  let n = 0;
+  for (let i = body.length - 2; i >= 0 && body[i] === escape; i--) n++;
+  return n % 2 === 0;
+}
+
+/**
+ * The offset where a quote of kind `q` opens and never closes, from the library's own lexer (its tokens are the
+ * source text, apart from one-character control tokens), or null when it finds none.
+ */
+function unclosedQuote(src: string, q: string): number | null {
+  let offset = 0;
+  for (const token of new Lexer().lex(src)) {
+    if (token.length === 1 && token < " " && token !== "\n" && token !== "\t") continue;
+    if (token[0] === q && !closed(token, q)) return offset;
+    offset += token.length;
   }
-  return from;
+  return null;
 }
 
 /** The line (index) at or above `from` that opens more `open` than it closes. */
@@ -75,8 +90,8 @@ export function plainYamlError(errors: readonly YAMLError[], src: string, lineOf
     case "MISSING_CHAR": {
       const quote = /closing (["'])/.exec(first)?.[1];
       if (quote) {
-        const j = openingQuote(lines, at, quote);
-        return { line: j + 1, message: `the ${quote === '"' ? "double" : "single"} quote opened on this line is never closed` };
+        const open = unclosedQuote(src, quote);
+        return { line: open === null ? at + 1 : lineOf(open), message: `the ${quote === '"' ? "double" : "single"} quote opened on this line is never closed` };
       }
       if (/without - indicator/.test(first)) return misindented(lines, at);
       break;

@@ -32,6 +32,11 @@ describe("a block file whose front matter is not YAML", () => {
     expect(onlyError(text)).toEqual({ line: 3, message: "the double quote opened on this line is never closed" });
     const single = good.replace("summary: One-pole", "summary: 'One-pole");
     expect(onlyError(single)).toEqual({ line: 6, message: "the single quote opened on this line is never closed" });
+    // An apostrophe on a later line, and an escaped quote inside, do not move the line named.
+    const apostrophe = good.replace("title: First-order RC low-pass", "title: 'First-order RC low-pass").replace("One-pole passive", "One-pole filter's");
+    expect(onlyError(apostrophe)).toMatchObject({ line: 3 });
+    expect(onlyError(good.replace("title: First-order RC low-pass", 'title: "First-order \\" RC'))).toMatchObject({ line: 3 });
+    expect(onlyError(good.replace("title: First-order RC low-pass", "title: 'First-order '' RC"))).toMatchObject({ line: 3 });
   });
 
   it("refuses a tab used to indent (§6.1: tabs are not indentation)", () => {
