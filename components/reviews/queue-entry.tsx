@@ -2,7 +2,8 @@ import Link from "next/link";
 import { ReviewDecision } from "@/components/block/review-decision";
 import { CheckList } from "@/components/check-list";
 import { DiffLines, lineCounts, type DiffPart } from "@/components/diff-view";
-import { typesetUnits, when } from "@/components/eng";
+import { Decimal } from "@/components/decimal";
+import { when } from "@/components/eng";
 import { Hallmark } from "@/components/hallmark";
 import type { QueueEntry } from "@/lib/reviews/queue";
 
@@ -50,7 +51,8 @@ export function QueueEntryView({ entry: r }: { entry: QueueEntry }) {
           ) : null}
         </section>
       </div>
-      <ReviewDecision slug={r.slug} version={r.version} />
+      {/* The decision stays in view while the reviewer reads a long entry. */}
+      <div className="self-start md:sticky md:top-4"><ReviewDecision slug={r.slug} version={r.version} /></div>
     </li>
   );
 }
@@ -58,6 +60,7 @@ export function QueueEntryView({ entry: r }: { entry: QueueEntry }) {
 function Checks({ entry: r }: { entry: QueueEntry }) {
   if (r.run === null) return <p className="text-sm text-graphite">v{r.version} has not been checked.</p>;
   if (r.run === "queued" || r.run === "running") return <p className="text-sm text-ochre">The checks of v{r.version} are still running; reload to see them.</p>;
+  const allPass = r.checks.every((c) => c.status === "pass");
   return (
     <>
       {r.errors.length ? (
@@ -65,7 +68,13 @@ function Checks({ entry: r }: { entry: QueueEntry }) {
           {r.errors.map((e, i) => <li key={i}>{e.line ? `Line ${e.line}: ` : ""}{e.message}</li>)}
         </ul>
       ) : null}
-      {r.checks.length || !r.errors.length ? <CheckList checks={r.checks} /> : null}
+      {r.checks.length === 0 ? (r.errors.length ? null : <CheckList checks={r.checks} />) : (
+        // All passing and more than a few: folded behind the count; anything else is open.
+        <details open={!allPass || r.checks.length <= 3}>
+          <summary className="cursor-pointer text-sm">{tally(r.checks)}</summary>
+          <div className="mt-2"><CheckList checks={r.checks} /></div>
+        </details>
+      )}
     </>
   );
 }
@@ -83,8 +92,8 @@ function ParamChanges({ entry: r }: { entry: QueueEntry }) {
         {ps.map((p) => (
           <tr key={p.name} className="border-t border-rule/70" data-param={p.name}>
             <th scope="row" className="pr-4 text-left font-mono font-medium">{p.name}</th>
-            <td className="pr-4 font-mono text-brick">{p.from === null ? "—" : <del className="decoration-1">{typesetUnits(p.from)}</del>}</td>
-            <td className="font-mono text-verdigris">{p.to === null ? <span className="text-graphite">removed</span> : typesetUnits(p.to)}</td>
+            <td className="pr-4 text-brick">{p.from === null ? <span className="text-graphite">—</span> : <del className="decoration-1"><Decimal text={p.from} /></del>}</td>
+            <td className="text-verdigris">{p.to === null ? <span className="text-graphite">removed</span> : <Decimal text={p.to} />}</td>
           </tr>
         ))}
       </tbody>
@@ -114,6 +123,18 @@ function TextChanges({ entry: r }: { entry: QueueEntry }) {
       {same.length ? <p className="text-sm text-graphite">{capital(same.join(", "))} unchanged.</p> : null}
     </div>
   );
+}
+
+/** "6 checks: 5 pass, 1 fails". */
+function tally(checks: QueueEntry["checks"]): string {
+  const n = (s: string) => checks.filter((c) => c.status === s).length;
+  const parts = [
+    n("pass") && `${n("pass")} pass${n("pass") === 1 ? "es" : ""}`,
+    n("fail") && `${n("fail")} fail${n("fail") === 1 ? "s" : ""}`,
+    n("error") && `${n("error")} could not be evaluated`,
+    n("skipped") && `${n("skipped")} wait for a simulation`,
+  ].filter(Boolean);
+  return `${checks.length} check${checks.length === 1 ? "" : "s"}: ${parts.join(", ")}`;
 }
 
 const capital = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);

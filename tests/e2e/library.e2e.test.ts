@@ -134,7 +134,12 @@ describe("the library in a browser", () => {
     await expect(entry.getByTestId("check-list").textContent()).resolves.toMatch(/small-signal gain 10 \+\/- 3% at every corner\s*passes/);
     await expect(entry.getByTestId("review-changes").locator("h3").textContent()).resolves.toMatch(/No approved version yet/);
     await expect(entry.locator("tr[data-param=Rf] td").last().textContent()).resolves.toMatch(/^(100 kΩ|100000\b)/);
+    // Six passing checks fold behind their tally.
+    await expect(entry.locator("summary").first().textContent()).resolves.toBe("6 checks: 6 pass");
     await settle(reviewer, "09-review-queue", reviewerErrors);
+    await reviewer.setViewportSize({ width: 390, height: 844 });
+    await settle(reviewer, "09a-review-queue-narrow", reviewerErrors);
+    await reviewer.setViewportSize({ width: 1366, height: 900 });
     await reviews.approve(FORK, 2, "Gain and limiting agree with the hand analysis.");
     await new BlockPage(reviewer).open(FORK);
     await expect(reviewer.getByTestId("block-badge").locator("svg").getAttribute("aria-label")).resolves.toMatch(/approved/);
