@@ -274,6 +274,19 @@ describe("the library in a browser", () => {
     await imp.read({ name: "rc-divider-e2e.cir", mimeType: "text/plain", buffer: Buffer.from(netlist) });
     await expect(imp.droppedLines().textContent()).resolves.toContain(".control");
     await settle(page, "14-import-netlist", errors);
+    // A title with an unclosed quote is refused once, at the block file with its line, and the text is kept
+    // (YAML 1.2 §7.3.1 double-quoted scalars).
+    const converted = await imp.blockText();
+    const titleLine = converted.split("\n").findIndex((l) => l.startsWith("title:")) + 1;
+    const broken = converted.replace(/^title: (.*)$/m, 'title: "$1');
+    await page.locator("#import-text").fill(broken);
+    await page.getByRole("button", { name: "Create the block" }).click();
+    await page.locator("#create-status [role=alert]").waitFor({ timeout: 30_000 });
+    const refusal = page.locator("#import-text-errors li");
+    await expect(refusal.allTextContents()).resolves.toEqual([`Line ${titleLine}: the double quote opened on this line is never closed`]);
+    await expect(imp.blockText()).resolves.toBe(broken);
+    await settle(page, "14a-import-yaml-error", errors);
+    await page.locator("#import-text").fill(converted);
     await imp.create("rc-divider-e2e");
     await expect(page.getByTestId("param-table").textContent()).resolves.toContain("R1v");
     await settle(page, "15-imported-block", errors);
