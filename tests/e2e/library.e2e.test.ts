@@ -287,7 +287,9 @@ describe("the library in a browser", () => {
     await expect(imp.blockText()).resolves.toBe(broken);
     await settle(page, "14a-import-yaml-error", errors);
     await page.locator("#import-text").fill(converted);
-    await imp.create("rc-divider-e2e");
+    // The refusal's alert stays up until this create answers, so wait for the block page itself.
+    await page.getByRole("button", { name: "Create the block" }).click();
+    await page.waitForURL("**/blocks/rc-divider-e2e", { timeout: 60_000 });
     await expect(page.getByTestId("param-table").textContent()).resolves.toContain("R1v");
     await settle(page, "15-imported-block", errors);
   });
