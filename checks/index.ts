@@ -23,3 +23,4 @@ export type { RunProgress, SimExecutor, SimOutcome, SimRequest } from "./engine/
 export { DEFAULT_RUN_CAP, runCapFromEnv, type RunCap } from "./engine/plan";
 export { localExecutor, defaultConcurrency, type LocalExecutorOptions } from "./spice/local-executor";
 export { previewBlock, retune, verifyBlock, warmEngine, type VerifyOptions } from "./sandbox/api";
+export { draftLane } from "./sandbox/client";

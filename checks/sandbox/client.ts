@@ -133,7 +133,11 @@ export class SandboxLane {
 
 // Previews and full runs get a lane each, so a long simulation never holds up a keystroke. One pair per process:
 // Next bundles this module into each route that uses it, and each copy would otherwise start children of its own.
-const lanes = globalThis as unknown as { __assayLanes?: { preview: SandboxLane; verify: SandboxLane } };
+const lanes = globalThis as unknown as { __assayLanes?: { preview: SandboxLane; verify: SandboxLane }; __assayDraftLane?: SandboxLane };
 lanes.__assayLanes ??= { preview: new SandboxLane(256), verify: new SandboxLane(768) };
 export const previewLane = lanes.__assayLanes.preview;
 export const verifyLane = lanes.__assayLanes.verify;
+// Simulations of unsaved drafts (the live preview's button) queue in a lane of their own: one at a time per
+// process, never ahead of or behind an evaluation that someone's script is waiting for.
+lanes.__assayDraftLane ??= new SandboxLane(768);
+export const draftLane = lanes.__assayDraftLane;

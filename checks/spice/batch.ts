@@ -12,7 +12,7 @@ export const BATCH_SIZE = 16;
  * with another's plot. Returns one raw file per deck, or null where the deck must run alone
  * (which also gives its error message exactly as a single run would).
  */
-export async function runBatchAsync(decks: string[], timeoutMs = DEFAULT_TIMEOUT_MS): Promise<(Buffer | null)[]> {
+export async function runBatchAsync(decks: string[], timeoutMs = DEFAULT_TIMEOUT_MS, signal?: AbortSignal): Promise<(Buffer | null)[]> {
   const marker = (i: number) => `assay batch member ${i}`;
   const control = ["* assay batch", ".control", "set filetype=binary"];
   decks.forEach((_, i) => control.push(`source d${i}.cir`, "run", `write o${i}.raw`, "remcirc", "destroy all"));
@@ -20,7 +20,7 @@ export async function runBatchAsync(decks: string[], timeoutMs = DEFAULT_TIMEOUT
   const job = prepareRun(control.join("\n"), { timeoutMs: timeoutMs * decks.length }, false);
   try {
     decks.forEach((deck, i) => fs.writeFileSync(path.join(job.dir, `d${i}.cir`), `${marker(i)}\n${deck.slice(deck.indexOf("\n") + 1)}`));
-    await execute(job);
+    await execute(job, signal);
     return decks.map((_, i) => {
       try {
         const raw = fs.readFileSync(path.join(job.dir, `o${i}.raw`));

@@ -6,7 +6,11 @@ import { defaultCacheDir } from "./paths";
 import { runNgspiceAsync } from "./run-ngspice";
 import { SpiceError } from "./types";
 
-export type LocalExecutorOptions = { cacheDir?: string; noCache?: boolean; concurrency?: number; timeoutMs?: number };
+export type LocalExecutorOptions = {
+  cacheDir?: string; noCache?: boolean; concurrency?: number; timeoutMs?: number;
+  /** Aborted: running ngspice processes are killed, nothing new starts, and runMany rejects once they have exited. */
+  signal?: AbortSignal;
+};
 
 // One plot each, so the control block's `write` holds what `ngspice -b -r` would (noise writes two plots).
 const BATCHED = new Set(["ac", "op", "dc", "tf"]);
@@ -44,11 +48,13 @@ export function localExecutor(opts: LocalExecutorOptions = {}): SimExecutor {
       const size = Math.max(1, Math.min(BATCH_SIZE, Math.ceil(short.length / limit)));
       for (let i = 0; i < short.length; i += size) jobs.push(short.slice(i, i + size));
       const worker = async () => {
-        for (let job = jobs.shift(); job; job = jobs.shift())
+        for (let job = jobs.shift(); job && !opts.signal?.aborted; job = jobs.shift())
           if (job.length === 1) finish(await runOne(job[0], dir, opts));
           else for (const o of await runBatch(job, dir, opts)) finish(o);
       };
       await Promise.all(Array.from({ length: Math.min(limit, jobs.length) }, worker));
+      // Cancelled outcomes say nothing about the circuit: the executor cannot go on, which ends the run.
+      if (opts.signal?.aborted) throw new Error("the simulations were cancelled");
       return reqs.map((r) => outcomes.get(r.key)!);
     },
   };
@@ -57,7 +63,7 @@ export function localExecutor(opts: LocalExecutorOptions = {}): SimExecutor {
 async function runOne(r: SimRequest, dir: string, opts: LocalExecutorOptions): Promise<SimOutcome> {
   const t0 = performance.now();
   try {
-    const run = await runNgspiceAsync(r.deck, { timeoutMs: opts.timeoutMs, circuitOffset: r.circuitOffset, circuit: r.circuit });
+    const run = await runNgspiceAsync(r.deck, { timeoutMs: opts.timeoutMs, circuitOffset: r.circuitOffset, circuit: r.circuit, signal: opts.signal });
     if (!opts.noCache) writeCached(dir, r.key, run.raw);
     return { key: r.key, ok: true, raw: run.raw, ms: round(performance.now() - t0), cached: false };
   } catch (e) {
@@ -68,12 +74,13 @@ async function runOne(r: SimRequest, dir: string, opts: LocalExecutorOptions): P
 
 async function runBatch(reqs: SimRequest[], dir: string, opts: LocalExecutorOptions): Promise<SimOutcome[]> {
   const t0 = performance.now();
-  const raws = await runBatchAsync(reqs.map((r) => r.deck), opts.timeoutMs);
+  const raws = await runBatchAsync(reqs.map((r) => r.deck), opts.timeoutMs, opts.signal);
   const each = round((performance.now() - t0) / reqs.length);
   const out: SimOutcome[] = [];
   for (const [i, r] of reqs.entries()) {
     const raw = raws[i];
     if (!raw) {
+      if (opts.signal?.aborted) break; // stopped, not failed: nothing to run alone for its message
       out.push(await runOne(r, dir, opts)); // alone, for its own error message
       continue;
     }

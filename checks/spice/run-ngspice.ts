@@ -38,21 +38,31 @@ export async function runNgspiceAsync(deck: string, opts: RunOptions = {}): Prom
   const job = prepareRun(deck, opts);
   try {
     const t0 = performance.now();
-    const r = await execute(job);
+    const r = await execute(job, opts.signal);
     return finishRun(job, r, performance.now() - t0, opts);
   } finally {
     await fs.promises.rm(job.dir, { recursive: true, force: true });
   }
 }
 
-/** Spawn a prepared job and collect its exit, output and whether it overran. */
-export function execute(job: Job): Promise<Exit> {
+/**
+ * Spawn a prepared job and collect its exit, output and whether it overran. An aborted `signal` kills the
+ * process (prlimit execs ngspice, so that is ngspice itself) and the exit says so; already aborted, nothing starts.
+ */
+export function execute(job: Job, signal?: AbortSignal): Promise<Exit> {
   return new Promise<Exit>((resolve) => {
+    if (signal?.aborted) return resolve({ status: null, signal: null, stdout: "", stderr: "", timedOut: false, overflow: false, aborted: true });
     const child = spawn(job.command, job.args, { ...job.spawn, stdio: ["ignore", "pipe", "pipe"] });
     let stdout = "";
     let stderr = "";
     let overflow = false;
     let timedOut = false;
+    let aborted = false;
+    const onAbort = () => {
+      aborted = true;
+      child.kill("SIGKILL");
+    };
+    signal?.addEventListener("abort", onAbort, { once: true });
     const take = (add: string, to: "out" | "err") => {
       if (stdout.length + stderr.length + add.length > 8 * 1024 * 1024) {
         overflow = true;
@@ -70,18 +80,20 @@ export function execute(job: Job): Promise<Exit> {
     }, job.timeoutMs);
     child.on("error", (error) => {
       clearTimeout(timer);
-      resolve({ status: null, signal: null, stdout, stderr, error, timedOut, overflow });
+      signal?.removeEventListener("abort", onAbort);
+      resolve({ status: null, signal: null, stdout, stderr, error, timedOut, overflow, aborted });
     });
-    child.on("close", (status, signal) => {
+    child.on("close", (status, sig) => {
       clearTimeout(timer);
-      resolve({ status, signal, stdout, stderr, timedOut, overflow });
+      signal?.removeEventListener("abort", onAbort);
+      resolve({ status, signal: sig, stdout, stderr, timedOut, overflow, aborted });
     });
   });
 }
 
-export type RunOptions = { timeoutMs?: number; spinit?: string; circuitOffset?: number; circuit?: string; maxRawBytes?: number };
+export type RunOptions = { timeoutMs?: number; spinit?: string; circuitOffset?: number; circuit?: string; maxRawBytes?: number; signal?: AbortSignal };
 export type Job = { dir: string; command: string; args: string[]; spawn: { cwd: string; env: NodeJS.ProcessEnv }; timeoutMs: number; cpu: number; maxRaw: number };
-export type Exit = { status: number | null; signal: NodeJS.Signals | null; stdout: string; stderr: string; error?: Error; timedOut: boolean; overflow: boolean };
+export type Exit = { status: number | null; signal: NodeJS.Signals | null; stdout: string; stderr: string; error?: Error; timedOut: boolean; overflow: boolean; aborted?: boolean };
 
 export function prepareRun(deck: string, opts: RunOptions, rawFile = true): Job {
   const timeoutMs = opts.timeoutMs ?? DEFAULT_TIMEOUT_MS;
@@ -103,6 +115,7 @@ export function prepareRun(deck: string, opts: RunOptions, rawFile = true): Job 
 function finishRun(job: Job, r: Exit, ms: number, opts: RunOptions): NgspiceRun {
   const { cpu, maxRaw, timeoutMs } = job;
   const log = `${r.stderr}\n${r.stdout}`;
+  if (r.aborted) throw new SpiceError("the simulation was cancelled");
   if (r.timedOut) throw new SpiceError(`ngspice did not finish within ${timeoutMs / 1000} s`);
   if (r.overflow) throw new SpiceError("ngspice printed more than 8 MB of messages");
   if (r.error) throw new SpiceError(`cannot run ngspice: ${r.error.message}`);
