@@ -4,6 +4,7 @@ import { keepPreviousData, useQuery } from "@tanstack/react-query";
 import { useActionState, useRef, useState } from "react";
 import { checkDraftAction, saveEditAction } from "@/lib/actions/edit";
 import { useDebounced } from "@/components/library/use-debounced";
+import { DraftSimulation } from "@/components/retune/draft-simulation";
 
 /** The block file in a monospace editor; the engine's errors sit beside the lines they name. */
 export function BlockEditor({ slug, baseVersion, initialText, readOnly }: { slug: string; baseVersion: number; initialText: string; readOnly?: string }) {
@@ -48,6 +49,11 @@ export function BlockEditor({ slug, baseVersion, initialText, readOnly }: { slug
           <p className="text-verdigris">The engine reads the file{check.data.failing.length ? `; ${check.data.failing.length} expression check(s) fail: ${check.data.failing.join(", ")}` : ""}.</p>
         ) : <p className="text-graphite">Reading…</p>}
       </div>
+      {readOnly ? null : (
+        <div className="rounded border border-rule bg-panel px-3 pb-3">
+          <DraftSimulation slug={slug} draft={{ text: draft }} disabled={errors.length ? "Fix the errors above first." : undefined} />
+        </div>
+      )}
       {readOnly ? (
         <p className="rounded border border-rule bg-panel px-3 py-2 text-sm" data-testid="editor-read-only">
           {readOnly} <Link href={`/blocks/${slug}`} className="text-copper-dark underline">Back to the block</Link>

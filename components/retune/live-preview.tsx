@@ -2,9 +2,13 @@
 import { CheckList } from "@/components/check-list";
 import { QuantityList } from "@/components/quantity-list";
 import type { useEvaluateBlock } from "@/lib/queries/evaluate-block";
+import { DraftSimulation } from "./draft-simulation";
 
-/** What the draft values give, recomputed as you type: quantities, then every check (simulated ones wait for the save). */
-export function LivePreview({ query }: { query: ReturnType<typeof useEvaluateBlock> }) {
+/**
+ * What the draft values give, recomputed as you type: quantities, then every check (simulated ones wait), and
+ * beneath, the simulations of these values on request.
+ */
+export function LivePreview({ query, slug, values }: { query: ReturnType<typeof useEvaluateBlock>; slug: string; values: Record<string, string> }) {
   const report = query.data;
   const failing = report?.checks.filter((c) => c.status === "fail").length ?? 0;
   const errors = report?.errors ?? [];
@@ -29,6 +33,7 @@ export function LivePreview({ query }: { query: ReturnType<typeof useEvaluateBlo
           <CheckList checks={report.checks} />
         </div>
       ) : null}
+      <DraftSimulation slug={slug} draft={{ params: values }} disabled={errors.length ? "Fix the errors above first." : undefined} />
     </section>
   );
 }

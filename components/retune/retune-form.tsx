@@ -104,7 +104,7 @@ export function RetuneForm({ slug, version, params, baseValues, head, preview: p
           <RetuneAssistant slug={slug} params={params.map((p) => p.name)} quantities={previewQuantities.length ? previewQuantities : quantities} onUse={set}
             values={values} head={head} />
         </div>
-        <LivePreview query={preview} />
+        <LivePreview query={preview} slug={slug} values={draft} />
       </div>
     </div>
   );

@@ -1,8 +1,8 @@
 import { z } from "zod";
 import type { OpenAPIRegistry } from "@asteasolutions/zod-to-openapi";
-import { runParamsSchema, slugParamsSchema } from "@/lib/validation/api";
-import { evaluateBodySchema, evaluateFileQuerySchema, retuneBodySchema } from "@/lib/validation/blocks";
-import { reportSchema, retuneResultSchema, runSchema } from "./responses";
+import { draftRunParamsSchema, runParamsSchema, slugParamsSchema } from "@/lib/validation/api";
+import { draftRunBodySchema, evaluateBodySchema, evaluateFileQuerySchema, retuneBodySchema } from "@/lib/validation/blocks";
+import { draftRunSchema, reportSchema, retuneResultSchema, runSchema } from "./responses";
 import { blockFileBody, json, problems } from "./shared";
 
 export function registerRunPaths(r: OpenAPIRegistry): void {
@@ -41,6 +41,38 @@ export function registerRunPaths(r: OpenAPIRegistry): void {
     summary: "Solve one parameter so a quantity reaches a target, snapped to an E-series value",
     request: { params: slugParamsSchema, body: { required: true, content: json(retuneBodySchema) } },
     responses: { 200: { description: "Solved and snapped values with the report at the snapped value", content: json(retuneResultSchema) }, ...problems(401, 403, 404, 413, 415, 422, 429) },
+  });
+  r.registerPath({
+    method: "post",
+    path: "/api/v1/blocks/{slug}/draft-runs",
+    operationId: "startDraftRun",
+    tags: ["checks"],
+    summary: "Simulate a draft (values over the head or a pinned version, or an edited block file of this block) without saving it",
+    description: "For a signed-in caller who may read the block. Answers at once; poll GET /api/v1/draft-runs/{id}. Each person has one "
+      + "draft run at a time: starting another cancels the running one. Nothing is stored, so no badge changes. The per-run caps "
+      + "(ASSAY_RUN_MAX_SIMULATIONS, ASSAY_RUN_MAX_SIM_SECONDS) apply; an over-large draft ends done with an error report. "
+      + "Budgeted like evaluate with simulate (6 points).",
+    request: { params: slugParamsSchema, body: { required: true, content: { ...json(draftRunBodySchema), ...blockFileBody } } },
+    responses: { 202: { description: "Started (or queued)", content: json(draftRunSchema) }, ...problems(401, 403, 404, 413, 415, 422, 429) },
+  });
+  r.registerPath({
+    method: "get",
+    path: "/api/v1/draft-runs/{id}",
+    operationId: "getDraftRun",
+    tags: ["checks"],
+    summary: "One of the caller's draft runs, with its progress; poll until status is done, error or cancelled",
+    request: { params: draftRunParamsSchema },
+    responses: { 200: { description: "The draft run", content: json(draftRunSchema) }, ...problems(401, 404) },
+  });
+  r.registerPath({
+    method: "delete",
+    path: "/api/v1/draft-runs/{id}",
+    operationId: "cancelDraftRun",
+    tags: ["checks"],
+    summary: "Cancel one of the caller's draft runs: its simulations are stopped and no report is kept",
+    description: "Answers once its simulator processes have ended; a draft run that already ended is answered as it is.",
+    request: { params: draftRunParamsSchema },
+    responses: { 200: { description: "The draft run, cancelled", content: json(draftRunSchema) }, ...problems(401, 404) },
   });
   r.registerPath({
     method: "get",

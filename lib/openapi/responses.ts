@@ -142,6 +142,21 @@ export const runSchema = z.object({
   finishedAt: z.iso.datetime().nullable(),
 }).openapi("Run");
 
+export const draftRunSchema = z.object({
+  id: z.uuid(),
+  slug: z.string(),
+  status: z.enum(["queued", "running", "done", "error", "cancelled"])
+    .meta({ description: "queued behind another draft run of this server, running, done (report set), error (the engine could not run it) or cancelled" }),
+  progress: z.object({
+    done: z.number().int().min(0).meta({ description: "Simulations finished" }),
+    total: z.number().int().min(0).meta({ description: "Simulations the draft needs, as far as the engine has planned them" }),
+  }).meta({ example: { done: 3, total: 9 } }),
+  report: reportSchema.nullable().meta({ description: "The full report once done; nothing of it is stored" }),
+  error: z.string().nullable().meta({ description: "Why it ended as error or cancelled" }),
+  createdAt: z.iso.datetime(),
+  finishedAt: z.iso.datetime().nullable(),
+}).openapi("DraftRun");
+
 export const retuneResultSchema = z.object({
   value: z.string().meta({ description: "Solved value with its unit", example: "10.3 kohm" }),
   snapped: z.string().meta({ description: "Nearest value of the series", example: "10 kohm" }),

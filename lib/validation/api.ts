@@ -62,6 +62,7 @@ export const problemSchema = z
 export const slugParamsSchema = z.object({ slug: slugSchema });
 export const versionParamsSchema = z.object({ slug: slugSchema, n: versionNumberSchema });
 export const runParamsSchema = z.object({ id: z.uuid().meta({ description: "Check run id" }) });
+export const draftRunParamsSchema = z.object({ id: z.uuid().meta({ description: "Draft run id" }) });
 
 /** URLSearchParams → plain object, dropping empty values so `?q=` means "no q". */
 export function queryObject(url: string | URL): Record<string, string> {

@@ -71,6 +71,11 @@ export const evaluateBodySchema = z.strictObject({
   simulate: z.boolean().optional().meta({ description: "Run the simulations too; without it simulated checks are skipped" }),
   version: versionNumberSchema.optional().meta({ description: "Evaluate this stored version instead of the head" }),
 });
+/** A draft to simulate from the live preview: values over the head (or a pinned version); the file itself as text/markdown. */
+export const draftRunBodySchema = z.strictObject({
+  params: paramValuesSchema.default({}),
+  version: versionNumberSchema.optional().meta({ description: "Start from this stored version instead of the head" }),
+});
 /** With a block file body (text/markdown): simulations run unless `simulate=false`. */
 export const evaluateFileQuerySchema = z.object({
   simulate: z.enum(["true", "false"]).default("true").transform((v) => v === "true")
@@ -121,6 +126,7 @@ export type BlockVersionInput = z.infer<typeof blockVersionInputSchema>;
 export type ForkInput = z.infer<typeof forkInputSchema>;
 export type RetuneForm = z.infer<typeof retuneFormSchema>;
 export type EvaluateBody = z.infer<typeof evaluateBodySchema>;
+export type DraftRunBody = z.infer<typeof draftRunBodySchema>;
 export type RetuneBody = z.infer<typeof retuneBodySchema>;
 export type SearchQuery = z.infer<typeof searchQuerySchema>;
 /** The search as a form or an address holds it (strings), before the schema coerces it. */

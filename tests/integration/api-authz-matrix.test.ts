@@ -36,6 +36,15 @@ async function headOf(): Promise<number> {
   const res = await fetch(`${w.app.url}/api/v1/blocks/${slug}`, { headers: bearer(w.people.admin.read) });
   return ((await res.json()) as { version: number }).version;
 }
+let draftId: Promise<string> | undefined;
+/** One draft run started by the author (their write token), shared by the GET and DELETE rows. */
+const authorDraft = () => (draftId ??= fetch(`${w.app.url}/api/v1/blocks/${slug}/draft-runs`, {
+  method: "POST", headers: { ...bearer(w.people.author.write), "Content-Type": "application/json" }, body: JSON.stringify({ params: { R: "3.6 kohm" } }),
+}).then(async (res) => {
+  expect(res.status).toBe(202);
+  return ((await res.json()) as { id: string }).id;
+}));
+const ownDraft = { ...all(404), anonymous: 401, author: 200, authorCookie: 200, readToken: 200 };
 const json = (path: string, body: unknown): Call => ({ path, method: "POST", body: JSON.stringify(body), type: "application/json" });
 
 const MATRIX: Record<string, Entry> = {
@@ -70,6 +79,14 @@ const MATRIX: Record<string, Entry> = {
     call: async () => ({ path: `/api/v1/evaluate?team=${w.teamA.slug}&simulate=false`, method: "POST", body: rcBlockText(`rc-ci-${unique()}`), type: "text/markdown" }),
     expect: { ...all(200), anonymous: 401, otherTeam: 404 },
   },
+  "POST /api/v1/blocks/[slug]/draft-runs": {
+    // A draft run belongs to a person: readers of the block who are signed in (a read token too); signed out 401.
+    call: async () => json(`/api/v1/blocks/${slug}/draft-runs`, { params: { R: "3.3 kohm" } }),
+    expect: { ...all(202), anonymous: 401, otherTeam: 404 },
+  },
+  // The author's own draft run: only its starter sees or cancels it; any other person is told there is no such run.
+  "GET /api/v1/draft-runs/[id]": { call: async () => ({ path: `/api/v1/draft-runs/${await authorDraft()}`, method: "GET" }), expect: ownDraft },
+  "DELETE /api/v1/draft-runs/[id]": { call: async () => ({ path: `/api/v1/draft-runs/${await authorDraft()}`, method: "DELETE" }), expect: ownDraft },
   "GET /api/v1/blocks/[slug]/badge.svg": { call: async () => ({ path: `/api/v1/blocks/${slug}/badge.svg`, method: "GET" }), expect: readTeamBlock },
   "GET /api/v1/runs/[id]": { call: async () => ({ path: `/api/v1/runs/${runId}`, method: "GET" }), expect: readTeamBlock },
   // The shared model library is everyone's; a team's files are its members' alone (404 outside, as for team blocks).

@@ -32,7 +32,7 @@ export default async function ForkPage({ params, searchParams }: {
         <p className="text-sm text-graphite">Retune or derive a variant</p>
         <h1 className="font-serif text-2xl font-semibold">{block.title} <span className="font-mono text-lg text-graphite">v{block.version}</span></h1>
         <p className="mt-1 max-w-prose text-sm text-graphite">
-          Change values and watch the quantities and expression checks follow as you type. Simulated checks run when you save.
+          Change values and watch the quantities and expression checks follow as you type. Simulated checks run when you save, or now with “Simulate these values” in the live preview.
         </p>
       </header>
       <RetuneForm
