@@ -185,9 +185,8 @@ export async function getDraftRun(ctx: Ctx, id: string): Promise<DraftRunView> {
  */
 export async function cancelDraftRun(ctx: Ctx, id: string): Promise<DraftRunView> {
   const run = own(ctx, id);
-  if (active(run)) {
-    cancel(run, "cancelled");
-    await Promise.race([run.settled, new Promise((r) => setTimeout(r, 5_000).unref())]);
-  }
+  const running = run.status === "running"; // a queued run never starts: nothing to wait for
+  if (active(run)) cancel(run, "cancelled");
+  if (running) await Promise.race([run.settled, new Promise((r) => setTimeout(r, 5_000).unref())]);
   return view(run);
 }
