@@ -4,6 +4,7 @@ import { loadBlock, loadVersion, requireUser } from "@/lib/blocks/common";
 import type { Ctx } from "@/lib/context";
 import { AppError } from "@/lib/errors";
 import { resolveModels } from "@/lib/models/resolve";
+import type { DraftRunIdInput, DraftRunInput } from "@/lib/validation/runs";
 
 /**
  * Draft runs: the live preview's "simulate" button. The draft (the head's file with the values on screen, a pinned
@@ -44,14 +45,6 @@ interface DraftRun {
   settled: Promise<void>;
 }
 
-export interface DraftRunInput {
-  params?: Record<string, string>;
-  /** A stored version to start from instead of the head. */
-  version?: number;
-  /** An edited block file of this block instead of a stored version. */
-  text?: string;
-}
-
 /** Ended runs stay readable this long, so a poll that was in flight still finds the outcome. */
 const KEEP_MS = 10 * 60_000;
 /** The same limit a worker gives a saved version's verification. */
@@ -81,7 +74,7 @@ function end(r: DraftRun, status: DraftStatus, fields: { report?: Report | null;
 }
 
 /** The file a draft stands for, and the model files its circuit includes for the block's team. */
-async function draftFile(ctx: Ctx, slug: string, input: DraftRunInput) {
+async function draftFile(ctx: Ctx, { slug, ...input }: DraftRunInput) {
   const block = await loadBlock(ctx.em, ctx.caller, slug);
   let text: string;
   if (input.text !== undefined) {
@@ -98,9 +91,9 @@ async function draftFile(ctx: Ctx, slug: string, input: DraftRunInput) {
 }
 
 /** Starts simulating a draft for the caller (who must be signed in and able to read the block); answers at once. */
-export async function startDraftRun(ctx: Ctx, slug: string, input: DraftRunInput): Promise<DraftRunView> {
+export async function startDraftRun(ctx: Ctx, input: DraftRunInput): Promise<DraftRunView> {
   const user = requireUser(ctx.caller);
-  const draft = await draftFile(ctx, slug, input);
+  const draft = await draftFile(ctx, input);
   prune();
   for (const r of registry.runs.values()) {
     if (r.userId === user.id && active(r)) cancel(r, "replaced by a newer draft simulation");
@@ -167,7 +160,7 @@ function cancel(run: DraftRun, why: string): void {
 }
 
 /** A draft run is its starter's alone: anyone else is told there is no such run. */
-function own(ctx: Ctx, id: string): DraftRun {
+function own(ctx: Ctx, { id }: DraftRunIdInput): DraftRun {
   const user = requireUser(ctx.caller);
   prune();
   const run = registry.runs.get(String(id));
@@ -175,16 +168,16 @@ function own(ctx: Ctx, id: string): DraftRun {
   return run;
 }
 
-export async function getDraftRun(ctx: Ctx, id: string): Promise<DraftRunView> {
-  return view(own(ctx, id));
+export async function getDraftRun(ctx: Ctx, input: DraftRunIdInput): Promise<DraftRunView> {
+  return view(own(ctx, input));
 }
 
 /**
  * Stops a draft run: its ngspice processes are killed and no report is kept. Answers once they have exited
  * (a few seconds at most); a run that had already ended is answered as it is.
  */
-export async function cancelDraftRun(ctx: Ctx, id: string): Promise<DraftRunView> {
-  const run = own(ctx, id);
+export async function cancelDraftRun(ctx: Ctx, input: DraftRunIdInput): Promise<DraftRunView> {
+  const run = own(ctx, input);
   const running = run.status === "running"; // a queued run never starts: nothing to wait for
   if (active(run)) cancel(run, "cancelled");
   if (running) await Promise.race([run.settled, new Promise((r) => setTimeout(r, 5_000).unref())]);

@@ -1,6 +1,6 @@
 import { z } from "zod";
-import { runParamsSchema, slugSchema } from "./api";
-import { evaluateBodySchema, paramValuesSchema, retuneBodySchema } from "./blocks";
+import { draftRunParamsSchema, runParamsSchema, slugSchema } from "./api";
+import { draftRunBodySchema, evaluateBodySchema, paramValuesSchema, retuneBodySchema } from "./blocks";
 
 // What the run services take: a run by id, a block's runs, and the engine calls that store nothing.
 
@@ -28,7 +28,18 @@ export const draftFileInputSchema = z.object({ slug: slugSchema, text: z.string(
 /** A block file not in the library yet, checked with one team's model files. */
 export const evaluateFileInputSchema = z.object({ text: z.string(), simulate: z.boolean(), teamId: z.number().int() });
 
+/** POST /blocks/{slug}/draft-runs: values over the head or a pinned version, or an edited block file of this block. */
+export const draftRunInputSchema = draftRunBodySchema.partial({ params: true }).extend({
+  slug: slugSchema,
+  text: z.string().optional(),
+});
+
+/** One draft run by id. */
+export const draftRunIdInputSchema = draftRunParamsSchema;
+
 export type RunInput = z.infer<typeof runInputSchema>;
+export type DraftRunInput = z.infer<typeof draftRunInputSchema>;
+export type DraftRunIdInput = z.infer<typeof draftRunIdInputSchema>;
 export type RunListInput = z.infer<typeof runListInputSchema>;
 export type PreviewInput = z.infer<typeof previewInputSchema>;
 export type EvaluateInput = z.infer<typeof evaluateInputSchema>;

@@ -34,7 +34,7 @@ async function until(id: string, ok: (v: DraftRunView) => boolean, ms = 300_000)
   const ctx = await ctxOf("viewer");
   const end = Date.now() + ms;
   for (;;) {
-    const v = await getDraftRun(ctx, id);
+    const v = await getDraftRun(ctx, { id });
     if (ok(v)) return v;
     if (Date.now() > end) throw new Error(`draft run ${id} still ${v.status} (${v.progress.done}/${v.progress.total})`);
     await sleep(100);
@@ -58,7 +58,7 @@ describe("draft runs", () => {
     expect(before.badge).toBe("verified");
     // C from 10 nF to 12 nF: f0 = 1/(2 pi R C) = 839.4 Hz (Wien bridge, Sedra & Smith, Microelectronic Circuits,
     // 7th ed., from memory), 16 % below the 1 kHz the expression check allows 8 % around.
-    const started = await startDraftRun(await ctxOf("viewer"), wien(), { params: { C: "12 nF" } });
+    const started = await startDraftRun(await ctxOf("viewer"), { slug: wien(), params: { C: "12 nF" } });
     expect(["queued", "running"]).toContain(started.status);
     const v = await until(started.id, (r) => r.status !== "queued" && r.status !== "running");
     expect(v.status).toBe("done");
@@ -86,16 +86,16 @@ describe("draft runs", () => {
     const rf1 = `${(18 + Math.random()).toFixed(4)} kohm`;
     const text = contentBlock("wien-bridge-sine-1k.md", wien(), { Rf1: rf1 }).replace("```check\n", "```check\nmontecarlo(150)\n");
     const ctx = await ctxOf("viewer");
-    const started = await startDraftRun(ctx, wien(), { text });
+    const started = await startDraftRun(ctx, { slug: wien(), text });
     await until(started.id, (r) => r.status === "running" && r.progress.total > 0, 60_000);
     await until(started.id, () => ngspiceChildren().length > 0, 30_000);
-    const cancelled = await cancelDraftRun(ctx, started.id);
+    const cancelled = await cancelDraftRun(ctx, { id: started.id });
     expect(cancelled.status).toBe("cancelled");
     expect(cancelled.report).toBeNull();
     expect(cancelled.progress.done).toBeLessThan(cancelled.progress.total);
     expect(ngspiceChildren()).toEqual([]);
     await sleep(1500);
-    const later = await getDraftRun(ctx, started.id);
+    const later = await getDraftRun(ctx, { id: started.id });
     expect(later.status).toBe("cancelled");
     expect(later.report).toBeNull();
     expect(later.progress).toEqual(cancelled.progress);
@@ -104,21 +104,21 @@ describe("draft runs", () => {
 
   it("keeps one draft run per person: a new one replaces the running one", async () => {
     const ctx = await ctxOf("author");
-    const first = await startDraftRun(ctx, wien(), { params: { Rf1: `${(18 + Math.random()).toFixed(4)} kohm` } });
-    const second = await startDraftRun(ctx, wien(), { params: { Rf1: `${(18 + Math.random()).toFixed(4)} kohm` } });
-    const old = await getDraftRun(ctx, first.id);
+    const first = await startDraftRun(ctx, { slug: wien(), params: { Rf1: `${(18 + Math.random()).toFixed(4)} kohm` } });
+    const second = await startDraftRun(ctx, { slug: wien(), params: { Rf1: `${(18 + Math.random()).toFixed(4)} kohm` } });
+    const old = await getDraftRun(ctx, { id: first.id });
     expect(old.status).toBe("cancelled");
     expect(old.error).toMatch(/replaced/);
-    expect((await cancelDraftRun(ctx, second.id)).status).toBe("cancelled");
+    expect((await cancelDraftRun(ctx, { id: second.id })).status).toBe("cancelled");
   }, 60_000);
 
   it("answers only its starter, and only callers who may read the block", async () => {
-    const mine = await startDraftRun(await ctxOf("viewer"), wien(), { params: { Rf1: "18.5 kohm" } });
+    const mine = await startDraftRun(await ctxOf("viewer"), { slug: wien(), params: { Rf1: "18.5 kohm" } });
     const code = (p: Promise<unknown>) => p.then(() => "ok", (e: AppError) => e.code);
-    expect(await code(getDraftRun(await ctxOf("author"), mine.id))).toBe("not_found");
-    expect(await code(cancelDraftRun(await ctxOf("author"), mine.id))).toBe("not_found");
-    expect(await code(startDraftRun(await ctxOf("outsider"), wien(), {}))).toBe("not_found");
-    expect(await code(startDraftRun(await contextFor(anonymous), wien(), {}))).toBe("unauthenticated");
-    expect((await cancelDraftRun(await ctxOf("viewer"), mine.id)).status).toBe("cancelled");
+    expect(await code(getDraftRun(await ctxOf("author"), { id: mine.id }))).toBe("not_found");
+    expect(await code(cancelDraftRun(await ctxOf("author"), { id: mine.id }))).toBe("not_found");
+    expect(await code(startDraftRun(await ctxOf("outsider"), { slug: wien() }))).toBe("not_found");
+    expect(await code(startDraftRun(await contextFor(anonymous), { slug: wien() }))).toBe("unauthenticated");
+    expect((await cancelDraftRun(await ctxOf("viewer"), { id: mine.id })).status).toBe("cancelled");
   }, 60_000);
 });

@@ -18,6 +18,6 @@ export const POST = route<{ slug: string }>(async (req, params) => {
   requireUser(ctx.caller); // a draft run belongs to a person: signed out is 401 before anything is read
   const input = isBlockFileRequest(req) ? { text: await readBlockFile(req) } : draftRunBodySchema.parse(await readJson(req));
   await consumeEngine(ctx.caller, slug, "simulate");
-  const run = await startDraftRun(ctx, slug, input);
+  const run = await startDraftRun(ctx, { slug, ...input });
   return Response.json(run, { status: 202, headers: { ...noStore, Location: `/api/v1/draft-runs/${run.id}` } });
 });
