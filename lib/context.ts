@@ -1,6 +1,6 @@
 import type { EntityManager } from "@mikro-orm/postgresql";
 import { anonymous, type Caller } from "@/lib/auth/caller";
-import { callerFromRequestWith } from "@/lib/auth/request-caller";
+import { callerFromRequest } from "@/lib/auth/request-caller";
 import { getEm } from "@/lib/db/orm";
 
 /**
@@ -17,10 +17,13 @@ export async function contextFor(caller: Caller = anonymous, em?: EntityManager)
   return { em: em ?? (await getEm()), caller };
 }
 
-/** A route handler's context: one fork, and the caller from the Bearer token or the session cookie read with it. */
+/**
+ * A route handler's context: one fork, and the caller from the Bearer token or the session cookie. The caller is
+ * resolved once per request: the route wrapper has already asked for it (to answer 401 first), so it is reused.
+ */
 export async function requestContext(req: Request): Promise<Ctx> {
-  const em = await getEm();
-  return { em, caller: await callerFromRequestWith(em, req) };
+  const [em, caller] = await Promise.all([getEm(), callerFromRequest(req)]);
+  return { em, caller };
 }
 
 /** The same context with another caller, e.g. a job acting for the person who queued it. */
