@@ -8,6 +8,7 @@ import { toQuantity } from "../units";
 import type { RunProgress, SimExecutor } from "./executor";
 import { foldCheck, type Point } from "./fold";
 import { planFor, type RunCap } from "./plan";
+import { plainRunner, type PlainPoint } from "./plain-runs";
 import { monteCarloOf, paramDeps } from "./script-facts";
 import { noSimulation, prepare, scopeFor } from "./prepare";
 import { quantitiesOf, reportStatus } from "./report";
@@ -101,8 +102,11 @@ function finish(s: Started, refused = false): { report: Report; waveforms: Wavef
   // Checks that need no simulation: every corner (or predicted worst corners), text only where shown.
   const plainStatements = statements.filter((st) => !st.simulated);
   const plainRun = (c: Corner, text = false) => runScript(plainStatements, scopeFor(block, c.values, noSimulation), false, text);
+  const runner = plainRunner(plainStatements, block.params.map((p) => p.name), Object.keys(report.quantities), (c) => plainRun(c), siAt);
+  const plainPointsRun = new Map<Corner, PlainPoint>();
+  const plainAt = (c: Corner) => plainPointsRun.get(c) ?? plainPointsRun.set(c, runner(c)).get(c)!;
   const plainNominal = nominal.checks.filter((c) => !c.simulated);
-  const plain = plainPoints(block, (c) => plainRun(c).checks, plainNominal);
+  const plain = plainPoints(block, (c) => plainAt(c).checks, plainNominal);
   const plainSamples = mc ? monteCarloSamples(block.params, toleranced(block.params), mc.n) : [];
   const plainSampleRuns = plainSamples.map((c) => plainRun(c));
   const plainMethod: Method = plain.method === "none" ? "nominal" : plain.method;
@@ -132,7 +136,7 @@ function finish(s: Started, refused = false): { report: Report; waveforms: Wavef
     const sim = Boolean(q.simulated);
     const values = sim
       ? [...simPoints, ...simSamples].map((d) => d.values[name])
-      : [...plain.points.map((p) => siAt(plainRun(p.corner), name)), ...plainSampleRuns.map((r) => siAt(r, name))];
+      : [...plain.points.map((p) => plainAt(p.corner).values[name]), ...plainSampleRuns.map((r) => siAt(r, name))];
     const finite = values.filter((x) => Number.isFinite(x));
     if (finite.length) {
       const over: Method = (sim ? simSamples.length : plainSampleRuns.length) ? "montecarlo" : sim ? simMethod : plainMethod;
