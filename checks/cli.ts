@@ -50,6 +50,7 @@ async function verifyFile(file: string, cwd: string, lane: SandboxLane): Promise
 }
 
 async function main(): Promise<number> {
+  verifyLane.warm(); // the child starts while the arguments are read and globbed
   const args = process.argv.slice(2);
   const json = args.includes("--json");
   const cwd = process.env.INIT_CWD ?? process.cwd();

@@ -6,6 +6,8 @@ import type { RunCap } from "../engine/plan";
 import type { SimSide } from "../engine/variant";
 import { retuneBlock } from "../engine/retune";
 import type { ModelTexts } from "../spice/sanitize";
+import { startupSnapshot } from "node:v8";
+import { warmUp } from "./warm-up";
 
 type Request = { id: number; op: "verify" | "preview" | "retune"; text: string; opts?: Record<string, unknown> };
 type Outcomes = { kind: "outcomes"; call: number; outcomes?: SimOutcome[]; error?: string };
@@ -45,23 +47,32 @@ async function handle(req: Request): Promise<unknown> {
   }
 }
 
-process.on("message", async (m: Request | Outcomes) => {
-  if ("kind" in m) {
-    const c = calls.get(m.call);
-    calls.delete(m.call);
-    if (m.outcomes) c?.resolve(m.outcomes);
-    else c?.reject(new Error(m.error ?? "the executor failed"));
-    return;
-  }
-  let reply: { id: number; ok: boolean; value?: unknown; error?: string };
-  try {
-    reply = { id: m.id, ok: true, value: await handle(m) };
-  } catch (e) {
-    const err = e as Error;
-    reply = { id: m.id, ok: false, error: err instanceof RangeError ? `the script ran too deep: ${err.message}` : err.message };
-  }
-  process.send!(reply);
-});
-process.send!({ id: 0, ok: true, value: "ready" });
-// The parent is gone (exited or killed): nothing will ask for more work.
-process.on("disconnect", () => process.exit(0));
+function serve() {
+  process.on("message", async (m: Request | Outcomes) => {
+    if ("kind" in m) {
+      const c = calls.get(m.call);
+      calls.delete(m.call);
+      if (m.outcomes) c?.resolve(m.outcomes);
+      else c?.reject(new Error(m.error ?? "the executor failed"));
+      return;
+    }
+    let reply: { id: number; ok: boolean; value?: unknown; error?: string };
+    try {
+      reply = { id: m.id, ok: true, value: await handle(m) };
+    } catch (e) {
+      const err = e as Error;
+      reply = { id: m.id, ok: false, error: err instanceof RangeError ? `the script ran too deep: ${err.message}` : err.message };
+    }
+    process.send!(reply);
+  });
+  process.send!({ id: 0, ok: true, value: "ready" });
+  // The parent is gone (exited or killed): nothing will ask for more work.
+  process.on("disconnect", () => process.exit(0));
+}
+
+// scripts/engine-build.mjs runs this file once to write a heap snapshot: the warm-up's work is then in the snapshot,
+// and each child started from it begins at serve().
+if (startupSnapshot.isBuildingSnapshot()) {
+  warmUp();
+  startupSnapshot.setDeserializeMainFunction(serve);
+} else serve();

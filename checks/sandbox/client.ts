@@ -44,13 +44,13 @@ export class SandboxLane {
 
   private start(): Promise<void> {
     const root = assayRoot();
-    const { entry, execArgv } = childCommand();
+    const { entry, execArgv } = childCommand(this.memoryMb);
     // A child being replaced (timed out, or started again before it answered) is ended, never left running.
     if (this.child && this.child.exitCode === null) this.child.kill("SIGKILL");
     const child = fork(entry, [], {
       cwd: root,
       execPath: process.execPath,
-      execArgv: [...execArgv, `--max-old-space-size=${this.memoryMb}`],
+      execArgv,
       stdio: ["ignore", "ignore", "pipe", "ipc"],
       env: childEnv(root) as NodeJS.ProcessEnv,
       serialization: "advanced",
@@ -134,6 +134,7 @@ export class SandboxLane {
 // Previews and full runs get a lane each, so a long simulation never holds up a keystroke. One pair per process:
 // Next bundles this module into each route that uses it, and each copy would otherwise start children of its own.
 const lanes = globalThis as unknown as { __assayLanes?: { preview: SandboxLane; verify: SandboxLane }; __assayDraftLane?: SandboxLane };
+// Heap limits: scripts/engine-build.mjs writes a startup snapshot for each of these (SNAPSHOT_HEAP_MB there).
 lanes.__assayLanes ??= { preview: new SandboxLane(256), verify: new SandboxLane(768) };
 export const previewLane = lanes.__assayLanes.preview;
 export const verifyLane = lanes.__assayLanes.verify;

@@ -21,6 +21,14 @@ export const childEntry = () => path.join(assayRoot(), ENTRY);
 
 // scripts/engine-build.mjs writes the child as plain JavaScript; node starts that without tsx's second and a half.
 const COMPILED = path.join(".build", "engine", "sandbox-child.js");
+/**
+ * Beside it, startup snapshots of the loaded child (mathjs built and its functions created, by scripts/engine-build.mjs):
+ * a child starts from one in about a third of the time. A snapshot is read only by the node version that wrote it and
+ * with the same V8 flags, so there is one per heap limit the lanes use (SNAPSHOT_HEAP_MB there); a child with another
+ * limit starts from the bundle.
+ */
+export const snapshotFile = (root: string, memoryMb: number, version = process.version) =>
+  path.join(root, ".build", "engine", `sandbox-child-${version}-${memoryMb}mb.blob`);
 
 function newestSource(dir: string): number {
   let newest = 0;
@@ -32,10 +40,16 @@ function newestSource(dir: string): number {
   return newest;
 }
 
-/** How to start the child: the compiled entry when it is newer than every engine source, else the source under tsx. */
-export function childCommand(): { entry: string; execArgv: string[] } {
+/**
+ * How to start a child with this heap limit: the compiled entry when it is newer than every engine source (from its
+ * snapshot when that is as new), else the source under tsx.
+ */
+export function childCommand(memoryMb: number): { entry: string; execArgv: string[] } {
   const root = assayRoot();
   const compiled = path.join(root, COMPILED);
-  if (existsSync(compiled) && statSync(compiled).mtimeMs >= newestSource(path.join(root, "checks"))) return { entry: compiled, execArgv: [] };
-  return { entry: childEntry(), execArgv: ["--import", "tsx"] };
+  const heap = `--max-old-space-size=${memoryMb}`;
+  if (!existsSync(compiled) || statSync(compiled).mtimeMs < newestSource(path.join(root, "checks"))) return { entry: childEntry(), execArgv: ["--import", "tsx", heap] };
+  const snapshot = snapshotFile(root, memoryMb);
+  if (existsSync(snapshot) && statSync(snapshot).mtimeMs >= statSync(compiled).mtimeMs) return { entry: compiled, execArgv: ["--snapshot-blob", snapshot, heap] };
+  return { entry: compiled, execArgv: [heap] };
 }
