@@ -1,8 +1,8 @@
 import fs from "node:fs";
 import path from "node:path";
-import { DEFAULT_TIMEOUT_MS, execute, prepareRun } from "./run-ngspice";
+import { ABORTED, DEFAULT_TIMEOUT_MS, execute, prepareRun } from "./run-ngspice";
 
-/** Short analyses share one ngspice process this many at a time (process start-up is most of their cost). */
+/** Short analyses share one ngspice process this many at a time (process start-up is much of their cost). */
 export const BATCH_SIZE = 16;
 
 /**
@@ -20,7 +20,10 @@ export async function runBatchAsync(decks: string[], timeoutMs = DEFAULT_TIMEOUT
   const job = prepareRun(control.join("\n"), { timeoutMs: timeoutMs * decks.length }, false);
   try {
     decks.forEach((deck, i) => fs.writeFileSync(path.join(job.dir, `d${i}.cir`), `${marker(i)}\n${deck.slice(deck.indexOf("\n") + 1)}`));
-    await execute(job, signal);
+    const exit = await execute(job, signal);
+    // An aborted analysis may still leave a partial plot under its marker: every member then runs alone, where the
+    // abort is the error it is in a single run.
+    if (ABORTED.test(`${exit.stderr}\n${exit.stdout}`)) return decks.map(() => null);
     return decks.map((_, i) => {
       try {
         const raw = fs.readFileSync(path.join(job.dir, `o${i}.raw`));

@@ -7,13 +7,26 @@ import { runNgspiceAsync } from "./run-ngspice";
 import { SpiceError } from "./types";
 
 export type LocalExecutorOptions = {
-  cacheDir?: string; noCache?: boolean; concurrency?: number; timeoutMs?: number;
+  cacheDir?: string;
+  noCache?: boolean;
+  concurrency?: number;
+  timeoutMs?: number;
   /** Aborted: running ngspice processes are killed, nothing new starts, and runMany rejects once they have exited. */
   signal?: AbortSignal;
+  /** false: every simulation in a process of its own (bench/tolerance compares the two). */
+  batch?: boolean;
 };
 
 // One plot each, so the control block's `write` holds what `ngspice -b -r` would (noise writes two plots).
 const BATCHED = new Set(["ac", "op", "dc", "tf"]);
+/**
+ * Transients share a process too while they are short: the points of a Monte Carlo sample of an oscillator. Starting
+ * ngspice from the engine's process costs more than the simulation itself saves there (fork copies the page tables
+ * of a large process: 20 ms and more a start), and a batch holds its plots in memory, so long ones run alone.
+ */
+export const TRAN_BATCH_POINTS = 50_000;
+
+const batchable = (r: SimRequest) => BATCHED.has(r.analysis.kind) || (r.analysis.kind === "tran" && r.analysis.stop / r.analysis.step <= TRAN_BATCH_POINTS);
 
 /** How many ngspice processes run at once by default: one per core. */
 export const defaultConcurrency = () => Math.max(1, os.availableParallelism?.() ?? os.cpus().length);
@@ -42,9 +55,10 @@ export function localExecutor(opts: LocalExecutorOptions = {}): SimExecutor {
         if (hit) finish({ key: r.key, ok: true, raw: hit, ms: 0, cached: true });
         else queue.push(r);
       }
-      // Transients run one per process; short analyses share a process up to BATCH_SIZE at a time.
-      const jobs: SimRequest[][] = queue.filter((r) => !BATCHED.has(r.analysis.kind)).map((r) => [r]);
-      const short = queue.filter((r) => BATCHED.has(r.analysis.kind));
+      // Long transients and noise run one per process; the rest share a process up to BATCH_SIZE at a time.
+      const joins = (r: SimRequest) => opts.batch !== false && batchable(r);
+      const jobs: SimRequest[][] = queue.filter((r) => !joins(r)).map((r) => [r]);
+      const short = queue.filter(joins);
       const size = Math.max(1, Math.min(BATCH_SIZE, Math.ceil(short.length / limit)));
       for (let i = 0; i < short.length; i += size) jobs.push(short.slice(i, i + size));
       const worker = async () => {

@@ -131,7 +131,7 @@ function finishRun(job: Job, r: Exit, ms: number, opts: RunOptions): NgspiceRun 
 
 // ngspice reports netlist trouble on stderr, naming the deck line as "Netlist line no. N".
 const NOISE = [/^Note: No compatibility mode/i, /^binary raw file/i, /^ascii raw file/i, /^Using SPARSE/i];
-const ABORTED = /simulation\(s\) aborted|timestep too small|analysis aborted/i;
+export const ABORTED = /simulation\(s\) aborted|timestep too small|analysis aborted/i;
 const FATAL = /error|cannot|can't find|undefined|unknown|too small|singular|aborted|not found|failed/i;
 
 function ngspiceFailure(stderr: string, offset: number, circuit: string): SpiceError | null {

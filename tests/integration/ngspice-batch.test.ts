@@ -1,0 +1,54 @@
+import fs from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import { afterAll, describe, expect, it } from "vitest";
+import { localExecutor, type SimOutcome } from "@/checks";
+import { runBatchAsync } from "@/checks/spice/batch";
+import { parseRawFile } from "@/checks/spice/raw-file";
+import { simRequest } from "@/checks/spice/request";
+import { runNgspice } from "@/checks/spice/run-ngspice";
+
+const cacheDir = fs.mkdtempSync(path.join(os.tmpdir(), "assay-batch-"));
+afterAll(() => fs.rmSync(cacheDir, { recursive: true, force: true }));
+
+// A diode-limited Wien bridge: a transient of a few thousand points, as a Monte Carlo sample runs it.
+const wien = (R: number) =>
+  simRequest({
+    title: "wien",
+    params: { R, C: 10e-9 },
+    analysis: { kind: "tran", stop: 20e-3, step: 5e-6, uic: true },
+    circuit: "Rs out a {R}\nCs a p {C}\nRp p 0 {R}\nCp p 0 {C}\nRg n 0 10k\nRf1 out m 15k\nRf2 m n 5.9k\nD1 m n dd\nD2 n m dd\n.model dd D(IS=1e-14)\nE1 out 0 p n 1e5\n.ic v(p)=0.01",
+  });
+
+/** Every vector of a raw file by name (a batch's `write` lists them in another order than `-r`). */
+function vectors(raw: Uint8Array): Record<string, number[]> {
+  const [plot] = parseRawFile(Buffer.from(raw));
+  return Object.fromEntries(plot.variables.map((v) => [v.name, [...plot.real[v.index]]]));
+}
+
+describe("transients several to one ngspice process", () => {
+  it("gives each member the vectors its own `ngspice -b -r` run writes, value for value", async () => {
+    const reqs = [15.8e3, 16e3, 15.6e3].map(wien);
+    const raws = await runBatchAsync(reqs.map((r) => r.deck));
+    for (const [i, r] of reqs.entries()) {
+      expect(raws[i]).not.toBeNull();
+      // ngspice itself, alone, is the reference.
+      expect(vectors(raws[i]!)).toEqual(vectors(runNgspice(r.deck).raw));
+    }
+  });
+
+  it("runs every member alone when one transient aborts, so the abort is an error as in a single run", async () => {
+    // Positive feedback with gain 2 around an RC and no limit grows as e^{t/RC} until ngspice gives up with
+    // "timestep too small", leaving a plot of a few points under the member's title.
+    const runaway = simRequest({
+      title: "runaway", params: {}, analysis: { kind: "tran", stop: 1e-3, step: 1e-6, uic: true },
+      circuit: "E1 out 0 x 0 2\nR1 out x 1k\nC1 x 0 1n\n.ic v(x)=1",
+    });
+    const reqs = [wien(15.8e3), runaway, wien(16e3)];
+    expect(await runBatchAsync(reqs.map((r) => r.deck))).toEqual([null, null, null]);
+    const outcomes: SimOutcome[] = await localExecutor({ cacheDir, concurrency: 1 }).runMany(reqs);
+    expect(outcomes.map((o) => o.ok)).toEqual([true, false, true]);
+    expect(outcomes[1].ok === false && outcomes[1].error).toMatch(/timestep too small/i);
+    expect(vectors((outcomes[0] as SimOutcome & { ok: true }).raw)).toEqual(vectors(runNgspice(reqs[0].deck).raw));
+  });
+});
