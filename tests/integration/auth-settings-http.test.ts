@@ -1,13 +1,15 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { readFileSync } from "node:fs";
 import { ApiTokenSchema, InvitationSchema, MembershipSchema } from "@/entities";
+import { inviteMember } from "@/lib/auth/invitations";
 import { loadCaller } from "@/lib/auth/load-caller";
 import { createBlock } from "@/lib/blocks/create";
 import { createToken } from "@/lib/tokens/tokens";
+import { contextFor } from "@/lib/context";
 import { closeOrm, getEm } from "@/lib/db/orm";
 import { startApp, type AppServer } from "../support/app-server";
 import { CookieJar } from "../support/cookie-jar";
-import { PASSWORD, makeTeam } from "./auth-fixtures";
+import { PASSWORD, linkIn, mailsTo, makeTeam } from "./auth-fixtures";
 
 // The built app over HTTP, with forms submitted as a browser without JavaScript does (React renders each server
 // action's hidden fields into its form). Anyone can post those fields: the action itself must check who is asking.
@@ -179,5 +181,24 @@ describe("team and settings actions check the caller on the server", () => {
     revokeForm.forEach((v, k) => again.append(k, v));
     await submit(browsers.admin, "/settings/tokens", again);
     expect((await (await getEm()).findOneOrFail(ApiTokenSchema, { id: record.id })).revokedAt).not.toBeNull();
+  });
+});
+
+describe("the invitation page", () => {
+  it("names the team, the role and the address of a live link to anyone, and turns a made-up or missing token away", async () => {
+    const { slug, people } = await makeTeam(["admin"]);
+    const invitee = `page-${slug}@larkspur.test`;
+    await inviteMember(await contextFor(await loadCaller(await getEm(), people[0].id)), { teamSlug: slug, email: invitee, role: "maintainer" });
+    const token = linkIn(mailsTo(invitee)[0]).searchParams.get("token")!;
+    const stranger = new Browser();
+    const live = await stranger.get(`/invitation?token=${token}`);
+    expect(live.status).toBe(200);
+    const page = await live.text();
+    expect(page).toContain(`Join <!-- -->Team ${slug.slice(2)}`);
+    expect(page).toContain(invitee);
+    expect(page).toMatch(/<strong[^>]*>maintainer<\/strong>/);
+    for (const path of [`/invitation?token=${"A".repeat(43)}`, "/invitation?token=short", "/invitation"]) {
+      expect(await (await stranger.get(path)).text()).toContain("This invitation is not valid any more");
+    }
   });
 });
