@@ -12,7 +12,11 @@ const pct = (x: number) => `${formatNumber(100 * x, 3)} %`;
 const describe = (label: Record<string, string>) => Object.entries(label).map(([k, v]) => `${k} ${v}`).join(", ");
 
 /** A corner's label cut to the parameters the check depends on. */
-const only = (label: Record<string, string>, depends: Set<string>) => Object.fromEntries(Object.entries(label).filter(([k]) => depends.has(k)));
+function only(label: Record<string, string>, depends: Set<string>): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const k in label) if (depends.has(k)) out[k] = label[k];
+  return out;
+}
 
 // For a simulated check, a measure with nothing to measure at a corner (a dead oscillator) is the
 // circuit failing there; only a simulator failure makes the check an error.
@@ -72,11 +76,14 @@ export function foldCheck(
     out.worst = { corner: only(w.corner.label, o.depends), detail, ...(w.sample !== undefined ? { sample: w.sample } : {}) };
   }
   const p = nominal.primary;
+  const read = new Map<unknown, number>();
+  const siOnce = (x: unknown) => read.get(x) ?? read.set(x, siOf(x)).get(x)!;
   if (p && points.length && points.every((c) => c.outcome.primary?.label === p.label)) {
     out.corners = {
       quantity: p.label,
       unit: toQuantity(p.value)?.unit ?? "",
-      values: points.map((c) => siOf(c.outcome.primary!.value)),
+      // Corners that share an outcome (engine/plain-runs.ts) share its value: each is read once.
+      values: points.map((c) => siOnce(c.outcome.primary!.value)),
       nominal: siOf(p.value),
       limits: p.limits.map(siOf),
       labels: points.map((c) => only(c.corner.label, o.depends)),
