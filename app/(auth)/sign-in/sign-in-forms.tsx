@@ -1,7 +1,7 @@
 "use client";
 import { signIn } from "next-auth/react";
 import { useActionState, useState, type FormEvent } from "react";
-import { requestLinkAction } from "./actions";
+import { requestLinkAction } from "@/lib/actions/sign-in";
 
 const input = "mt-1 w-full rounded border border-rule bg-panel px-3 py-2 text-sm focus:border-copper";
 const primary = "w-full rounded bg-copper px-3 py-2 text-sm font-medium text-white hover:bg-copper-dark disabled:opacity-60";

@@ -1,6 +1,6 @@
 "use client";
 import { useActionState } from "react";
-import { changePasswordAction, updateNameAction } from "./actions";
+import { changePasswordAction, updateNameAction } from "@/lib/actions/profile";
 
 const input = "mt-1 w-full rounded border border-rule bg-panel px-3 py-1.5 text-sm focus:border-copper";
 const button = "rounded bg-copper px-3 py-1.5 text-sm font-medium text-white hover:bg-copper-dark disabled:opacity-60";

@@ -1,6 +1,6 @@
 "use client";
 import { useActionState } from "react";
-import { changeRoleAction, inviteAction, removeMemberAction, withdrawAction } from "./actions";
+import { changeRoleAction, inviteAction, removeMemberAction, withdrawAction } from "@/lib/actions/team";
 
 // The role ladder of DESIGN.md (entities/membership.entity.ts); repeated here to keep the ORM out of the browser bundle.
 const ROLES = ["viewer", "author", "maintainer", "admin"] as const;

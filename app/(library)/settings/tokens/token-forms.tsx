@@ -1,6 +1,6 @@
 "use client";
 import { useActionState, useState } from "react";
-import { createTokenAction, revokeTokenAction } from "./actions";
+import { createTokenAction, revokeTokenAction } from "@/lib/actions/tokens";
 
 const input = "mt-1 w-full rounded border border-rule bg-panel px-3 py-1.5 text-sm focus:border-copper";
 

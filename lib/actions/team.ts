@@ -1,4 +1,5 @@
 "use server";
+import "server-only";
 import { revalidatePath } from "next/cache";
 import { inviteMember, withdrawInvitation } from "@/lib/auth/invitations";
 import { changeRole, removeMember } from "@/lib/auth/teams";

@@ -1,4 +1,5 @@
 "use server";
+import "server-only";
 import { headers } from "next/headers";
 import { clientIp } from "@/lib/auth/rate-limit";
 import { requestSignInLink } from "@/lib/auth/sign-in";

@@ -1,4 +1,5 @@
 "use server";
+import "server-only";
 import { revalidatePath } from "next/cache";
 import { changePassword, updateName } from "@/lib/auth/profile";
 import { restartSession } from "@/lib/auth/session";

@@ -1,4 +1,5 @@
 "use server";
+import "server-only";
 import { revalidatePath } from "next/cache";
 import { actionContext } from "@/lib/next-context";
 import { createOwnToken, revokeTokenAs } from "@/lib/tokens/manage";
