@@ -12,3 +12,12 @@ export function PageSkeleton({ label = "Loading" }: { label?: string }) {
     </div>
   );
 }
+
+/**
+ * The loading state (loading.tsx) of a page that never answers 404. A page that can (a block and its subpages, a
+ * model) has no loading boundary above it: behind one Next sends a 200 before the page knows the block is hidden
+ * or missing.
+ */
+export default function PageLoading() {
+  return <PageSkeleton />;
+}

@@ -10,8 +10,11 @@ import type { Ctx } from "@/lib/context";
  * shares it between generateMetadata, the page and the server components it renders.
  */
 export const pageContext = cache(async (): Promise<Ctx> => {
+  // The request's headers first: while `next build` prerenders, they mark the page as rendered per request before
+  // anything asks for the database (a page with no loading boundary above it would otherwise fail the build).
+  const cookie = (await headers()).get("cookie");
   const em = await getEm();
-  return { em, caller: await callerFromCookieWith(em, (await headers()).get("cookie")) };
+  return { em, caller: await callerFromCookieWith(em, cookie) };
 });
 
 /** Server actions run once per request; the same shape as a page's, made fresh so no render's em is reused. */

@@ -6,6 +6,7 @@ import { EmptyState } from "@/components/empty-state";
 import { searchQueryString, useSearchBlocks, type SearchFilters, type SearchResult } from "@/lib/queries/search-blocks";
 import { FacetGroup } from "./facet-group";
 import { useDebounced } from "./use-debounced";
+import { useLeavingPage } from "./use-leaving-page";
 
 const FACETS: { facet: string; key: keyof SearchFilters }[] = [
   { facet: "category", key: "category" }, { facet: "badge", key: "badge" }, { facet: "tags", key: "tag" },
@@ -15,8 +16,12 @@ const FACETS: { facet: string; key: keyof SearchFilters }[] = [
 /** Search as you type: debounced, the previous results stay on screen while the next ones load. */
 export function LibrarySearch({ initial, initialFilters }: { initial: SearchResult | null; initialFilters: SearchFilters }) {
   const pathname = usePathname();
-  const [q, setQ] = useState(initialFilters.q ?? "");
-  const [filters, setFilters] = useState<SearchFilters>({ ...initialFilters, q: undefined });
+  const leaving = useLeavingPage();
+  const [q, setTypedQ] = useState(initialFilters.q ?? "");
+  const [filters, setTypedFilters] = useState<SearchFilters>({ ...initialFilters, q: undefined });
+  // Searching again means staying: the address follows the search once more.
+  const setQ = (v: string) => { leaving.current = false; setTypedQ(v); };
+  const setFilters = (f: (prev: SearchFilters) => SearchFilters) => { leaving.current = false; setTypedFilters(f); };
   const debouncedQ = useDebounced(q.trim(), 200);
   const current = { ...filters, q: debouncedQ || undefined };
   const qs = searchQueryString(current);
@@ -27,11 +32,13 @@ export function LibrarySearch({ initial, initialFilters }: { initial: SearchResu
 
   // Keep the address in step with the search, so a result list can be shared and the back button returns to it.
   // The browser's own history call: Next keeps its router in step without fetching the page again, so a
-  // keystroke costs one request (the API search), not a second server render of this page.
+  // keystroke costs one request (the API search), not a second server render of this page. Not once a link on
+  // the page was followed: that navigation may still wait for its page, and this call would cancel it.
   useEffect(() => {
+    if (leaving.current) return;
     const next = qs ? `${pathname}?${qs}` : pathname;
     if (`${window.location.pathname}${window.location.search}` !== next) window.history.replaceState(null, "", next);
-  }, [qs, pathname]);
+  }, [qs, pathname, leaving]);
 
   // Arrow keys walk from the box down the result titles and back, so a search is opened without a mouse.
   const results = useRef<HTMLDivElement>(null);
