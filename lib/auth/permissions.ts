@@ -12,6 +12,7 @@ export type Action =
   | "version.approve"
   | "review.request"
   | "team.manage"
+  | "token.create"
   | "token.manage"
   | "model.read"
   | "model.upload";
@@ -42,10 +43,21 @@ const needs: Record<Action, Role> = {
   "version.approve": "maintainer",
   "review.request": "author",
   "team.manage": "admin",
+  // Every member holds tokens of their own for their team: a token never does more than its owner's role there.
+  "token.create": "viewer",
+  // Admins also see and revoke every token of their team.
   "token.manage": "admin",
   "model.read": "viewer",
   "model.upload": "author",
 };
+
+/** The roles, lowest first. */
+export const ROLES = (Object.keys(rank) as Role[]).sort((a, b) => rank[a] - rank[b]);
+
+/** The lowest role an action needs in a team; the roles above it may do it too (pages state rules from this). */
+export function leastRoleFor(action: Action): Role {
+  return needs[action];
+}
 
 const readOnly = new Set<Action>(["block.read", "model.read"]);
 

@@ -1,4 +1,5 @@
 import { OpenAPIRegistry, OpenApiGeneratorV31 } from "@asteasolutions/zod-to-openapi";
+import { tokenRules } from "@/lib/tokens/rules";
 import { registerBlockPaths } from "./paths-blocks";
 import { registerModelPaths } from "./paths-models";
 import { registerRunPaths } from "./paths-runs";
@@ -8,7 +9,7 @@ function buildRegistry(): OpenAPIRegistry {
   r.registerComponent("securitySchemes", "bearerToken", {
     type: "http",
     scheme: "bearer",
-    description: "An API token (asy_…) bound to one team, scope read or write; its rights are its scope intersected with the user's role.",
+    description: `An API token (asy_…) bound to one team, scope read or write; its rights are its scope intersected with the user's role. ${tokenRules().create} ${tokenRules().manage}`,
   });
   r.registerComponent("securitySchemes", "sessionCookie", {
     type: "apiKey",

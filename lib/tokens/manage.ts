@@ -1,13 +1,13 @@
 import { ApiTokenSchema, TeamSchema, type TokenScope } from "@/entities";
 import type { Caller } from "@/lib/auth/caller";
-import { can, roleIn } from "@/lib/auth/permissions";
+import { can } from "@/lib/auth/permissions";
 import type { Ctx } from "@/lib/context";
 import { AppError } from "@/lib/errors";
 import type { NewTokenInput, TokenRef } from "@/lib/validation/accounts";
 import { createToken } from "./tokens";
 
-// The settings page's token operations. Anyone in a team may hold tokens for it (a token never exceeds its
-// owner's role); admins ("token.manage") also see and revoke every token of their team.
+// The settings page's token operations. Who may make tokens ("token.create") and who sees and revokes every token
+// of a team ("token.manage") is lib/auth/permissions.ts's table; lib/tokens/rules.ts states it in words.
 function person(caller: Caller) {
   if (!caller.user) throw new AppError("unauthenticated", "Sign in first.");
   if (caller.token) throw new AppError("forbidden", "API tokens cannot manage tokens.");
@@ -31,7 +31,7 @@ export interface TokenRow {
 export async function createOwnToken({ em, caller }: Ctx, input: NewTokenInput, now = new Date()): Promise<{ token: string; id: number }> {
   const me = person(caller);
   const team = await em.findOne(TeamSchema, { slug: input.teamSlug });
-  if (!team || !roleIn(caller, team.id)) throw new AppError("not_found", "no such team");
+  if (!team || !can(caller, "token.create", { kind: "team", teamId: team.id })) throw new AppError("not_found", "no such team");
   const expiresAt = input.expiresInDays > 0 ? new Date(now.getTime() + input.expiresInDays * 86400_000) : null;
   const { token, record } = await createToken(em, { userId: me.id, teamId: team.id, name: input.name, scope: input.scope, expiresAt });
   return { token, id: record.id };

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import type { OperationObject, PathItemObject } from "openapi3-ts/oas31";
 import { FINER_PROBLEM_TYPES, PROBLEM_BASE, problemTypes } from "@/lib/api/problem";
 import { openApiDocument } from "@/lib/openapi/document";
+import { tokenRules } from "@/lib/tokens/rules";
 import { OperationView } from "./operation-view";
 import { SchemaView } from "./schema-view";
 import type { AnySchema } from "./schema-type";
@@ -18,6 +19,7 @@ export default function ApiDocsPage() {
     METHODS.filter((m) => (item as PathItemObject)[m]).map((m) => ({ path, method: m, op: (item as PathItemObject)[m] as OperationObject })),
   );
   const schemas = Object.entries((doc.components?.schemas ?? {}) as Record<string, AnySchema>);
+  const tokens = tokenRules();
   return (
     <div className="grid gap-8 lg:grid-cols-[14rem_minmax(0,1fr)]">
       <nav aria-label="API sections" className="text-sm lg:sticky lg:top-20 lg:self-start">
@@ -37,9 +39,12 @@ export default function ApiDocsPage() {
         <header className="max-w-[70ch] space-y-2">
           <h1 className="font-serif text-2xl">{doc.info.title} <span className="font-mono text-base text-graphite">v{doc.info.version}</span></h1>
           <p className="font-serif leading-relaxed"><InlineCode text={doc.info.description ?? ""} /></p>
+          <p className="text-sm leading-relaxed" data-testid="token-rules">
+            Send an API token as <code className="font-mono">Authorization: Bearer $ASSAY_TOKEN</code>. {tokens.create} They are made under{" "}
+            <a className="text-copper-dark underline" href="/settings/tokens">Settings → API tokens</a>; on the server itself,{" "}
+            <code className="font-mono">npm run -s token -- EMAIL --team SLUG</code> prints one for any member. {tokens.reach} {tokens.manage}
+          </p>
           <p className="text-sm leading-relaxed">
-            Send an API token as <code className="font-mono">Authorization: Bearer $ASSAY_TOKEN</code> (an admin makes tokens in team settings, or
-            <code className="font-mono"> npm run -s token -- EMAIL --team SLUG</code>). A token is bound to one team; a read token cannot write.
             Public blocks answer without credentials; team blocks answer 404 outside their team. The whole description is at{" "}
             <a className="text-copper-dark underline" href="/api/v1/openapi.json">/api/v1/openapi.json</a>.
           </p>

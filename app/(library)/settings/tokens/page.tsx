@@ -1,9 +1,11 @@
 import type { Metadata } from "next";
 import { when } from "@/components/eng";
 import { EmptyState } from "@/components/empty-state";
+import { can } from "@/lib/auth/permissions";
 import { requireUser } from "@/lib/auth/session";
 import { pageContext } from "@/lib/next-context";
 import { listTokens, type TokenRow } from "@/lib/tokens/manage";
+import { tokenRules } from "@/lib/tokens/rules";
 import { SettingsNav } from "../settings-nav";
 import { CreateTokenForm, RevokeButton } from "./token-forms";
 
@@ -21,17 +23,24 @@ export default async function TokensPage() {
   const tokens = await listTokens(await pageContext());
   const now = Date.now();
   const others = tokens.some((t) => !t.mine);
+  const rules = tokenRules();
+  // The teams the server lets this person make a token for (lib/tokens/manage.ts asks the same question).
+  const teams = caller.memberships.filter((m) => can(caller, "token.create", { kind: "team", teamId: m.teamId }));
   return (
     <div className="max-w-5xl space-y-6">
       <h1 className="font-serif text-2xl font-semibold">Settings</h1>
       <SettingsNav at="tokens" />
       <section aria-labelledby="new-h" className="rounded border border-rule bg-panel p-4">
         <h2 id="new-h" className="mb-1 font-serif text-lg font-semibold">New API token</h2>
-        <p className="mb-3 text-sm text-graphite">For scripts and CI that fetch blocks through <code className="font-mono">/api/v1</code>. A token belongs to one team.</p>
-        {caller.memberships.length ? (
-          <CreateTokenForm teams={caller.memberships.map((m) => ({ slug: m.teamSlug, role: m.role }))} />
+        <p className="mb-3 text-sm text-graphite" data-testid="token-rules">
+          For scripts and CI that fetch blocks through <code className="font-mono">/api/v1</code>. {rules.create} {rules.reach} {rules.manage}
+        </p>
+        {teams.length ? (
+          <CreateTokenForm teams={teams.map((m) => ({ slug: m.teamSlug, role: m.role }))} />
         ) : (
-          <p className="text-sm text-graphite">You are not in a team yet, so there is nothing a token could reach.</p>
+          <p className="text-sm text-graphite">
+            {caller.memberships.length ? "Your role in your teams does not let you make tokens." : "You are not in a team yet, so there is nothing a token could reach."}
+          </p>
         )}
       </section>
       <section aria-labelledby="list-h">
