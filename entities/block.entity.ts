@@ -4,7 +4,8 @@ import type { Team } from "./team.entity";
 
 export const CATEGORIES = ["oscillator", "limiter", "filter", "amplifier", "reference", "power", "interface", "other"] as const;
 export type Category = (typeof CATEGORIES)[number];
-export type Visibility = "team" | "public";
+export const VISIBILITIES = ["team", "public"] as const;
+export type Visibility = (typeof VISIBILITIES)[number];
 
 // Title, category, tags and summary are copied from the head version so lists need no join.
 export interface Block {

@@ -33,6 +33,7 @@ async function seed(token: { set: (t: string) => void }) {
   const { TeamSchema, UserSchema, MembershipSchema } = await import("../../entities");
   const { loadCaller } = await import("../../lib/auth/load-caller");
   const { createBlock } = await import("../../lib/blocks/create");
+  const { contextFor } = await import("../../lib/context");
   const { createToken } = await import("../../lib/tokens/tokens");
   const { reindexAll } = await import("../../lib/search/indexer");
   const em = await getEm();
@@ -49,7 +50,7 @@ async function seed(token: { set: (t: string) => void }) {
   let stored = 0;
   for (const f of readdirSync(dir).filter((n) => n.endsWith(".md"))) {
     try {
-      await createBlock(caller, { teamSlug: "fenwick", text: readFileSync(path.join(dir, f), "utf8"), visibility: "team" });
+      await createBlock(await contextFor(caller), { team: "fenwick", text: readFileSync(path.join(dir, f), "utf8"), visibility: "team" });
       stored++;
     } catch (err) {
       console.warn(`skipped ${f}: ${(err as Error).message}`);

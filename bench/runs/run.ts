@@ -22,6 +22,7 @@ async function main() {
   const { loadCaller } = await import("../../lib/auth/load-caller");
   const { createBlock } = await import("../../lib/blocks/create");
   const { addVersion } = await import("../../lib/blocks/versions");
+  const { contextFor } = await import("../../lib/context");
   const { MembershipSchema, TeamSchema, UserSchema } = await import("../../entities");
   try {
     await migrateUp();
@@ -66,12 +67,12 @@ async function main() {
       ["simulated Wien oscillator (20 ms tran, no cache hits)", (s: string, v: string) => wienBlock(s, v), (i: number) => `${(22 + i * 0.01).toFixed(2)} kohm`],
     ] as const) {
       const slug = kind.startsWith("expr") ? "lat-divider" : "lat-wien";
-      const first = await createBlock(caller, { teamSlug: "bench", text: make(slug, values(0)) });
+      const first = await createBlock(await contextFor(caller), { team: "bench", text: make(slug, values(0)) });
       await waitDone(first.run.id);
       const times: number[] = [];
       for (let i = 1; i <= LATENCY_SAMPLES; i++) {
         const t0 = performance.now();
-        const r = await addVersion(caller, slug, { params: kind.startsWith("expr") ? { R2: values(i) } : { Rf: values(i) }, baseVersion: i });
+        const r = await addVersion(await contextFor(caller), { slug, params: kind.startsWith("expr") ? { R2: values(i) } : { Rf: values(i) }, baseVersion: i });
         await waitDone(r.run.id);
         times.push(performance.now() - t0);
       }
@@ -95,7 +96,7 @@ async function main() {
     // 2. Throughput on a queue of 200 stored versions (expression-only), one worker, then two.
     const rates: number[] = [];
     for (const n of [1, 2]) {
-      for (let i = 0; i < QUEUED; i++) await createBlock(caller, { teamSlug: "bench", text: dividerBlock(`q${n}-${i}`, `${(9 + (i % 100) * 0.02).toFixed(2)} kohm`) });
+      for (let i = 0; i < QUEUED; i++) await createBlock(await contextFor(caller), { team: "bench", text: dividerBlock(`q${n}-${i}`, `${(9 + (i % 100) * 0.02).toFixed(2)} kohm`) });
       await Promise.all(Array.from({ length: n }, (_, k) => startWorker(`tp-${n}-${k}`)));
       const t0 = performance.now();
       let done = 0;
@@ -119,11 +120,11 @@ async function main() {
     for (const n of [1, 2]) {
       await Promise.all(Array.from({ length: n }, (_, k) => startWorker(`fan-${n}-${k}`)));
       // One short run per worker first, so every worker and its sandbox child is warm when the timed run arrives.
-      const warm = await Promise.all(Array.from({ length: n }, (_, k) =>
-        createBlock(caller, { teamSlug: "bench", text: wienBlock(`fan-warm-${n}-${k}`, `${(21 + n * 0.01 + k * 0.001).toFixed(3)} kohm`) })));
+      const warm = await Promise.all(Array.from({ length: n }, async (_, k) =>
+        createBlock(await contextFor(caller), { team: "bench", text: wienBlock(`fan-warm-${n}-${k}`, `${(21 + n * 0.01 + k * 0.001).toFixed(3)} kohm`) })));
       for (const w of warm) await waitDone(w.run.id);
       const t0 = performance.now();
-      const r = await createBlock(caller, { teamSlug: "bench", text: wienMonteCarloBlock(`fan-${n}`, `${(22 + n * 0.01).toFixed(2)} kohm`, 64) });
+      const r = await createBlock(await contextFor(caller), { team: "bench", text: wienMonteCarloBlock(`fan-${n}`, `${(22 + n * 0.01).toFixed(2)} kohm`, 64) });
       await waitDone(r.run.id);
       const s = (performance.now() - t0) / 1000;
       const conn = (await getEm()).getConnection();

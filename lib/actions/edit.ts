@@ -5,20 +5,18 @@ import { revalidatePath } from "next/cache";
 import { z } from "zod";
 import { slugSchema } from "@/lib/validation/api";
 import { parseBlock, type BlockError } from "@/checks";
-import { getCaller } from "@/lib/auth/session";
-import { actionContext } from "@/lib/next-context";
 import { addVersion } from "@/lib/blocks/versions";
+import { actionContext } from "@/lib/next-context";
+import { editFormSchema, MAX_BLOCK_FILE } from "@/lib/validation/blocks";
 import { previewDraftFile } from "@/lib/runs/preview";
 import { AppError, isAppError } from "@/lib/errors";
 import { failure, type FormState } from "@/lib/actions/form-state";
-
-const MAX_FILE = 256 * 1024;
 
 /** The engine's word on a draft file, with line numbers: parse errors first, else the preview's errors and checks. */
 export async function checkDraftAction(text: string, slug: string): Promise<{ errors: BlockError[]; failing: string[] }> {
   const ctx = await actionContext();
   if (!ctx.caller.user) return { errors: [{ message: "sign in to check a draft" }], failing: [] };
-  const draft = String(text ?? "").slice(0, MAX_FILE);
+  const draft = String(text ?? "").slice(0, MAX_BLOCK_FILE);
   const { errors } = parseBlock(draft);
   if (errors.length) return { errors, failing: [] };
   // The block's team decides which model files its includes name.
@@ -31,22 +29,14 @@ export async function checkDraftAction(text: string, slug: string): Promise<{ er
   };
 }
 
-const editForm = z.object({
-  slug: slugSchema,
-  baseVersion: z.coerce.number().int().min(1),
-  // Browsers send a textarea's line ends as CRLF; block files use LF.
-  text: z.string().transform((t) => t.replace(/\r\n?/g, "\n")).pipe(z.string().min(1, "the block file is empty").max(MAX_FILE, "the block file is larger than 256 KiB")),
-  message: z.string().trim().max(2000).optional(),
-});
-
 export async function saveEditAction(_prev: FormState, form: FormData): Promise<FormState> {
-  const parsed = editForm.safeParse(Object.fromEntries(form));
+  const parsed = editFormSchema.safeParse(Object.fromEntries(form));
   if (!parsed.success) return { ok: false, message: "The file could not be saved.", errors: z.flattenError(parsed.error).fieldErrors as Record<string, string[]> };
-  const caller = await getCaller();
-  if (!caller.user) return { ok: false, message: "Sign in to save." };
+  const ctx = await actionContext();
+  if (!ctx.caller.user) return { ok: false, message: "Sign in to save." };
   const { slug, baseVersion, text, message } = parsed.data;
   try {
-    await addVersion(caller, slug, { text, baseVersion, message: message || "edited" });
+    await addVersion(ctx, { slug, text, baseVersion, message: message || "edited" });
   } catch (err) {
     if (isAppError(err) && err.code === "conflict") {
       const head = (err.extra as { head?: number }).head;

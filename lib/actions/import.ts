@@ -4,13 +4,13 @@ import { redirect } from "next/navigation";
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
 import { importNetlist } from "@/checks";
-import { contextFor } from "@/lib/context";
 import { addAttachment, MAX_ATTACHMENT_BYTES } from "@/lib/attachments/attachments";
 import { getCaller } from "@/lib/auth/session";
 import { createBlock } from "@/lib/blocks/create";
+import { actionContext } from "@/lib/next-context";
+import { importFormSchema, MAX_BLOCK_FILE } from "@/lib/validation/blocks";
 import { failure, type FormState } from "@/lib/actions/form-state";
 
-const MAX_FILE = 256 * 1024;
 const NETLIST = /\.(cir|sp|net)$/i;
 const IMAGE = /\.(png|svg)$/i;
 
@@ -22,7 +22,7 @@ export async function convertNetlistAction(_prev: FormState, form: FormData): Pr
   if (!caller.user) return { ok: false, message: "Sign in to import." };
   const file = form.get("file");
   if (!isFile(file)) return { ok: false, message: "Choose a file.", errors: { file: ["Choose a block file (.md) or a SPICE netlist (.cir, .sp, .net)."] } };
-  if (file.size > MAX_FILE) return { ok: false, message: "That file is too large.", errors: { file: [`Files are at most 256 KiB; this one is ${Math.ceil(file.size / 1024)} KiB.`] } };
+  if (file.size > MAX_BLOCK_FILE) return { ok: false, message: "That file is too large.", errors: { file: [`Files are at most 256 KiB; this one is ${Math.ceil(file.size / 1024)} KiB.`] } };
   const text = (await file.text()).replace(/\r\n?/g, "\n");
   if (/\.md$/i.test(file.name)) return { ok: true, data: { blockText: text, dropped: [], fileName: file.name } };
   if (!NETLIST.test(file.name)) return { ok: false, message: "Unsupported file type.", errors: { file: [`"${file.name}" is neither a block file (.md) nor a SPICE netlist (.cir, .sp, .net).`] } };
@@ -31,30 +31,23 @@ export async function convertNetlistAction(_prev: FormState, form: FormData): Pr
   return { ok: true, message: "Converted: each part value is a parameter. Check values and tolerances, add a note, then create it.", lines: res.errors, data: { blockText: res.blockText, dropped: res.dropped, fileName: file.name, params: res.params } };
 }
 
-const createForm = z.object({
-  team: z.string().trim().min(1, "choose a team"),
-  visibility: z.enum(["team", "public"]),
-  // Browsers send a textarea's line ends as CRLF; block files use LF.
-  text: z.string().transform((t) => t.replace(/\r\n?/g, "\n")).pipe(z.string().min(1, "the block file is empty").max(MAX_FILE, "the block file is larger than 256 KiB")),
-});
-
 /** Step two: create the block from the (possibly edited) file, then attach the schematic images. */
 export async function createImportAction(_prev: FormState, form: FormData): Promise<FormState> {
-  const parsed = createForm.safeParse(Object.fromEntries([...form.entries()].filter(([, v]) => typeof v === "string")));
+  const parsed = importFormSchema.safeParse(Object.fromEntries([...form.entries()].filter(([, v]) => typeof v === "string")));
   if (!parsed.success) return { ok: false, message: "Some fields need attention.", errors: z.flattenError(parsed.error).fieldErrors as Record<string, string[]> };
   const images = form.getAll("images").filter(isFile);
   for (const img of images) {
     if (!IMAGE.test(img.name)) return { ok: false, message: "Unsupported image.", errors: { images: [`"${img.name}" is not a PNG or SVG image.`] } };
     if (img.size > MAX_ATTACHMENT_BYTES) return { ok: false, message: "An image is too large.", errors: { images: [`"${img.name}" is ${Math.ceil(img.size / 1024)} KiB; images are at most 1 MiB.`] } };
   }
-  const caller = await getCaller();
-  if (!caller.user) return { ok: false, message: "Sign in to import." };
+  const ctx = await actionContext();
+  if (!ctx.caller.user) return { ok: false, message: "Sign in to import." };
   let slug: string;
   try {
-    slug = (await createBlock(caller, { teamSlug: parsed.data.team, text: parsed.data.text, visibility: parsed.data.visibility, message: "imported" })).slug;
+    slug = (await createBlock(ctx, { ...parsed.data, message: "imported" })).slug;
     for (const img of images) {
       const type = img.name.toLowerCase().endsWith(".svg") ? "image/svg+xml" : "image/png";
-      await addAttachment(await contextFor(caller), { slug, name: img.name.toLowerCase(), contentType: type, bytes: new Uint8Array(await img.arrayBuffer()) });
+      await addAttachment(ctx, { slug, name: img.name.toLowerCase(), contentType: type, bytes: new Uint8Array(await img.arrayBuffer()) });
     }
   } catch (err) {
     return { ...failure(err), data: { blockText: parsed.data.text } };

@@ -24,7 +24,7 @@ export async function saveRetuneAction(_prev: FormState, form: FormData): Promis
       ? await forkBlock(ctx, {
           source: d.source, fromVersion: d.fromVersion, params: d.params, slug: d.newSlug || undefined, title: d.title || undefined, team: d.team || undefined, message: d.message || undefined,
         })
-      : await addVersion(ctx.caller, d.source, { params: d.params, baseVersion: d.fromVersion, message: d.message || "retuned" });
+      : await addVersion(ctx, { slug: d.source, params: d.params, baseVersion: d.fromVersion, message: d.message || "retuned" });
     target = `/blocks/${res.slug}`;
   } catch (err) {
     return failure(err, { slug: d.saveAs === "fork" ? "newSlug" : undefined });

@@ -1,15 +1,13 @@
 import { BlockSchema, type Visibility } from "@/entities";
-import type { Caller } from "@/lib/auth/caller";
-import { getEm } from "@/lib/db/orm";
-import { AppError } from "@/lib/errors";
+import type { Ctx } from "@/lib/context";
 import { writeEvent } from "@/lib/outbox/outbox";
+import type { BlockInput, VisibilityInput } from "@/lib/validation/blocks";
 import { loadBlock } from "./common";
 import { blockEventBase } from "./events";
 
 /** Archived blocks stay readable (links keep working) but leave lists and search and take no new versions. */
-export async function archiveBlock(caller: Caller, slug: string): Promise<{ slug: string; archived: true }> {
-  const em = await getEm();
-  const block = await loadBlock(em, caller, slug, "block.archive");
+export async function archiveBlock({ em, caller }: Ctx, input: BlockInput): Promise<{ slug: string; archived: true }> {
+  const block = await loadBlock(em, caller, input.slug, "block.archive");
   if (block.archived) return { slug: block.slug, archived: true };
   await em.transactional(async (tx) => {
     const b = await tx.findOneOrFail(BlockSchema, { id: block.id }, { populate: ["team", "head"] });
@@ -20,10 +18,9 @@ export async function archiveBlock(caller: Caller, slug: string): Promise<{ slug
 }
 
 /** Team-only or readable by anyone; a maintainer's decision, as it publishes the team's work. */
-export async function setVisibility(caller: Caller, slug: string, visibility: Visibility): Promise<{ slug: string; visibility: Visibility }> {
-  if (visibility !== "team" && visibility !== "public") throw new AppError("validation", "visibility is team or public");
-  const em = await getEm();
-  const block = await loadBlock(em, caller, slug, "block.publish");
+export async function setVisibility({ em, caller }: Ctx, input: VisibilityInput): Promise<{ slug: string; visibility: Visibility }> {
+  const { visibility } = input;
+  const block = await loadBlock(em, caller, input.slug, "block.publish");
   if (block.visibility === visibility) return { slug: block.slug, visibility };
   await em.transactional(async (tx) => {
     const b = await tx.findOneOrFail(BlockSchema, { id: block.id }, { populate: ["team", "head"] });

@@ -1,26 +1,23 @@
 import { UniqueConstraintViolationException } from "@mikro-orm/core";
-import { BlockSchema, TeamSchema, type Visibility } from "@/entities";
-import type { Caller } from "@/lib/auth/caller";
+import { BlockSchema, TeamSchema } from "@/entities";
 import { assertCan } from "@/lib/auth/permissions";
-import { getEm } from "@/lib/db/orm";
+import type { Ctx } from "@/lib/context";
 import { AppError } from "@/lib/errors";
+import type { NewBlockInput } from "@/lib/validation/blocks";
 import { parseOrThrow, requireUser } from "./common";
 import { defaultTeam } from "./team-default";
 import { storeVersion, type StoredResult } from "./store";
 
+export type { NewBlockInput };
+
 /** A new block from a block file: version 1, its run queued in the same transaction. */
-export async function createBlock(
-  caller: Caller,
-  input: { teamSlug?: string; text: string; visibility?: Visibility; message?: string },
-): Promise<StoredResult> {
+export async function createBlock({ em, caller }: Ctx, input: NewBlockInput): Promise<StoredResult> {
   const user = requireUser(caller);
-  const em = await getEm();
-  const teamSlug = input.teamSlug ?? defaultTeam(caller);
-  const team = await em.findOne(TeamSchema, { slug: String(teamSlug) });
+  const teamSlug = input.team ?? defaultTeam(caller);
+  const team = await em.findOne(TeamSchema, { slug: teamSlug });
   if (!team) throw new AppError("not_found", `no team "${teamSlug}"`);
   assertCan(caller, "block.create", { kind: "team", teamId: team.id });
   const visibility = input.visibility ?? "team";
-  if (visibility !== "team" && visibility !== "public") throw new AppError("validation", "visibility is team or public");
   if (visibility === "public") assertCan(caller, "block.publish", { kind: "team", teamId: team.id });
   const parsed = parseOrThrow(input.text);
   try {

@@ -1,34 +1,25 @@
 import { UniqueConstraintViolationException } from "@mikro-orm/core";
 import { unitChanges, withParams } from "@/checks";
 import { BlockSchema, BlockVersionSchema } from "@/entities";
-import type { Caller } from "@/lib/auth/caller";
-import { getEm } from "@/lib/db/orm";
+import type { Ctx } from "@/lib/context";
 import { AppError } from "@/lib/errors";
+import type { NewVersionInput } from "@/lib/validation/blocks";
 import { engineInputError, loadBlock, parseOrThrow, requireUser, sha256 } from "./common";
 import { storeVersion, type StoredResult } from "./store";
 
-export interface NewVersionInput {
-  /** A whole new block file; with `params` too, the values are put into it. */
-  text?: string;
-  /** New parameter values only: applied to the base version's file. */
-  params?: Record<string, string>;
-  /** The version the edit started from; anything else than the current head is refused. */
-  baseVersion: number;
-  message?: string;
-}
+export type { NewVersionInput };
 
 /**
  * A new version on top of `baseVersion`. Optimistic concurrency, made race-proof: the block row is locked
  * (SELECT … FOR UPDATE) inside the transaction, so of two saves on the same base exactly one moves the head and
  * the other sees the new head and gets a conflict; the unique (block, number) index is the backstop.
  */
-export async function addVersion(caller: Caller, slug: string, input: NewVersionInput): Promise<StoredResult> {
+export async function addVersion({ em, caller }: Ctx, input: NewVersionInput): Promise<StoredResult> {
   const user = requireUser(caller);
-  const em = await getEm();
-  const block = await loadBlock(em, caller, slug, "block.edit");
+  const block = await loadBlock(em, caller, input.slug, "block.edit");
   if (block.archived) throw new AppError("conflict", "the block is archived", { type: "archived", head: block.head?.number ?? 0 });
-  const base = Number(input.baseVersion);
-  if (!Number.isInteger(base) || base < 1) throw new AppError("validation", "baseVersion must be a version number");
+  const base = input.baseVersion;
+  // Each edge sends one of the two (the JSON route and the fork page values, the file route and the edit page a file).
   if (input.text === undefined && !input.params) throw new AppError("validation", "send a block file or new parameter values");
   const baseRow = await em.findOne(BlockVersionSchema, { block, number: base });
   if (!baseRow) throw stale(block.head?.number ?? 0);
@@ -71,7 +62,7 @@ export async function addVersion(caller: Caller, slug: string, input: NewVersion
     });
   } catch (err) {
     if (err instanceof UniqueConstraintViolationException) {
-      const now = await (await getEm()).findOne(BlockSchema, { id: block.id }, { populate: ["head"] });
+      const now = await em.findOne(BlockSchema, { id: block.id }, { populate: ["head"], refresh: true });
       throw stale(now?.head?.number ?? base);
     }
     throw err;

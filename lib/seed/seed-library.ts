@@ -54,14 +54,14 @@ export async function seedLibrary(em: EntityManager): Promise<{ created: number 
     if (await exists(slug)) continue;
     try {
       // Authors create; publishing is a maintainer's decision (the roles table), made just below.
-      await createBlock(author, { teamSlug: "fenwick", text, message: "imported from the bench notebook" });
+      await createBlock(await contextFor(author), { team: "fenwick", text, message: "imported from the bench notebook" });
       created++;
     } catch (err) {
       console.warn(`[assay] seed: ${file} was not imported: ${(err as Error).message}`);
     }
   }
   for (const slug of PUBLIC) {
-    if (await exists(slug)) await setVisibility(maintainer, slug, "public");
+    if (await exists(slug)) await setVisibility(await contextFor(maintainer), { slug, visibility: "public" });
   }
   if ((await exists(FORK.from)) && !(await exists(FORK.slug))) {
     await forkBlock(await contextFor(author), { source: FORK.from, slug: FORK.slug, title: FORK.title, params: FORK.params });
@@ -69,7 +69,7 @@ export async function seedLibrary(em: EntityManager): Promise<{ created: number 
   }
   const retuned = await em.fork().findOne(BlockSchema, { slug: RETUNE.slug }, { populate: ["head"] });
   if (retuned?.head?.number === 1) {
-    await addVersion(author, RETUNE.slug, { params: RETUNE.params, baseVersion: 1, message: RETUNE.message });
+    await addVersion(await contextFor(author), { slug: RETUNE.slug, params: RETUNE.params, baseVersion: 1, message: RETUNE.message });
   }
   const approved = await em.fork().findOne(BlockSchema, { slug: APPROVE.slug });
   if (approved) {

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { CATEGORIES } from "@/entities/block.entity";
+import { CATEGORIES, VISIBILITIES } from "@/entities/block.entity";
 import { BADGES } from "@/lib/badges/badges";
 import { cursorSchema, limitSchema, slugSchema, storedText, teamSlugSchema, versionNumberSchema } from "./api";
 
@@ -7,6 +7,9 @@ import { cursorSchema, limitSchema, slugSchema, storedText, teamSlugSchema, vers
 
 export const badgeSchema = z.enum(BADGES).meta({ description: "State of one version's checks" }).openapi("Badge");
 export const categorySchema = z.enum(CATEGORIES);
+export const visibilitySchema = z.enum(VISIBILITIES);
+/** A block file is at most 256 KiB (the API counts bytes; a form, characters). */
+export const MAX_BLOCK_FILE = 256 * 1024;
 export const E_SERIES = ["E3", "E6", "E12", "E24", "E48", "E96", "E192"] as const;
 
 const identifier = z
@@ -95,11 +98,51 @@ export const retuneBodySchema = z.strictObject({
 
 export const createQuerySchema = z.object({
   team: teamSlugSchema.optional().meta({ description: "Team that owns the block (default: a token's own team, or the caller's only team)" }),
-  visibility: z.enum(["team", "public"]).optional(),
+  visibility: visibilitySchema.optional(),
 });
 export const fileVersionQuerySchema = z.object({
   baseVersion: versionNumberSchema,
   message: storedText(2000).optional(),
+});
+
+/** What createBlock takes: the create route's query, the block file (the engine judges it) and why it was made. */
+export const newBlockSchema = createQuerySchema.extend({
+  text: z.string(),
+  message: storedText(2000).optional(),
+});
+
+/**
+ * What addVersion takes: a whole new file (the file route: its query and body), or new values put into the base
+ * version's file (the JSON route, the fork page's "as the next version"), on top of `baseVersion`.
+ */
+export const newVersionSchema = fileVersionQuerySchema.extend({
+  slug: slugSchema,
+  text: z.string().optional(),
+  params: paramValuesSchema.optional(),
+});
+
+/** Team-only or readable by anyone: what setVisibility takes. */
+export const visibilityInputSchema = blockInputSchema.extend({ visibility: visibilitySchema });
+
+/** A block file typed into a form: browsers send a textarea's line ends as CRLF; block files use LF. */
+const formBlockFile = z
+  .string()
+  .transform((t) => t.replace(/\r\n?/g, "\n"))
+  .pipe(z.string().min(1, "the block file is empty").max(MAX_BLOCK_FILE, "the block file is larger than 256 KiB"));
+
+/** The import page's last step: create the block from the (possibly edited) file. */
+export const importFormSchema = newBlockSchema.extend({
+  team: z.string().trim().min(1, "choose a team"),
+  visibility: visibilitySchema,
+  text: formBlockFile,
+});
+
+/** The edit page's form: a whole new file on top of the version it was opened at. */
+export const editFormSchema = z.object({
+  slug: slugSchema,
+  baseVersion: z.coerce.number().int().min(1),
+  text: formBlockFile,
+  message: z.string().trim().max(2000).optional(),
 });
 export const formatQuerySchema = z.object({
   format: z.enum(["json", "md", "spice"]).default("json").meta({ description: "json (default), md = the block file, spice = a runnable deck" }),
@@ -129,5 +172,8 @@ export type EvaluateBody = z.infer<typeof evaluateBodySchema>;
 export type DraftRunBody = z.infer<typeof draftRunBodySchema>;
 export type RetuneBody = z.infer<typeof retuneBodySchema>;
 export type SearchQuery = z.infer<typeof searchQuerySchema>;
+export type NewBlockInput = z.infer<typeof newBlockSchema>;
+export type NewVersionInput = z.infer<typeof newVersionSchema>;
+export type VisibilityInput = z.infer<typeof visibilityInputSchema>;
 /** The search as a form or an address holds it (strings), before the schema coerces it. */
 export type SearchFilters = Omit<z.input<typeof searchQuerySchema>, "limit" | "cursor">;

@@ -23,7 +23,7 @@ describe("block read path", () => {
   it("gives the same view and lineage as getBlock and getLineage, checked against the stored rows", async () => {
     const { team, tag, callers } = await makeTeam(["author", "maintainer"]);
     const slug = `read-${tag}`;
-    await createBlock(callers.maintainer, { teamSlug: team.slug, text: rcBlock(slug), visibility: "public" });
+    await createBlock(await contextFor(callers.maintainer), { team: team.slug, text: rcBlock(slug), visibility: "public" });
     const read = await getBlockWithLineage(await contextFor(callers.maintainer), { slug });
     const view = await read.view();
     expect(view).toEqual(await getBlock(await contextFor(callers.maintainer), { slug }));
@@ -44,8 +44,8 @@ describe("block read path", () => {
     const { team, tag, callers } = await makeTeam(["author", "maintainer"]);
     const slug = `etag-${tag}`;
     // The author writes it; a maintainer publishes it (DESIGN.md, Roles) and, not being its author, may approve it.
-    await createBlock(callers.author, { teamSlug: team.slug, text: rcBlock(slug) });
-    await setVisibility(callers.maintainer, slug, "public");
+    await createBlock(await contextFor(callers.author), { team: team.slug, text: rcBlock(slug) });
+    await setVisibility(await contextFor(callers.maintainer), { slug, visibility: "public" });
     const seen = new Set<string>();
     const fresh = async (why: string) => {
       const e = await etagOf(callers.maintainer, slug, 1);
@@ -69,12 +69,12 @@ describe("block read path", () => {
     await fresh("forked");
     const forkEtag = await etagOf(callers.maintainer, fork.slug);
 
-    await addVersion(callers.author, slug, { params: { R: "4.7 kohm" }, baseVersion: 1, message: "new value" });
+    await addVersion(await contextFor(callers.author), { slug, params: { R: "4.7 kohm" }, baseVersion: 1, message: "new value" });
     await fresh("a second version moves headVersion");
     expect((await getLineage(await contextFor(callers.maintainer), { slug: fork.slug })).parentNewerVersions).toBe(1);
     expect(await etagOf(callers.maintainer, fork.slug), "the parent gained a version").not.toBe(forkEtag);
 
-    await archiveBlock(callers.maintainer, fork.slug);
+    await archiveBlock(await contextFor(callers.maintainer), { slug: fork.slug });
     expect((await getLineage(await contextFor(callers.maintainer), { slug })).forks).toEqual([]);
     await fresh("the fork was archived");
   });
@@ -82,7 +82,7 @@ describe("block read path", () => {
   it("depends on who asks: a team fork of a public block is in the lineage only for its team", async () => {
     const { team, tag, callers } = await makeTeam(["author", "maintainer"]);
     const slug = `who-${tag}`;
-    await createBlock(callers.maintainer, { teamSlug: team.slug, text: rcBlock(slug), visibility: "public" });
+    await createBlock(await contextFor(callers.maintainer), { team: team.slug, text: rcBlock(slug), visibility: "public" });
     const before = await etagOf(anonymous, slug);
     await forkBlock(await contextFor(callers.author), { source: slug, slug: `who-fork-${tag}` });
     const member = await getBlockWithLineage(await contextFor(callers.author), { slug });

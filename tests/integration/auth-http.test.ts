@@ -3,6 +3,7 @@ import { readFileSync } from "node:fs";
 import { loadCaller } from "@/lib/auth/load-caller";
 import { requestSignInLink } from "@/lib/auth/sign-in";
 import { createBlock } from "@/lib/blocks/create";
+import { contextFor } from "@/lib/context";
 import { closeOrm, getEm } from "@/lib/db/orm";
 import { startApp, type AppServer } from "../support/app-server";
 import { CookieJar } from "../support/cookie-jar";
@@ -40,7 +41,7 @@ describe("sign-in over HTTP", () => {
   it("signs in with a password: an HttpOnly session cookie that pages and the API accept, then signs out", async () => {
     const { people, slug: team, tag } = await makeTeam(["author"]);
     const text = readFileSync("content/blocks/rc-lowpass-antialias.md", "utf8").replace(/^slug: .*$/m, `slug: http-${tag}`);
-    const { slug } = await createBlock(await loadCaller(await getEm(), people[0].id), { teamSlug: team, text });
+    const { slug } = await createBlock(await contextFor(await loadCaller(await getEm(), people[0].id)), { team, text });
     const jar = new CookieJar();
     const res = await post(jar, "/api/auth/callback/password", { email: people[0].email, password: PASSWORD });
     expect(res.status).toBe(200);
@@ -71,7 +72,7 @@ describe("sign-in over HTTP", () => {
   it("ends the session on the server at sign-out: a kept copy of the old cookie is nobody", async () => {
     const { people, slug: team, tag } = await makeTeam(["author"]);
     const text = readFileSync("content/blocks/rc-lowpass-antialias.md", "utf8").replace(/^slug: .*$/m, `slug: out-${tag}`);
-    const { slug } = await createBlock(await loadCaller(await getEm(), people[0].id), { teamSlug: team, text });
+    const { slug } = await createBlock(await contextFor(await loadCaller(await getEm(), people[0].id)), { team, text });
     const jar = new CookieJar();
     await post(jar, "/api/auth/callback/password", { email: people[0].email, password: PASSWORD });
     const kept = jar.header(); // what someone who copied the cookie before sign-out would replay

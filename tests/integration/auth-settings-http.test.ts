@@ -4,6 +4,7 @@ import { ApiTokenSchema, InvitationSchema, MembershipSchema } from "@/entities";
 import { inviteMember } from "@/lib/auth/invitations";
 import { loadCaller } from "@/lib/auth/load-caller";
 import { createBlock } from "@/lib/blocks/create";
+import { contextFor } from "@/lib/context";
 import { createToken } from "@/lib/tokens/tokens";
 import { contextFor } from "@/lib/context";
 import { closeOrm, getEm } from "@/lib/db/orm";
@@ -78,7 +79,7 @@ describe("changing a password over HTTP", () => {
     const { people, slug: team, tag } = await makeTeam(["author"]);
     const me = people[0];
     const text = readFileSync("content/blocks/rc-lowpass-antialias.md", "utf8").replace(/^slug: .*$/m, `slug: pw-${tag}`);
-    const { slug } = await createBlock(await loadCaller(await getEm(), me.id), { teamSlug: team, text });
+    const { slug } = await createBlock(await contextFor(await loadCaller(await getEm(), me.id)), { team, text });
 
     const laptop = new Browser();
     const phone = new Browser();

@@ -12,7 +12,7 @@ let team: TestTeam;
 const slug = () => `att-${team.tag}`;
 beforeAll(async () => {
   team = await makeTeam();
-  await createBlock(team.author, { teamSlug: team.slug, text: dividerBlock(slug()) });
+  await createBlock(await contextFor(team.author), { team: team.slug, text: dividerBlock(slug()) });
 });
 afterAll(async () => { await drain(team); await closeOrm(); });
 const code = (p: Promise<unknown>) => p.then(() => "ok", (e: AppError) => e.code);

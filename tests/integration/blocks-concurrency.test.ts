@@ -17,13 +17,13 @@ afterAll(closeOrm);
 describe("optimistic concurrency on the head", () => {
   it("of concurrent saves on the same base exactly one wins; the others get a conflict naming the new head", async () => {
     const slug = `race-${team.tag}`;
-    await createBlock(team.author, { teamSlug: team.slug, text: dividerBlock(slug) });
+    await createBlock(await contextFor(team.author), { team: team.slug, text: dividerBlock(slug) });
     const values = ["10.2 kohm", "10.5 kohm", "9.1 kohm", "9.5 kohm", "10.7 kohm", "9.7 kohm", "10.9 kohm", "9.3 kohm"];
     let base = 1;
     for (let round = 0; round < 4; round++) {
       const width = round === 3 ? 4 : 2;
-      const tries = values.slice(round * 2, round * 2 + width).map((R2, i) =>
-        addVersion(i % 2 ? team.maintainer : team.author, slug, { params: { R2 }, baseVersion: base }).then(
+      const tries = values.slice(round * 2, round * 2 + width).map(async (R2, i) =>
+        addVersion(await contextFor(i % 2 ? team.maintainer : team.author), { slug, params: { R2 }, baseVersion: base }).then(
           (r) => ({ ok: true as const, version: r.version }),
           (e: AppError) => ({ ok: false as const, code: e.code, head: e.extra?.head }),
         ));
@@ -41,7 +41,7 @@ describe("optimistic concurrency on the head", () => {
     // Every stored version got exactly one run, in the same transaction.
     for (const v of versions) expect(await em.count(CheckRunSchema, { version: v })).toBe(1);
     expect((await getBlock(await contextFor(team.viewer), { slug })).version).toBe(5);
-    const stale = await addVersion(team.author, slug, { params: { R2: "10 kohm" }, baseVersion: 3 }).catch((e: AppError) => e);
+    const stale = await addVersion(await contextFor(team.author), { slug, params: { R2: "10 kohm" }, baseVersion: 3 }).catch((e: AppError) => e);
     expect((stale as AppError).code).toBe("conflict");
     expect((stale as AppError).extra.head).toBe(5);
     await drain(team);

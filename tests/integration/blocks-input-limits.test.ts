@@ -21,7 +21,7 @@ const file = (slug: string) => contentBlock("rc-lowpass-antialias.md", slug);
 
 describe("input the database cannot hold", () => {
   it("refuses a 101-character slug in a block file, naming the field and its line", async () => {
-    const e = await refusal(createBlock(team.author, { teamSlug: team.slug, text: file("a".repeat(101)) }));
+    const e = await refusal(createBlock(await contextFor(team.author), { team: team.slug, text: file("a".repeat(101)) }));
     expect(e.code).toBe("validation");
     expect(e.extra.errors[0]).toMatchObject({ path: "slug", line: 2 });
   });
@@ -34,7 +34,7 @@ describe("input the database cannot hold", () => {
       ["title", base.replace(/^title: (.*)$/m, "title: $1\u0000")],
     ];
     for (const [field, text] of cases) {
-      const e = await refusal(createBlock(team.author, { teamSlug: team.slug, text }));
+      const e = await refusal(createBlock(await contextFor(team.author), { team: team.slug, text }));
       expect([e.code, e.extra.errors[0].path]).toEqual(["validation", field]);
     }
   });
@@ -48,15 +48,15 @@ describe("input the database cannot hold", () => {
 
   it("still stores a version whose message is plain text", async () => {
     const slug = `ok-${team.tag}`;
-    await createBlock(team.author, { teamSlug: team.slug, text: file(slug) });
-    await expect(addVersion(team.author, slug, { params: { R: "5.1 kohm" }, baseVersion: 1, message: "E24 neighbour" })).resolves.toMatchObject({ version: 2 });
+    await createBlock(await contextFor(team.author), { team: team.slug, text: file(slug) });
+    await expect(addVersion(await contextFor(team.author), { slug, params: { R: "5.1 kohm" }, baseVersion: 1, message: "E24 neighbour" })).resolves.toMatchObject({ version: 2 });
   });
 });
 
 describe("concurrent bare forks of one block", () => {
   it("all succeed, each with its own generated slug", async () => {
     const slug = `src-${team.tag}`;
-    await createBlock(team.author, { teamSlug: team.slug, text: file(slug) });
+    await createBlock(await contextFor(team.author), { team: team.slug, text: file(slug) });
     const results = await Promise.allSettled(Array.from({ length: 20 }, async () => forkBlock(await contextFor(team.author), { source: slug })));
     const failed = results.filter((r) => r.status === "rejected").map((r) => (r as PromiseRejectedResult).reason.message);
     expect(failed).toEqual([]);

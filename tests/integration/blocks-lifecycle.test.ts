@@ -27,7 +27,7 @@ const events = async (kind: string, slug: string) =>
 describe("create, fork, run, badge", () => {
   it("a Wien bridge with loop gain above one verifies; a fork that pushes it below one fails", async () => {
     const slug = `wien-${team.tag}`;
-    const created = await createBlock(team.author, { teamSlug: team.slug, text: wienFixture(slug) });
+    const created = await createBlock(await contextFor(team.author), { team: team.slug, text: wienFixture(slug) });
     expect(created).toMatchObject({ slug, version: 1, run: { status: "queued" } });
     expect((await getBlock(await contextFor(team.author), { slug })).badge).toBe("pending");
 
@@ -68,7 +68,7 @@ describe("create, fork, run, badge", () => {
   it("the content phase-shift oscillator forked below the Barkhausen gain of 29 turns failing", async () => {
     // Three-section RC ladder: the inverting amplifier needs |A| = Rf/R >= 29 (Sedra & Smith, 7th ed., phase-shift oscillator, from memory).
     const slug = `phase-${team.tag}`;
-    await createBlock(team.author, { teamSlug: team.slug, text: contentBlock("rc-phase-shift-oscillator.md", slug) });
+    await createBlock(await contextFor(team.author), { team: team.slug, text: contentBlock("rc-phase-shift-oscillator.md", slug) });
     const fork = await forkBlock(await contextFor(team.author), { source: slug, slug: `${slug}-270k`, params: { Rf: "270 kohm" } });
     await drain(team);
     expect((await getBlock(await contextFor(team.viewer), { slug })).badge).toBe("verified");
@@ -83,10 +83,10 @@ describe("create, fork, run, badge", () => {
 describe("versions, lineage and comparison", () => {
   it("numbers versions, moves the head forward, tells a fork its parent moved on, and compares", async () => {
     const slug = `wien2-${team.tag}`;
-    await createBlock(team.author, { teamSlug: team.slug, text: wienFixture(slug) });
+    await createBlock(await contextFor(team.author), { team: team.slug, text: wienFixture(slug) });
     const fork = await forkBlock(await contextFor(team.author), { source: slug });
     expect(fork.slug).toBe(`${slug}-fork`);
-    const v2 = await addVersion(team.author, slug, { params: { Rf: "18 kohm" }, baseVersion: 1, message: "lower gain" });
+    const v2 = await addVersion(await contextFor(team.author), { slug, params: { Rf: "18 kohm" }, baseVersion: 1, message: "lower gain" });
     expect(v2.version).toBe(2);
     await drain(team);
 
@@ -113,7 +113,7 @@ describe("versions, lineage and comparison", () => {
 
     // A new file: the script changes, and the text diff shows exactly that line.
     const text = withParams(wienFixture(slug), { Rf: "24 kohm" }).replace("loop_gain > 1.02", "loop_gain > 1.05");
-    const v3 = await addVersion(team.author, slug, { text, baseVersion: 2 });
+    const v3 = await addVersion(await contextFor(team.author), { slug, text, baseVersion: 2 });
     expect(v3.version).toBe(3);
     const cmp2 = await compareVersions(await contextFor(team.viewer), { slug, a: 2, b: 3 });
     expect(cmp2.script.filter((p) => p.added).map((p) => p.value)).toEqual(['check("loop gain above one at every corner", loop_gain > 1.05)\n']);
@@ -124,43 +124,43 @@ describe("versions, lineage and comparison", () => {
 
   it("refuses bad values and bad files before storing anything", async () => {
     const slug = `div-${team.tag}`;
-    await createBlock(team.author, { teamSlug: team.slug, text: wienFixture(slug) });
+    await createBlock(await contextFor(team.author), { team: team.slug, text: wienFixture(slug) });
     const count = async () => (await getEm()).count(CheckRunSchema, { version: { block: { slug } } } as never);
     const before = await count();
     const bads: { params?: Record<string, string>; text?: string }[] = [{ params: { Rf: "22 parsecs" } }, { params: { Nope: "1 kohm" } }, { params: { Rf: "22 V" } }, { text: "---\nslug: x\n---\nno frontmatter fields" },
       // DESIGN.md "Block file format": R/C/L positive; a whole new file may not change a parameter's dimension.
       { params: { Rf: "-5 kohm" } }, { text: wienFixture(slug).replace("{ name: Rf, value: 22 kohm", "{ name: Rf, value: 22 V") }];
     for (const bad of bads) {
-      const err = await addVersion(team.author, slug, { ...bad, baseVersion: 1 }).catch((e) => e);
+      const err = await addVersion(await contextFor(team.author), { slug, ...bad, baseVersion: 1 }).catch((e) => e);
       expect(err).toBeInstanceOf(AppError);
       expect((err as AppError).code).toBe("validation");
       expect(((err as AppError).extra.errors as unknown[]).length).toBeGreaterThan(0);
     }
     expect(await count()).toBe(before);
-    const redimensioned = await addVersion(team.author, slug, { text: wienFixture(slug).replace("{ name: Rf, value: 22 kohm", "{ name: Rf, value: 22 V"), baseVersion: 1 }).catch((e) => e);
+    const redimensioned = await addVersion(await contextFor(team.author), { slug, text: wienFixture(slug).replace("{ name: Rf, value: 22 kohm", "{ name: Rf, value: 22 V"), baseVersion: 1 }).catch((e) => e);
     expect((redimensioned as AppError).message).toMatch(/parameter "Rf" was in ohm; "22 V" is in V \(line \d+\)/);
     // A script line that does not parse could only earn an `error` badge: refused at its line, nothing stored.
     const broken = wienFixture(slug).replace("```check\n", "```check\nloop = (1 + Rf / Rg\n");
-    const unreadable = await addVersion(team.author, slug, { text: broken, baseVersion: 1 }).catch((e) => e);
+    const unreadable = await addVersion(await contextFor(team.author), { slug, text: broken, baseVersion: 1 }).catch((e) => e);
     expect((unreadable as AppError).code).toBe("validation");
     const line = broken.split("\n").indexOf("loop = (1 + Rf / Rg") + 1;
     expect((unreadable as AppError).extra.errors).toEqual([expect.objectContaining({ line })]);
     expect(await count()).toBe(before);
-    const same = await addVersion(team.author, slug, { params: { Rf: "22 kohm" }, baseVersion: 1 }).catch((e) => e);
+    const same = await addVersion(await contextFor(team.author), { slug, params: { Rf: "22 kohm" }, baseVersion: 1 }).catch((e) => e);
     expect((same as AppError).code).toBe("validation");
-    const dup = await createBlock(team.author, { teamSlug: team.slug, text: wienFixture(slug) }).catch((e) => e);
+    const dup = await createBlock(await contextFor(team.author), { team: team.slug, text: wienFixture(slug) }).catch((e) => e);
     expect((dup as AppError).code).toBe("conflict");
     await drain(team);
   });
 
   it("checks roles: viewers and other authors cannot edit, outsiders do not see team blocks", async () => {
     const slug = `roles-${team.tag}`;
-    await createBlock(team.author, { teamSlug: team.slug, text: wienFixture(slug) });
+    await createBlock(await contextFor(team.author), { team: team.slug, text: wienFixture(slug) });
     const code = (p: Promise<unknown>) => p.then(() => "ok", (e: AppError) => e.code);
-    expect(await code(addVersion(team.viewer, slug, { params: { Rf: "24 kohm" }, baseVersion: 1 }))).toBe("forbidden");
-    expect(await code(addVersion(team.author2, slug, { params: { Rf: "24 kohm" }, baseVersion: 1 }))).toBe("forbidden");
+    expect(await code(addVersion(await contextFor(team.viewer), { slug, params: { Rf: "24 kohm" }, baseVersion: 1 }))).toBe("forbidden");
+    expect(await code(addVersion(await contextFor(team.author2), { slug, params: { Rf: "24 kohm" }, baseVersion: 1 }))).toBe("forbidden");
     expect(await code(getBlock(await contextFor(team.outsider), { slug }))).toBe("not_found");
-    expect(await code(createBlock(team.viewer, { teamSlug: team.slug, text: wienFixture(`v-${slug}`) }))).toBe("forbidden");
+    expect(await code(createBlock(await contextFor(team.viewer), { team: team.slug, text: wienFixture(`v-${slug}`) }))).toBe("forbidden");
     // The block page offers Edit exactly to those the service above lets write a version.
     const offered = async (c: typeof team.author) => (await loadBlockPage(await contextFor(c), { slug })).allowed;
     expect(await offered(team.author)).toMatchObject({ edit: true, editThisVersion: true, attach: true, decide: false });
@@ -168,7 +168,7 @@ describe("versions, lineage and comparison", () => {
     expect(await offered(team.viewer)).toMatchObject({ edit: false, requestReview: false, decide: false });
     expect(await offered(team.maintainer)).toMatchObject({ edit: true, decide: true });
     expect(await code(loadBlockPage(await contextFor(team.outsider), { slug }))).toBe("not_found");
-    expect(await code(addVersion(team.maintainer, slug, { params: { Rf: "24 kohm" }, baseVersion: 1 }))).toBe("ok");
+    expect(await code(addVersion(await contextFor(team.maintainer), { slug, params: { Rf: "24 kohm" }, baseVersion: 1 }))).toBe("ok");
     const page = await loadBlockPage(await contextFor(team.author), { slug, version: 1 });
     expect(page).toMatchObject({ isHead: false, allowed: { edit: true, editThisVersion: false } });
     expect(page.versions.map((v) => v.version)).toEqual([2, 1]);

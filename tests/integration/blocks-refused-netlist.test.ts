@@ -26,20 +26,20 @@ async function failure(p: Promise<unknown>) {
 describe("a netlist the sanitiser refuses", () => {
   it("is refused at store with 422 and the line of .control", async () => {
     const text = withControl(`ctl-${team.tag}`);
-    const e = await failure(createBlock(team.author, { teamSlug: team.slug, text }));
+    const e = await failure(createBlock(await contextFor(team.author), { team: team.slug, text }));
     expect(e.code).toBe("validation");
     expect(e.extra.errors[0]).toEqual({ message: expect.stringMatching(/control blocks \(\.control\/\.endc\) are not allowed/), line: lineOf(text, ".control") });
   });
 
   it("is refused at store for a lone shell line too", async () => {
     const text = contentBlock("rc-lowpass-antialias.md", `sh-${team.tag}`).replace("C1 out 0 {C}\n", "C1 out 0 {C}\nshell rm -rf /\n");
-    const e = await failure(createBlock(team.author, { teamSlug: team.slug, text }));
+    const e = await failure(createBlock(await contextFor(team.author), { team: team.slug, text }));
     expect(e.extra.errors[0]).toEqual({ message: expect.stringMatching(/`shell` is not allowed/), line: lineOf(text, "shell") });
   });
 
   it("stored before the refusal existed, is not served as a deck", async () => {
     const slug = `old-${team.tag}`;
-    await createBlock(team.author, { teamSlug: team.slug, text: contentBlock("rc-lowpass-antialias.md", slug) });
+    await createBlock(await contextFor(team.author), { team: team.slug, text: contentBlock("rc-lowpass-antialias.md", slug) });
     expect(await spiceDeckText(await contextFor(team.viewer), { slug })).toMatch(/^R1 in out \{R\}$/m);
     const text = withControl(slug);
     await (await getEm()).nativeUpdate(BlockVersionSchema, { block: { slug }, number: 1 }, { text, contentHash: sha256(text) });
@@ -50,6 +50,6 @@ describe("a netlist the sanitiser refuses", () => {
 
   it("leaves an include of a model file to the run (the file is checked where it is stored)", async () => {
     const text = contentBlock("rc-lowpass-antialias.md", `inc-${team.tag}`).replace("C1 out 0 {C}\n", "C1 out 0 {C}\n.include not-uploaded-yet.lib\n");
-    await expect(createBlock(team.author, { teamSlug: team.slug, text })).resolves.toMatchObject({ version: 1 });
+    await expect(createBlock(await contextFor(team.author), { team: team.slug, text })).resolves.toMatchObject({ version: 1 });
   });
 });

@@ -24,7 +24,7 @@ describe("mail notifications from the outbox", () => {
     const { slug: team, people, tag } = await makeTeam(["author", "maintainer", "viewer", "admin"]);
     const [author, maintainer, watcher] = await Promise.all(people.map(async (p) => loadCaller(await getEm(), p.id)));
     const text = readFileSync("content/blocks/rc-lowpass-antialias.md", "utf8").replace(/^slug: .*$/m, `slug: notify-${tag}`);
-    const { slug } = await createBlock(author, { teamSlug: team, text });
+    const { slug } = await createBlock(await contextFor(author), { team, text });
     await watch(await contextFor(watcher), { slug });
     await drain();
 
@@ -65,11 +65,11 @@ describe("mail notifications from the outbox", () => {
     const { slug: team, people, tag } = await makeTeam(["author", "viewer"]);
     const [author, watcher] = await Promise.all(people.map(async (p) => loadCaller(await getEm(), p.id)));
     const text = readFileSync("content/blocks/rc-lowpass-antialias.md", "utf8").replace(/^slug: .*$/m, `slug: newver-${tag}`);
-    const { slug } = await createBlock(author, { teamSlug: team, text });
+    const { slug } = await createBlock(await contextFor(author), { team, text });
     await watch(await contextFor(watcher), { slug });
     await watch(await contextFor(author), { slug });
     await drain();
-    await addVersion(author, slug, { params: { R: "5.1 kohm" }, baseVersion: 1, message: "lower corner for the new ADC" });
+    await addVersion(await contextFor(author), { slug, params: { R: "5.1 kohm" }, baseVersion: 1, message: "lower corner for the new ADC" });
     await drain();
     const [m, ...more] = mailsTo(people[1].email).filter((x) => x.subject.startsWith("New version"));
     expect(more).toHaveLength(0);
@@ -83,7 +83,7 @@ describe("mail notifications from the outbox", () => {
     const { slug: team, people, tag } = await makeTeam(["admin", "viewer"]);
     const [admin, viewer] = await Promise.all(people.map(async (p) => loadCaller(await getEm(), p.id)));
     const text = readFileSync("content/blocks/rc-lowpass-antialias.md", "utf8").replace(/^slug: .*$/m, `slug: left-${tag}`);
-    const { slug } = await createBlock(admin, { teamSlug: team, text });
+    const { slug } = await createBlock(await contextFor(admin), { team, text });
     await watch(await contextFor(viewer), { slug });
     const em = await getEm();
     const block = await em.findOneOrFail(BlockSchema, { slug }, { populate: ["team", "head"] });

@@ -3,6 +3,7 @@ import { CheckRunSchema, ModelSchema } from "@/entities";
 import { createBlock } from "@/lib/blocks/create";
 import { forkBlock } from "@/lib/blocks/fork";
 import { getBlock } from "@/lib/blocks/read";
+import { contextFor } from "@/lib/context";
 import { closeOrm, getEm } from "@/lib/db/orm";
 import { AppError } from "@/lib/errors";
 import { getModel, listModels } from "@/lib/models/read";
@@ -64,7 +65,7 @@ describe("team model library", () => {
     const up = await uploadModel(await ctx(team.author), { team: team.slug, name, text: diode("2.52n"), message: "first" });
     expect(up).toMatchObject({ version: 1, reverify: [] });
     const slug = `drop-${team.tag}`;
-    const created = await createBlock(team.author, { teamSlug: team.slug, text: blockText(slug, name) });
+    const created = await createBlock(await contextFor(team.author), { team: team.slug, text: blockText(slug, name) });
     await drain(team);
     const run = await getRun(await contextFor(team.viewer), { id: created.run.id });
     expect(run.badge).toBe("verified");
@@ -101,7 +102,7 @@ describe("team model library", () => {
 
     // A public block of team A that includes it: readable by the outsider, but a fork into their team is refused.
     const source = `public-${team.tag}`;
-    await createBlock(team.maintainer, { teamSlug: team.slug, text: blockText(source, name), visibility: "public" }); // maintainers publish
+    await createBlock(await contextFor(team.maintainer), { team: team.slug, text: blockText(source, name), visibility: "public" }); // maintainers publish
     const err = await forkBlock(await ctx(team.outsider), { source, team: other }).catch((e) => e);
     expect(err).toBeInstanceOf(AppError);
     expect(err.code).toBe("validation");
@@ -110,7 +111,7 @@ describe("team model library", () => {
     expect(leaks({ message: err.message, extra: err.extra })).toEqual([]);
 
     // A block of the other team's own that names the file: its run stops with the file's name, and nothing else.
-    const own = await createBlock(team.outsider, { teamSlug: other, text: blockText(`leak-${team.tag}`, name) });
+    const own = await createBlock(await contextFor(team.outsider), { team: other, text: blockText(`leak-${team.tag}`, name) });
     await drain(team);
     const run = await getRun(await contextFor(team.outsider), { id: own.run.id });
     expect(run.badge).toBe("error");

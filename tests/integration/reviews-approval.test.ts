@@ -26,7 +26,7 @@ const code = (p: Promise<unknown>) => p.then(() => "ok", (e: AppError) => e.code
 describe("reviews", () => {
   it("approval belongs to one version, is reset by a new version, and nobody approves their own", async () => {
     const slug = `rev-${team.tag}`;
-    await createBlock(team.author, { teamSlug: team.slug, text: wienFixture(slug) });
+    await createBlock(await contextFor(team.author), { team: team.slug, text: wienFixture(slug) });
     await drain(team);
     const req = await requestReview(await contextFor(team.author), { slug, version: 1 });
     expect(req.created).toBe(true);
@@ -47,7 +47,7 @@ describe("reviews", () => {
     expect((await reviewQueue(await contextFor(team.maintainer))).some((q) => q.slug === slug)).toBe(false);
 
     // The maintainer writes version 2: it starts unapproved and they may not approve it themselves.
-    await addVersion(team.maintainer, slug, { params: { Rf: "24 kohm" }, baseVersion: 1 });
+    await addVersion(await contextFor(team.maintainer), { slug, params: { Rf: "24 kohm" }, baseVersion: 1 });
     const head = await getBlock(await contextFor(team.viewer), { slug });
     expect([head.version, head.approved]).toEqual([2, false]);
     expect((await getBlock(await contextFor(team.viewer), { slug, version: 1 })).approved).toBe(true);
@@ -67,14 +67,14 @@ describe("reviews", () => {
 describe("watches and the outbox", () => {
   it("watchers are named on new versions and on a head that turns failing", async () => {
     const slug = `watch-${team.tag}`;
-    await createBlock(team.author, { teamSlug: team.slug, text: wienFixture(slug) });
+    await createBlock(await contextFor(team.author), { team: team.slug, text: wienFixture(slug) });
     await drain(team);
     expect(await code(watch(await contextFor(team.outsider), { slug }))).toBe("not_found");
     await watch(await contextFor(team.viewer), { slug });
     await watch(await contextFor(team.viewer), { slug });
     expect(await isWatching(await contextFor(team.viewer), { slug })).toBe(true);
 
-    await addVersion(team.author, slug, { params: { Rf: "18 kohm" }, baseVersion: 1, message: "try less gain" });
+    await addVersion(await contextFor(team.author), { slug, params: { Rf: "18 kohm" }, baseVersion: 1, message: "try less gain" });
     const created = await lastEvent("version.created", slug);
     expect(created.payload).toMatchObject({
       slug, version: 2, team: team.slug, authorEmail: team.author.user!.email, badge: "pending", previousBadge: "verified",
@@ -93,17 +93,17 @@ describe("watches and the outbox", () => {
 
   it("archiving and publishing write events; public blocks are readable signed out", async () => {
     const slug = `pub-${team.tag}`;
-    await createBlock(team.author, { teamSlug: team.slug, text: wienFixture(slug) });
+    await createBlock(await contextFor(team.author), { team: team.slug, text: wienFixture(slug) });
     expect(await code(getBlock(await contextFor(anonymous), { slug }))).toBe("not_found");
-    expect(await code(setVisibility(team.author, slug, "public"))).toBe("forbidden");
-    await setVisibility(team.maintainer, slug, "public");
+    expect(await code(setVisibility(await contextFor(team.author), { slug, visibility: "public" }))).toBe("forbidden");
+    await setVisibility(await contextFor(team.maintainer), { slug, visibility: "public" });
     expect((await lastEvent("block.updated", slug)).payload).toMatchObject({ change: "visibility", visibility: "public", previous: "team" });
     expect((await getBlock(await contextFor(anonymous), { slug })).visibility).toBe("public");
     await drain(team);
     expect((await recentlyVerified(await contextFor(anonymous), 100)).map((b) => b.slug)).toContain(slug);
-    await archiveBlock(team.maintainer, slug);
+    await archiveBlock(await contextFor(team.maintainer), { slug });
     expect((await lastEvent("block.archived", slug)).payload).toMatchObject({ slug, archived: true });
-    expect(await code(addVersion(team.author, slug, { params: { Rf: "24 kohm" }, baseVersion: 1 }))).toBe("conflict");
+    expect(await code(addVersion(await contextFor(team.author), { slug, params: { Rf: "24 kohm" }, baseVersion: 1 }))).toBe("conflict");
     expect((await getBlock(await contextFor(team.viewer), { slug })).archived).toBe(true);
   });
 });

@@ -7,6 +7,7 @@ import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from "vitest
 await vi.hoisted(async () => { await (await import("./blocks-db")).usePrivateDatabase(); });
 import { CheckRunSchema, OutboxEventSchema } from "@/entities";
 import { createBlock } from "@/lib/blocks/create";
+import { contextFor } from "@/lib/context";
 import { closeOrm, getEm } from "@/lib/db/orm";
 import { getRun } from "@/lib/runs/runs";
 import { makeTeam, wienFixture, type TestTeam } from "./blocks-helpers";
@@ -85,7 +86,7 @@ describe("one verification spread over two workers", () => {
     const d = startWorker(`share-d-${team.tag}`);
     await Promise.all([c.ready, d.ready]);
     const slug = `share-${team.tag}`;
-    const { run } = await createBlock(team.author, { teamSlug: team.slug, text: slowWien(slug) });
+    const { run } = await createBlock(await contextFor(team.author), { team: team.slug, text: slowWien(slug) });
     const seen: { done: number; total: number }[] = [];
     const done = await until("the run to finish", async () => {
       seen.push((await getRun(await contextFor(team.viewer), { id: run.id })).progress);
@@ -107,7 +108,7 @@ describe("one verification spread over two workers", () => {
     expect(await openJobs(run.id)).toBe(0);
 
     // The same decks again (a new version of the same file): every simulation is a hit of the machine's cache.
-    const again = await createBlock(team.author, { teamSlug: team.slug, text: slowWien(slug).replace(`slug: ${slug}`, `slug: ${slug}-again`) });
+    const again = await createBlock(await contextFor(team.author), { team: team.slug, text: slowWien(slug).replace(`slug: ${slug}`, `slug: ${slug}-again`) });
     const second = await until("the second run", () => finished(again.run.id));
     expect(second.status).toBe("done");
     const hits = await results(again.run.id);
@@ -120,7 +121,7 @@ describe("one verification spread over two workers", () => {
     const workers = [startWorker(`kill-a-${team.tag}`), startWorker(`kill-b-${team.tag}`)];
     await Promise.all(workers.map((w) => w.ready));
     const slug = `kill-fan-${team.tag}`;
-    const { run } = await createBlock(team.author, { teamSlug: team.slug, text: slowWien(slug) });
+    const { run } = await createBlock(await contextFor(team.author), { team: team.slug, text: slowWien(slug) });
     // Kill the coordinating worker once both have brought simulations back and some are still to come.
     const coordinator = await until("both workers to have simulated", async () => {
       const rows = await results(run.id);
@@ -153,7 +154,7 @@ describe("one verification spread over two workers", () => {
   it("a run over the instance's cap ends with the error naming the cap, before anything is simulated", { timeout: 120_000 }, async () => {
     const w = startWorker(`cap-${team.tag}`, { ASSAY_RUN_MAX_SIMULATIONS: "3" });
     await w.ready;
-    const { run } = await createBlock(team.author, { teamSlug: team.slug, text: slowWien(`cap-${team.tag}`) });
+    const { run } = await createBlock(await contextFor(team.author), { team: team.slug, text: slowWien(`cap-${team.tag}`) });
     const done = await until("the run to finish", () => finished(run.id));
     const report = done.report as { status: string; errors: { message: string }[] };
     expect(report.status).toBe("error");

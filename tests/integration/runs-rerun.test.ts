@@ -18,7 +18,7 @@ const code = (p: Promise<unknown>) => p.then(() => "ok", (e: AppError) => e.code
 describe("verify again", () => {
   it("queues a manual run for a maintainer, once at a time, and refuses authors and viewers", async () => {
     const slug = `rerun-${team.tag}`;
-    await createBlock(team.author, { teamSlug: team.slug, text: dividerBlock(slug) });
+    await createBlock(await contextFor(team.author), { team: team.slug, text: dividerBlock(slug) });
     await drain(team);
     expect(await code(rerunVersion(await contextFor(team.author), { slug, version: 1 }))).toBe("forbidden");
     expect(await code(rerunVersion(await contextFor(team.viewer), { slug, version: 1 }))).toBe("forbidden");

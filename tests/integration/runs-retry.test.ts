@@ -28,7 +28,7 @@ describe("bounded retries", () => {
   it("a run whose workers keep dying is retried up to the limit, then ends as error with the reason", async () => {
     expect(MAX_ATTEMPTS).toBe(3);
     const slug = `ghost-${team.tag}`;
-    const { run } = await createBlock(team.author, { teamSlug: team.slug, text: wienFixture(slug) });
+    const { run } = await createBlock(await contextFor(team.author), { team: team.slug, text: wienFixture(slug) });
     // Three workers each lease the run and vanish without renewing or finishing.
     for (let i = 1; i <= MAX_ATTEMPTS; i++) {
       const claimed = await claimRun(await getEm(), `ghost-${i}`);
@@ -50,7 +50,7 @@ describe("bounded retries", () => {
 
   it("an engine time-out is retried, then the run ends as error naming the time limit", async () => {
     const slug = `slow-${team.tag}`;
-    const { run } = await createBlock(team.author, { teamSlug: team.slug, text: wienFixture(slug) });
+    const { run } = await createBlock(await contextFor(team.author), { team: team.slug, text: wienFixture(slug) });
     const outcomes: string[] = [];
     for (let i = 0; i < MAX_ATTEMPTS + 1; i++) outcomes.push((await processNext(`slow-worker`)).outcome);
     expect(outcomes).toEqual(["retry", "retry", "error", "idle"]);

@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 await vi.hoisted(async () => { await (await import("./blocks-db")).usePrivateDatabase(); });
 import { unit } from "mathjs";
 import { createBlock } from "@/lib/blocks/create";
+import { contextFor } from "@/lib/context";
 import { closeOrm } from "@/lib/db/orm";
 import type { AppError } from "@/lib/errors";
 import { evaluateBlock, previewDraft, retuneBlock } from "@/lib/runs/preview";
@@ -24,8 +25,8 @@ const amp = () => `gain-${team.tag}`;
 const wien = () => `wien-rt-${team.tag}`;
 beforeAll(async () => {
   team = await makeTeam();
-  await createBlock(team.author, { teamSlug: team.slug, text: contentBlock("noninverting-gain-11.md", amp()) });
-  await createBlock(team.author, { teamSlug: team.slug, text: wienFixture(wien()) });
+  await createBlock(await contextFor(team.author), { team: team.slug, text: contentBlock("noninverting-gain-11.md", amp()) });
+  await createBlock(await contextFor(team.author), { team: team.slug, text: wienFixture(wien()) });
 });
 afterAll(async () => {
   await drain(team);

@@ -39,8 +39,8 @@ describe("a model-library change", () => {
   it("makes every head stale; reverify queues them and fresh runs give fresh badges", { timeout: 120_000 }, async () => {
     const wien = `stale-wien-${team.tag}`;
     const div = `stale-div-${team.tag}`;
-    await createBlock(team.author, { teamSlug: team.slug, text: wienFixture(wien) });
-    await createBlock(team.author, { teamSlug: team.slug, text: dividerBlock(div) });
+    await createBlock(await contextFor(team.author), { team: team.slug, text: wienFixture(wien) });
+    await createBlock(await contextFor(team.author), { team: team.slug, text: dividerBlock(div) });
     await drain(team);
     const before = modelLibraryHash();
     expect((await getBlock(await contextFor(team.viewer), { slug: wien })).badge).toBe("verified");
@@ -97,7 +97,7 @@ describe("a model-library change", () => {
 
   it("a run made by an older engine version is stale too, and reverify replaces it", async () => {
     const slug = `old-engine-${team.tag}`;
-    const { run } = await createBlock(team.author, { teamSlug: team.slug, text: dividerBlock(slug) });
+    const { run } = await createBlock(await contextFor(team.author), { team: team.slug, text: dividerBlock(slug) });
     await drain(team);
     expect((await getBlock(await contextFor(team.viewer), { slug })).badge).toBe("verified");
     // As if an earlier engine release had made this run (the row is what a previous deployment left).

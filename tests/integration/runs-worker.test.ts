@@ -62,7 +62,7 @@ describe("worker processes", () => {
     const a = startWorker(`kill-a-${team.tag}`);
     await a.ready;
     const slug = `kill-${team.tag}`;
-    const { run } = await createBlock(team.author, { teamSlug: team.slug, text: withParams(wienFixture(slug), { Rf: "22.3 kohm" }) });
+    const { run } = await createBlock(await contextFor(team.author), { team: team.slug, text: withParams(wienFixture(slug), { Rf: "22.3 kohm" }) });
     await until("worker a to lease the run", async () => {
       const r = await runRow(run.id);
       return r.status === "running" && r.leasedBy === `kill-a-${team.tag}`;
@@ -103,7 +103,7 @@ describe("worker processes", () => {
     const runs: string[] = [];
     for (let i = 0; i < 6; i++) {
       const slug = `pair-${i}-${team.tag}`;
-      const r = await createBlock(team.author, { teamSlug: team.slug, text: withParams(wienFixture(slug), { Rf: `${22 + i * 0.1} kohm` }) });
+      const r = await createBlock(await contextFor(team.author), { team: team.slug, text: withParams(wienFixture(slug), { Rf: `${22 + i * 0.1} kohm` }) });
       runs.push(r.run.id);
     }
     await until("all six runs", async () => {

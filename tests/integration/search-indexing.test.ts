@@ -23,7 +23,7 @@ describe("indexing from the outbox", () => {
   it("brings a new block, a visibility change and an archive into search", async () => {
     const { callers, tag } = await makeTeam(["author", "maintainer"]);
     const slug = `quartzline-${tag}`;
-    await createBlock(callers.author, { teamSlug: callers.author.memberships[0].teamSlug, text: rcBlock(slug, `Quartzline filter ${tag}`) });
+    await createBlock(await contextFor(callers.author), { team: callers.author.memberships[0].teamSlug, text: rcBlock(slug, `Quartzline filter ${tag}`) });
     await drain();
     const mine = await search(callers.author, `quartzline ${tag}`);
     expect(mine.items.map((i) => i.slug)).toContain(slug);
@@ -35,11 +35,11 @@ describe("indexing from the outbox", () => {
     expect(otherHits.items).toHaveLength(0);
     expect(Object.values(otherHits.facets.category ?? {}).reduce((a, b) => a + b, 0)).toBe(0);
 
-    await setVisibility(callers.maintainer, slug, "public");
+    await setVisibility(await contextFor(callers.maintainer), { slug, visibility: "public" });
     await drain();
     expect((await search(anonymous, `quartzline ${tag}`)).items.map((i) => i.slug)).toContain(slug);
 
-    await archiveBlock(callers.maintainer, slug);
+    await archiveBlock(await contextFor(callers.maintainer), { slug });
     await drain();
     expect((await search(callers.author, `quartzline ${tag}`)).items).toHaveLength(0);
   });
@@ -47,7 +47,7 @@ describe("indexing from the outbox", () => {
   it("finds a block with a typo in a word of five letters or more", async () => {
     const { callers, tag } = await makeTeam(["author"]);
     const slug = `typo-${tag}`;
-    await createBlock(callers.author, { teamSlug: callers.author.memberships[0].teamSlug, text: rcBlock(slug, `Soft limiter ${tag}`) });
+    await createBlock(await contextFor(callers.author), { team: callers.author.memberships[0].teamSlug, text: rcBlock(slug, `Soft limiter ${tag}`) });
     await drain();
     // Meilisearch's documented typo rule: one typo allowed from five letters ("limitr" for "limiter").
     const hits = await search(callers.author, `limitr ${tag}`);
@@ -61,7 +61,7 @@ describe("indexing from the outbox", () => {
     const realUrl = process.env.MEILI_URL!;
     process.env.MEILI_URL = "http://127.0.0.1:9"; // nothing listens on the discard port
     try {
-      await createBlock(callers.author, { teamSlug: callers.author.memberships[0].teamSlug, text: rcBlock(slug, `Outage filter ${tag}`) });
+      await createBlock(await contextFor(callers.author), { team: callers.author.memberships[0].teamSlug, text: rcBlock(slug, `Outage filter ${tag}`) });
       await expect(processIndexBacklog(await getEm())).rejects.toThrow();
       expect(await indexBacklog(await getEm())).toBeGreaterThan(0);
     } finally {

@@ -2,7 +2,6 @@ import { readBlockFile } from "@/lib/api/body";
 import { noStore } from "@/lib/api/cache";
 import { created } from "@/lib/api/created";
 import { route } from "@/lib/api/handler";
-import { callerFromRequest } from "@/lib/auth/request-caller";
 import { createBlock } from "@/lib/blocks/create";
 import { requestContext } from "@/lib/context";
 import { searchBlocks } from "@/lib/search/search";
@@ -20,7 +19,5 @@ export const GET = route(async (req) => {
 export const POST = route(async (req) => {
   const query = createQuerySchema.parse(queryObject(req.url));
   const text = await readBlockFile(req);
-  const caller = await callerFromRequest(req);
-  const result = await createBlock(caller, { teamSlug: query.team, text, visibility: query.visibility });
-  return created(req, result);
+  return created(req, await createBlock(await requestContext(req), { ...query, text }));
 });

@@ -3,10 +3,9 @@ import { noStore } from "@/lib/api/cache";
 import { created } from "@/lib/api/created";
 import { pathParams, route } from "@/lib/api/handler";
 import { pageOf } from "@/lib/api/pages";
-import { callerFromRequest } from "@/lib/auth/request-caller";
 import { listVersions } from "@/lib/blocks/read";
 import { requestContext } from "@/lib/context";
-import { addVersion } from "@/lib/blocks/versions";
+import { addVersion, type NewVersionInput } from "@/lib/blocks/versions";
 import { AppError } from "@/lib/errors";
 import { cursorQuerySchema, queryObject, slugParamsSchema } from "@/lib/validation/api";
 import { fileVersionQuerySchema, newVersionJsonSchema } from "@/lib/validation/blocks";
@@ -25,15 +24,14 @@ export const GET = route<{ slug: string }>(async (req, params) => {
 // Two ways to make a version: new values as JSON against a base, or a whole file with ?baseVersion=n.
 export const POST = route<{ slug: string }>(async (req, params) => {
   const { slug } = pathParams(slugParamsSchema, params);
-  let input: { text?: string; params?: Record<string, string>; baseVersion: number; message?: string };
+  let input: NewVersionInput;
   if (mediaType(req) === "application/json") {
-    input = newVersionJsonSchema.parse(await readJson(req));
+    input = { slug, ...newVersionJsonSchema.parse(await readJson(req)) };
   } else if (isBlockFileRequest(req)) {
     const query = fileVersionQuerySchema.parse(queryObject(req.url));
-    input = { text: await readBlockFile(req), baseVersion: query.baseVersion, message: query.message };
+    input = { slug, ...query, text: await readBlockFile(req) };
   } else {
     throw new AppError("unsupported_media_type", "send application/json, text/markdown or multipart/form-data");
   }
-  const caller = await callerFromRequest(req);
-  return created(req, await addVersion(caller, slug, input));
+  return created(req, await addVersion(await requestContext(req), input));
 });
