@@ -17,6 +17,7 @@ export { includedNames, modelDefinitions, type InlineModel, type ModelDefinition
 export { sharedModelFile, sharedModelNames } from "./spice/shared-models";
 export { defaultModelsDir } from "./spice/paths";
 export { formatQuantity, readQuantity } from "./units";
+export { SLUG_RULE } from "./block/types";
 export type { BlockError, ParamSpec, ParsedBlock } from "./block/types";
 export type { CheckReport, Method, Quantity, Report, Waveform } from "./engine/types";
 export type { RunProgress, SimExecutor, SimOutcome, SimRequest } from "./engine/executor";

@@ -2,10 +2,9 @@ import { isMap, isScalar, isSeq, type Node } from "yaml";
 import { findFences, withoutFences } from "./fences";
 import { readFrontmatter } from "./frontmatter";
 import { readParams } from "./params";
-import { CATEGORIES, HAZARDS, type BlockError, type ParsedBlock } from "./types";
+import { CATEGORIES, HAZARDS, SLUG_RULE, type BlockError, type ParsedBlock } from "./types";
 
 const KEYS = new Set(["slug", "title", "category", "tags", "summary", "params", "hazard"]);
-const SLUG = /^[a-z0-9]+(-[a-z0-9]+)*$/;
 
 /** Parse a block file (DESIGN.md "Block file format"). `block` is null whenever there is an error. */
 export function parseBlock(text: string): { block: ParsedBlock | null; errors: BlockError[] } {
@@ -54,7 +53,7 @@ export function parseBlock(text: string): { block: ParsedBlock | null; errors: B
     return out;
   };
   const slug = text1("slug");
-  if (slug && !SLUG.test(slug))
+  if (slug && !SLUG_RULE.test(slug))
     errors.push({ message: `slug "${slug}" may hold only lowercase letters, digits and single dashes`, line: lineOf(get("slug")) });
   const title = text1("title");
   const category = text1("category");

@@ -30,5 +30,7 @@ export type ParsedBlock = {
   scriptLine: number;
 };
 
+/** A block's slug: lowercase letters and digits in words joined by single hyphens (the file's and the server's one rule). */
+export const SLUG_RULE = /^[a-z0-9]+(?:-[a-z0-9]+)*$/;
 export const CATEGORIES = ["oscillator", "limiter", "filter", "amplifier", "reference", "power", "interface", "other"];
 export const HAZARDS = ["mains", "high-voltage", "high-current", "heat"];

@@ -1,6 +1,7 @@
 import { readdirSync, readFileSync } from "node:fs";
 import path from "node:path";
 import type { EntityManager } from "@mikro-orm/postgresql";
+import { parseBlock } from "@/checks";
 import { BlockSchema, ModelSchema, ReviewSchema, UserSchema } from "@/entities";
 import { loadCaller } from "@/lib/auth/load-caller";
 import { setVisibility } from "@/lib/blocks/archive";
@@ -50,7 +51,8 @@ export async function seedLibrary(em: EntityManager): Promise<{ created: number 
   ];
   for (const file of files) {
     const text = readFileSync(file, "utf8");
-    const slug = /^slug:\s*["']?([a-z0-9-]+)/m.exec(text)?.[1] ?? file.replace(/\.md$/, "");
+    // The engine reads the slug; a file it cannot read is tried anyway, so the refusal is logged below.
+    const slug = parseBlock(text).block?.slug ?? path.basename(file, ".md");
     if (await exists(slug)) continue;
     try {
       // Authors create; publishing is a maintainer's decision (the roles table), made just below.

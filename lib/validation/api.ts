@@ -1,12 +1,14 @@
 import { extendZodWithOpenApi } from "@asteasolutions/zod-to-openapi";
 import { z } from "zod";
+import { SLUG_RULE } from "@/checks";
 
 // zod 4 copies methods onto each schema when it is made, so `.openapi()` must exist before any schema here is built.
 extendZodWithOpenApi(z);
 
 // Shapes shared by every /api/v1 route: identifiers in paths and queries, pagination, problem documents.
 
-export const SLUG_RE = /^[a-z0-9]+(?:-[a-z0-9]+)*$/;
+// The engine's rule for a block file's slug, so a path, a form and the file agree; team slugs follow it too.
+export const SLUG_RE = SLUG_RULE;
 export const slugSchema = z
   .string()
   .min(1)

@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { slugParamsSchema, versionParamsSchema } from "@/lib/validation/api";
+import { parseBlock } from "@/checks";
+import { slugParamsSchema, slugSchema, versionParamsSchema } from "@/lib/validation/api";
 import { evaluateBodySchema, forkBodySchema, newVersionJsonSchema, retuneBodySchema, searchQuerySchema } from "@/lib/validation/blocks";
 
 describe("request schemas", () => {
@@ -17,6 +18,14 @@ describe("request schemas", () => {
     for (const s of ["E3", "E6", "E12", "E24", "E48", "E96", "E192"]) expect(ok(s)).toBe(true);
     expect(ok("E25")).toBe(false);
     expect(ok("e24")).toBe(false);
+  });
+
+  it("reads a slug as the block file does: a path, a form and the file agree on every case", () => {
+    // DESIGN.md "Block file format": slug is lowercase letters, digits and `-` (single hyphens between words: common practice).
+    const cases = ["rc-lowpass-2k", "a", "e24", "Bad", "rc--lowpass", "-rc", "rc-", "rc_lowpass", "rc lowpass", "ré-lowpass"];
+    const fileTakes = (slug: string) => !parseBlock(`---\nslug: ${slug}\n---\n`).errors.some((e) => /^slug /.test(e.message));
+    for (const slug of cases) expect([slug, slugSchema.safeParse(slug).success]).toEqual([slug, fileTakes(slug)]);
+    expect(cases.filter((c) => slugSchema.safeParse(c).success)).toEqual(["rc-lowpass-2k", "a", "e24"]);
   });
 
   it("lets a fork body be empty or name a new slug, and refuses a bad slug", () => {
