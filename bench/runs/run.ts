@@ -82,7 +82,6 @@ async function main() {
 
     // 1b. Live preview through the service (head read + engine preview lane), one per keystroke, nothing stored.
     const { previewDraft } = await import("../../lib/runs/preview");
-    const { contextFor } = await import("../../lib/context");
     // A context per call, as each keystroke's request makes its own.
     await previewDraft(await contextFor(caller), { slug: "lat-wien", params: { Rf: "22 kohm" } });
     const previews: number[] = [];

@@ -8,7 +8,6 @@ import { closeOrm, getEm } from "@/lib/db/orm";
 import { startApp, type AppServer } from "../support/app-server";
 import { CookieJar } from "../support/cookie-jar";
 import { PASSWORD, linkIn, mailsTo, makeTeam } from "./auth-fixtures";
-import { contextFor } from "@/lib/context";
 
 // The built app over HTTP: next-auth's own endpoints, our providers, the cookie they set, and pages reading it.
 let app: AppServer;

@@ -11,7 +11,6 @@ import { uploadModel } from "@/lib/models/upload";
 import { getRun } from "@/lib/runs/runs";
 import type { Caller } from "@/lib/auth/caller";
 import { drain, makeTeam, type TestTeam } from "./blocks-helpers";
-import { contextFor } from "@/lib/context";
 
 let team: TestTeam;
 beforeAll(async () => { team = await makeTeam(); });

@@ -18,19 +18,19 @@ const LABEL = "output within 2.3 V to 2.7 V at every corner";
 describe("the review queue, read inline", () => {
   it("shows a waiting version's checks and what changed since the previous approved version", async () => {
     const slug = `rq-div-${team.tag}`;
-    await createBlock(team.author, { teamSlug: team.slug, text: dividerBlock(slug) });
+    await createBlock(await contextFor(team.author), { team: team.slug, text: dividerBlock(slug) });
     await drain(team);
     await requestReview(await contextFor(team.author), { slug, version: 1 });
     await decide(await contextFor(team.maintainer), { slug, version: 1, decision: "approved", comment: "" });
     // v2 moves R2 from 10 kohm to 12 kohm: Vout = Vin R2 / (R1 + R2) = 5 V · 12/22 = 2.727 V, above the 2.7 V limit
     // already at nominal values (voltage divider, common practice).
-    await addVersion(team.author, slug, { params: { R2: "12 kohm" }, baseVersion: 1, message: "more output" });
+    await addVersion(await contextFor(team.author), { slug, params: { R2: "12 kohm" }, baseVersion: 1, message: "more output" });
     await drain(team);
     await requestReview(await contextFor(team.author), { slug, version: 2 });
 
     // A second block nobody approved yet: its changes read against nothing.
     const fresh = `rq-new-${team.tag}`;
-    await createBlock(team.author, { teamSlug: team.slug, text: dividerBlock(fresh) });
+    await createBlock(await contextFor(team.author), { team: team.slug, text: dividerBlock(fresh) });
     await drain(team);
     await requestReview(await contextFor(team.author), { slug: fresh, version: 1 });
 

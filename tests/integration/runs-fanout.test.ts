@@ -11,7 +11,6 @@ import { contextFor } from "@/lib/context";
 import { closeOrm, getEm } from "@/lib/db/orm";
 import { getRun } from "@/lib/runs/runs";
 import { makeTeam, wienFixture, type TestTeam } from "./blocks-helpers";
-import { contextFor } from "@/lib/context";
 
 // Real worker processes sharing one verification's simulations through the `simulate` queue. A 3 s run lease and
 // a 4 s simulation expiry make a killed worker's share come back quickly; a private cache makes every run simulate.

@@ -8,7 +8,6 @@ import { closeOrm } from "@/lib/db/orm";
 import type { AppError } from "@/lib/errors";
 import { evaluateBlock, previewDraft, retuneBlock } from "@/lib/runs/preview";
 import { contentBlock, drain, makeTeam, wienFixture, type TestTeam } from "./blocks-helpers";
-import { contextFor } from "@/lib/context";
 
 // IEC 60063:2015, E24 series (two significant figures), as printed in the standard's table.
 const E24 = [1.0, 1.1, 1.2, 1.3, 1.5, 1.6, 1.8, 2.0, 2.2, 2.4, 2.7, 3.0, 3.3, 3.6, 3.9, 4.3, 4.7, 5.1, 5.6, 6.2, 6.8, 7.5, 8.2, 9.1];
