@@ -20,7 +20,7 @@ const wien = () => `wien-draft-${team.tag}`;
 
 beforeAll(async () => {
   team = await makeTeam();
-  await createBlock(team.author, { teamSlug: team.slug, text: contentBlock("wien-bridge-sine-1k.md", wien()) });
+  await createBlock(await contextFor(team.author), { team: team.slug, text: contentBlock("wien-bridge-sine-1k.md", wien()) });
   await drain(team);
 }, 600_000);
 afterAll(async () => {
