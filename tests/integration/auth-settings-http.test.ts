@@ -6,7 +6,6 @@ import { loadCaller } from "@/lib/auth/load-caller";
 import { createBlock } from "@/lib/blocks/create";
 import { contextFor } from "@/lib/context";
 import { createToken } from "@/lib/tokens/tokens";
-import { contextFor } from "@/lib/context";
 import { closeOrm, getEm } from "@/lib/db/orm";
 import { startApp, type AppServer } from "../support/app-server";
 import { CookieJar } from "../support/cookie-jar";
