@@ -39,7 +39,7 @@ export function groupWaveforms(waves: Waveform[]): PlotGroup[] {
         const hasPhase = Boolean(s.phase?.length);
         series.push({ node: s.node, values: joined[col + j] as number[], ...(hasPhase ? { phase: joined[col + n + j] as number[] } : {}) });
         if (m.variant === "worst") traces.push({ name: `${s.node}, worst corner (${cornerName(m.corner)})`, color: COPPER, dash: [6, 4] });
-        else if (m.variant === "member") traces.push({ name: `${s.node}, ${m.sweep?.name ?? "member"} = ${m.sweep?.text ?? k + 1}`, color: INKS[(k * n + j) % INKS.length] });
+        else if (m.variant === "member") traces.push({ name: `${s.node}, ${m.sweep?.name ?? "member"} = ${typesetUnits(m.sweep?.text ?? String(k + 1))}`, color: INKS[(k * n + j) % INKS.length] });
         else traces.push({ name: s.node, color: INKS[j % INKS.length] });
       });
       col += 2 * n;
