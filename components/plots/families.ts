@@ -38,15 +38,20 @@ export function groupWaveforms(waves: Waveform[]): PlotGroup[] {
       m.series.forEach((s, j) => {
         const hasPhase = Boolean(s.phase?.length);
         series.push({ node: s.node, values: joined[col + j] as number[], ...(hasPhase ? { phase: joined[col + n + j] as number[] } : {}) });
-        if (m.variant === "worst") traces.push({ name: `${s.node}, worst corner (${cornerName(m.corner)})`, color: COPPER, dash: [6, 4] });
+        // A sweep's members at the worst corner are told apart by their swept value, as at nominal.
+        const at = m.sweep ? `${m.sweep.name} = ${typesetUnits(m.sweep.text)}, ` : "";
+        if (m.variant === "worst") traces.push({ name: `${s.node}, ${at}worst corner (${cornerName(m.corner)})`, color: COPPER, dash: [6, 4] });
         else if (m.variant === "member") traces.push({ name: `${s.node}, ${m.sweep?.name ?? "member"} = ${typesetUnits(m.sweep?.text ?? String(k + 1))}`, color: INKS[(k * n + j) % INKS.length] });
         else traces.push({ name: s.node, color: INKS[j % INKS.length] });
       });
       col += 2 * n;
     });
+    const worst = members.find((m) => m.variant === "worst");
+    const dashed = `the worst corner (${cornerName(worst?.corner)})`;
+    // Count the sweep's values, not its traces: at the worst corner each member is drawn a second time, dashed.
     const caption = family
-      ? `${members.length} members of a sweep over ${members.find((m) => m.sweep)?.sweep?.name ?? "a parameter"}.`
-      : `Dashed: the worst corner (${cornerName(members.find((m) => m.variant === "worst")?.corner)}) over the nominal trace.`;
+      ? `${members.filter((m) => m.variant === "member").length} members of a sweep over ${members.find((m) => m.sweep)?.sweep?.name ?? "a parameter"}.${worst ? ` Dashed: the same members at ${dashed}.` : ""}`
+      : `Dashed: ${dashed} over the nominal trace.`;
     return { wave: { ...nominal, x: joined[0] as number[], series }, traces, caption };
   });
 }
