@@ -45,6 +45,24 @@ export class RetunePage {
     await this.preview().locator(`li[data-status="${status}"]`, { hasText: label }).waitFor({ timeout: 30_000 });
   }
 
+  /** The live preview's simulations on request. */
+  simulation() {
+    return this.page.getByTestId("draft-simulation");
+  }
+
+  async simulate(): Promise<void> {
+    await this.simulation().getByRole("button", { name: /^Simulate (these values|again)$/ }).click();
+  }
+
+  async cancelSimulation(): Promise<void> {
+    await this.simulation().getByRole("button", { name: "Cancel" }).click();
+  }
+
+  /** Waits for the simulation panel's state: starting, queued, running, done, error or cancelled. */
+  async waitForSimulation(status: string, timeoutMs = 240_000): Promise<void> {
+    await this.page.locator(`[data-testid="draft-simulation"][data-status="${status}"]`).waitFor({ timeout: timeoutMs });
+  }
+
   async retune(param: string, quantity: string, target: string, series = "E24"): Promise<string> {
     const box = this.page.getByTestId("retune-assistant");
     await box.getByLabel("Parameter").selectOption(param);
