@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { readFileSync } from "node:fs";
 import { loadCaller } from "@/lib/auth/load-caller";
 import { createBlock } from "@/lib/blocks/create";
+import { contextFor } from "@/lib/context";
 import { closeOrm, getEm } from "@/lib/db/orm";
 import { uploadModel } from "@/lib/models/upload";
 import { startApp, type AppServer } from "../support/app-server";
@@ -26,7 +27,7 @@ beforeAll(async () => {
   slug = `status-${owners.tag}`;
   const text = readFileSync("content/blocks/rc-lowpass-antialias.md", "utf8").replace(/^slug: .*$/m, `slug: ${slug}`);
   const author = await loadCaller(await getEm(), owners.people[0].id);
-  await createBlock(author, { teamSlug: team, text });
+  await createBlock(await contextFor(author), { team, text });
   // Our own diode values.
   await uploadModel({ em: await getEm(), caller: author }, { team, name: MODEL, text: "* status test diode\n.model DSTAT D(IS=2n N=1.8)\n", message: "first" });
   member = await sessionCookie(String(owners.people[0].id));
