@@ -4,7 +4,7 @@
 // npm test and npm run verify when a source under checks/ is newer.
 // Usage: node scripts/engine-build.mjs [--run-cli ARGS...]
 import { spawnSync } from "node:child_process";
-import { existsSync, readdirSync, rmSync, statSync } from "node:fs";
+import { existsSync, readdirSync, renameSync, rmSync, statSync } from "node:fs";
 import path from "node:path";
 import { fileURLToPath, pathToFileURL } from "node:url";
 
@@ -44,11 +44,14 @@ export async function ensureEngineBuilt() {
   await build({ ...common, entryPoints: entry("sandbox-child") });
   // The child runs its warm-up (checks/sandbox/warm-up.ts) and is written out as a heap snapshot. Without one
   // (a node that cannot write it) the child still starts, from the bundle, only slower.
-  for (const f of readdirSync(OUT_DIR)) if (f.endsWith(".blob")) rmSync(path.join(OUT_DIR, f));
+  for (const f of readdirSync(OUT_DIR)) if (/\.blob(\.\d+\.tmp)?$/.test(f)) rmSync(path.join(OUT_DIR, f));
   for (const mb of SNAPSHOT_HEAP_MB) {
-    const args = [`--max-old-space-size=${mb}`, "--snapshot-blob", snapshotFile(mb), "--build-snapshot", path.join(OUT_DIR, "sandbox-child.js")];
+    // Written under another name and renamed, so a child starting meanwhile never reads half a snapshot.
+    const tmp = `${snapshotFile(mb)}.${process.pid}.tmp`;
+    const args = [`--max-old-space-size=${mb}`, "--snapshot-blob", tmp, "--build-snapshot", path.join(OUT_DIR, "sandbox-child.js")];
     const snap = spawnSync(process.execPath, args, { cwd: OUT_DIR, encoding: "utf8", env: { PATH: process.env.PATH } });
-    if (snap.status !== 0) process.stderr.write(`engine-build: no startup snapshot for the sandbox child (${snap.stderr.trim().split("\n").slice(-2).join(" ")}); it starts from the bundle\n`);
+    if (snap.status === 0) renameSync(tmp, snapshotFile(mb));
+    else process.stderr.write(`engine-build: no startup snapshot for the sandbox child (${snap.stderr.trim().split("\n").slice(-2).join(" ")}); it starts from the bundle\n`);
   }
   return true;
 }
