@@ -202,3 +202,21 @@ describe("the invitation page", () => {
     }
   });
 });
+
+describe("the sign-in page's link form", () => {
+  it("mails a one-time link when posted as a browser without JavaScript does, and answers the same for an unknown address", async () => {
+    const { people } = await makeTeam(["viewer"]);
+    const b = new Browser();
+    const post = async (email: string) => {
+      const body = await formOn(b, "/sign-in", 'aria-labelledby="link-heading"');
+      body.append("email", email);
+      return (await submit(b, "/sign-in", body)).text();
+    };
+    expect(await post(people[0].email)).toContain(`If ${people[0].email} has an account, a sign-in link is on its way.`);
+    const [mail] = mailsTo(people[0].email);
+    expect(linkIn(mail).pathname).toBe("/sign-in/link");
+    const nobody = `nobody-${Date.now()}@fenwick.test`;
+    expect(await post(nobody)).toContain(`If ${nobody} has an account, a sign-in link is on its way.`);
+    expect(mailsTo(nobody)).toHaveLength(0);
+  });
+});
