@@ -61,7 +61,7 @@ export function resourceOf(block: Block, authorId?: number | null): BlockResourc
 
 /** The block by slug with team and head loaded, after checking `action` (404 when the caller may not read it). */
 export async function loadBlock(em: EntityManager, caller: Caller, slug: string, action: Action = "block.read"): Promise<Block> {
-  const block = await em.findOne(BlockSchema, { slug: String(slug) }, { populate: ["team", "head", "head.author"] });
+  const block = await em.findOne(BlockSchema, { slug }, { populate: ["team", "head", "head.author"] });
   if (!block) throw new AppError("not_found", "no such block");
   assertCan(caller, "block.read", resourceOf(block));
   if (action !== "block.read") assertCan(caller, action, resourceOf(block, await creatorOf(em, block)));
@@ -75,11 +75,11 @@ async function creatorOf(em: EntityManager, block: Block): Promise<number | null
 }
 
 export async function loadVersion(em: EntityManager, block: Block, number?: number): Promise<BlockVersion> {
-  if (number === undefined || number === null) {
+  if (number === undefined) {
     if (!block.head) throw new AppError("not_found", "the block has no version");
     return block.head;
   }
-  const v = await em.findOne(BlockVersionSchema, { block, number: Number(number) }, { populate: ["author"] });
+  const v = await em.findOne(BlockVersionSchema, { block, number }, { populate: ["author"] });
   if (!v) throw new AppError("not_found", `no version ${number} of ${block.slug}`);
   return v;
 }

@@ -25,14 +25,14 @@ export async function forkBlock({ em, caller }: Ctx, input: ForkInput): Promise<
   const fileFor = (newSlug: string) => {
     let text: string;
     try {
-      text = withParams(from.text, input.params ?? {}, { slug: newSlug, ...(input.title ? { title: String(input.title) } : {}) });
+      text = withParams(from.text, input.params ?? {}, { slug: newSlug, ...(input.title ? { title: input.title } : {}) });
     } catch (err) {
       throw engineInputError(err);
     }
     return { text, parsed: parseOrThrow(text) };
   };
   // A named slug is checked before the transaction, so a bad file is refused without touching the database.
-  const named = input.slug ? fileFor(String(input.slug)) : null;
+  const named = input.slug ? fileFor(input.slug) : null;
   let parsedSlug = named?.parsed.slug ?? "";
   try {
     return await em.transactional(async (tx) => {

@@ -72,8 +72,8 @@ export interface ReadOptions {
 
 export async function readCore(em: EntityManager, caller: Caller, slug: string, number: number | undefined, opts: ReadOptions): Promise<ReadCore> {
   const withForks = opts.forks;
-  const n = number === undefined || number === null ? null : Number(number);
-  const [b] = await exec(em, BLOCK_SQL, [n, n, String(slug)]);
+  const n = number ?? null;
+  const [b] = await exec(em, BLOCK_SQL, [n, n, slug]);
   if (!b) throw new AppError("not_found", "no such block");
   assertCan(caller, "block.read", { kind: "block", teamId: Number(b.team_id), visibility: b.visibility as "team" | "public", authorId: null });
   if ((b.v_id === null || b.v_id === undefined) && !opts.versionOptional) {
