@@ -5,10 +5,11 @@ import type { SimRequest } from "@/checks";
 export const SIM_CHANNEL = "assay_sims";
 
 /**
- * One ngspice run is bounded by the engine (20 s), so a `simulate` job still active well after that lost its
- * worker: pg-boss's maintenance then fails it into a retry for another worker, up to SIM_MAX_ATTEMPTS in all.
+ * One ngspice run is bounded by the engine (20 s), and a worker runs the few jobs it takes at once (SIM_GROUP, short
+ * ones sharing a process) in about that time, so a `simulate` job still active well after it lost its worker:
+ * pg-boss's maintenance then fails it into a retry for another worker, up to SIM_MAX_ATTEMPTS in all.
  */
-export const SIM_EXPIRE_SECONDS = Number(process.env.ASSAY_SIM_EXPIRE_SECONDS ?? 40);
+export const SIM_EXPIRE_SECONDS = Number(process.env.ASSAY_SIM_EXPIRE_SECONDS ?? 60);
 export const SIM_MAX_ATTEMPTS = Number(process.env.ASSAY_SIM_MAX_ATTEMPTS ?? 3);
 
 export interface SimJobData {

@@ -6,6 +6,13 @@ import { SIM_CHANNEL, type SimJobData } from "./sim-jobs";
 
 /** Simulations one worker process runs at once: one per core by default (ngspice uses one), like the engine's own. */
 export const SIM_SLOTS = Math.max(1, Number(process.env.ASSAY_SIM_CONCURRENCY ?? defaultConcurrency()));
+/**
+ * Jobs one slot takes at most at a time. The engine runs short simulations of one call in one ngspice process, so
+ * the process start-up (a quarter of a short transient) is paid once per group. Groups form only while the queue is
+ * deep (a quarter of a round of every slot each at most), so a run of a few simulations still spreads over every worker.
+ */
+export const SIM_GROUP = Math.max(1, Number(process.env.ASSAY_SIM_GROUP ?? 4));
+const groupSize = (waiting: number) => Math.max(1, Math.min(SIM_GROUP, Math.floor(waiting / (4 * SIM_SLOTS))));
 
 type Loop = { wake: () => void; stop: () => Promise<void> };
 let current: Loop | null = null;
@@ -42,17 +49,19 @@ function startSimulating(workerId: string, log: (line: string) => void): Loop {
     const queue = await startedBoss();
     while (!stopping) {
       const free = SIM_SLOTS - busy;
-      const jobs = free > 0 ? await queue.fetch<SimJobData>(SIMULATE_QUEUE, { batchSize: free }).catch((err: Error) => {
+      const jobs = free > 0 ? await fetchJobs(queue, free).catch((err: Error) => {
         log(`simulate fetch failed: ${err.message}`);
         return [];
       }) : [];
       if (jobs.length === 0) { await sleep(free > 0 ? 500 : 1000); continue; }
-      for (const job of jobs) {
+      // As many groups as free slots, so two jobs on an idle two-slot worker still run side by side.
+      const size = Math.ceil(jobs.length / free);
+      for (let i = 0; i < jobs.length; i += size) {
         busy++;
-        // The slot frees when ngspice ends: storing the outcome overlaps the next simulation.
+        // The slot frees when ngspice ends: storing the outcomes overlaps the next simulation.
         const free = () => { busy--; wake?.(); };
-        const p = simulateOne(queue, executor, job, workerId, free)
-          .catch((err: Error) => log(`simulation ${job.id} not stored: ${err.message}`))
+        const p = simulateGroup(queue, executor, jobs.slice(i, i + size), workerId, free)
+          .catch((err: Error) => log(`simulations ${jobs.slice(i, i + size).map((j) => j.id).join(", ")} not stored: ${err.message}`))
           .finally(() => running.delete(p));
         running.add(p);
       }
@@ -70,20 +79,28 @@ function startSimulating(workerId: string, log: (line: string) => void): Loop {
   };
 }
 
-async function simulateOne(queue: PgBoss, executor: SimExecutor, job: PgBoss.Job<SimJobData>, workerId: string, free: () => void): Promise<void> {
-  const { runId, request } = job.data;
-  const [o] = await executor.runMany([request]).finally(free);
+async function fetchJobs(queue: PgBoss, slots: number): Promise<PgBoss.Job<SimJobData>[]> {
+  const perSlot = SIM_GROUP > 1 ? groupSize(await queue.getQueueSize(SIMULATE_QUEUE)) : 1;
+  return queue.fetch<SimJobData>(SIMULATE_QUEUE, { batchSize: slots * perSlot });
+}
+
+async function simulateGroup(queue: PgBoss, executor: SimExecutor, jobs: PgBoss.Job<SimJobData>[], workerId: string, free: () => void): Promise<void> {
+  const outcomes = await executor.runMany(jobs.map((j) => j.data.request)).finally(free);
   const em = await getEm();
   await em.transactional(async (tx) => {
     const db = inTransaction(tx); // node-pg parameters: the raw file goes in as bytea, not as SQL text
-    await db.executeSql(
-      `insert into sim_results (run_id, key, ok, raw, error, line, ms, cached, worker_id, created_at)
-       select $1, $2, $3, $4, $5, $6, $7, $8, $9, now() where exists (select 1 from check_runs where id = $1)
-       on conflict do nothing`,
-      [runId, request.key, o.ok, o.ok ? Buffer.from(o.raw) : null, o.ok ? null : o.error.slice(0, 2000), o.ok ? null : (o.line ?? null),
-        o.ms, o.ok ? o.cached : false, workerId]);
-    await queue.complete(SIMULATE_QUEUE, job.id, { worker: workerId, cached: o.ok && o.cached }, { db });
-    await db.executeSql(`select pg_notify($1, $2)`, [SIM_CHANNEL, runId]);
+    for (const [i, job] of jobs.entries()) {
+      const { runId, request } = job.data;
+      const o = outcomes[i];
+      await db.executeSql(
+        `insert into sim_results (run_id, key, ok, raw, error, line, ms, cached, worker_id, created_at)
+         select $1, $2, $3, $4, $5, $6, $7, $8, $9, now() where exists (select 1 from check_runs where id = $1)
+         on conflict do nothing`,
+        [runId, request.key, o.ok, o.ok ? Buffer.from(o.raw) : null, o.ok ? null : o.error.slice(0, 2000), o.ok ? null : (o.line ?? null),
+          o.ms, o.ok ? o.cached : false, workerId]);
+      await queue.complete(SIMULATE_QUEUE, job.id, { worker: workerId, cached: o.ok && o.cached }, { db });
+    }
+    for (const runId of new Set(jobs.map((j) => j.data.runId))) await db.executeSql(`select pg_notify($1, $2)`, [SIM_CHANNEL, runId]);
   });
 }
 

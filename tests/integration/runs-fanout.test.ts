@@ -120,12 +120,16 @@ describe("one verification spread over two workers", () => {
     const workers = [startWorker(`kill-a-${team.tag}`), startWorker(`kill-b-${team.tag}`)];
     await Promise.all(workers.map((w) => w.ready));
     const slug = `kill-fan-${team.tag}`;
-    const { run } = await createBlock(await contextFor(team.author), { team: team.slug, text: slowWien(slug) });
-    // Kill the coordinating worker once both have brought simulations back and some are still to come.
+    // Sixteen Monte Carlo samples on top of the corners, so that plenty are still to come when the coordinator dies
+    // (with the corners alone, the last ones could finish between the look and the kill).
+    const text = slowWien(slug).replace("```check\n", "```check\nmontecarlo(16)\n");
+    expect(text).toContain("montecarlo(16)");
+    const { run } = await createBlock(await contextFor(team.author), { team: team.slug, text });
+    // Kill the coordinating worker once both have brought simulations back and several are still to come.
     const coordinator = await until("both workers to have simulated", async () => {
       const rows = await results(run.id);
       const row = await (await getEm()).findOneOrFail(CheckRunSchema, { id: run.id });
-      return new Set(rows.map((r) => r.worker_id)).size === 2 && (await openJobs(run.id)) > 0 && row.leasedBy;
+      return new Set(rows.map((r) => r.worker_id)).size === 2 && (await openJobs(run.id)) >= 6 && row.leasedBy;
     });
     const a = workers.find((w) => w.id === coordinator)!;
     const b = workers.find((w) => w !== a)!;
