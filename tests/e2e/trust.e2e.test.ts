@@ -117,6 +117,25 @@ describe("trust on screen", () => {
     await shot(page, "trust-03-import-retune");
   });
 
+  it("answers another team's block page and a missing one with HTTP 404 and the not-found page", async () => {
+    // Maren is in Larkspur only; twin-t-notch-1k is a Fenwick team block (not on the seed's public list).
+    const own = await page.goto("/blocks/twin-t-notch-1k");
+    expect(own?.status()).toBe(200);
+    const { page: partner, close: closePartner } = await launch(inject("appUrl"));
+    try {
+      await new SignInPage(partner).signIn("maren.holt@larkspur.test");
+      for (const path of ["/blocks/twin-t-notch-1k", "/blocks/twin-t-notch-1k/fork", "/blocks/twin-t-notch-1k/runs", "/blocks/no-such-block-e2e"]) {
+        const res = await partner.goto(path);
+        expect(res?.status(), path).toBe(404);
+        await partner.getByRole("heading", { level: 1, name: "Not in the library" }).waitFor();
+        expect(await partner.getByText(/Twin-T/i).count(), path).toBe(0);
+      }
+      await shot(partner, "trust-05-other-team-404");
+    } finally {
+      await closePartner();
+    }
+  });
+
   it("serves the badge as a hexagon of one width whatever the state", async () => {
     const hexOf = async (slug: string) => {
       const res = await page.request.get(`/api/v1/blocks/${slug}/badge.svg`);

@@ -61,7 +61,7 @@ describe("sign-in over HTTP", () => {
     await post(jar, "/api/auth/signout", {});
     expect((await session(jar)).user).toBeUndefined();
     const after = await fetch(`${app.url}/settings`, { headers: { cookie: jar.header() }, redirect: "manual" });
-    // Behind the library's loading boundary Next streams, so the redirect may come inside a 200 page.
+    // Behind the settings page's loading boundary Next streams, so the redirect may come inside a 200 page.
     const body = await after.text();
     const target = after.headers.get("location") ?? body;
     expect(target).toContain("/sign-in?callbackUrl=%2Fsettings");
