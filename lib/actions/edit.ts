@@ -7,7 +7,7 @@ import { slugSchema } from "@/lib/validation/api";
 import { parseBlock, type BlockError } from "@/checks";
 import { addVersion } from "@/lib/blocks/versions";
 import { actionContext } from "@/lib/next-context";
-import { editFormSchema, MAX_BLOCK_FILE } from "@/lib/validation/blocks";
+import { editFormSchema, MAX_BLOCK_FILE_BYTES } from "@/lib/validation/blocks";
 import { previewDraftFile } from "@/lib/runs/preview";
 import { AppError, isAppError } from "@/lib/errors";
 import { failure, type FormState } from "@/lib/actions/form-state";
@@ -16,7 +16,7 @@ import { failure, type FormState } from "@/lib/actions/form-state";
 export async function checkDraftAction(text: string, slug: string): Promise<{ errors: BlockError[]; failing: string[] }> {
   const ctx = await actionContext();
   if (!ctx.caller.user) return { errors: [{ message: "sign in to check a draft" }], failing: [] };
-  const draft = String(text ?? "").slice(0, MAX_BLOCK_FILE);
+  const draft = String(text ?? "").slice(0, MAX_BLOCK_FILE_BYTES);
   const { errors } = parseBlock(draft);
   if (errors.length) return { errors, failing: [] };
   // The block's team decides which model files its includes name.

@@ -8,7 +8,7 @@ import { addAttachment, MAX_ATTACHMENT_BYTES } from "@/lib/attachments/attachmen
 import { getCaller } from "@/lib/auth/session";
 import { createBlock } from "@/lib/blocks/create";
 import { actionContext } from "@/lib/next-context";
-import { importFormSchema, MAX_BLOCK_FILE } from "@/lib/validation/blocks";
+import { importFormSchema, MAX_BLOCK_FILE_BYTES } from "@/lib/validation/blocks";
 import { failure, type FormState } from "@/lib/actions/form-state";
 
 const NETLIST = /\.(cir|sp|net)$/i;
@@ -22,7 +22,7 @@ export async function convertNetlistAction(_prev: FormState, form: FormData): Pr
   if (!caller.user) return { ok: false, message: "Sign in to import." };
   const file = form.get("file");
   if (!isFile(file)) return { ok: false, message: "Choose a file.", errors: { file: ["Choose a block file (.md) or a SPICE netlist (.cir, .sp, .net)."] } };
-  if (file.size > MAX_BLOCK_FILE) return { ok: false, message: "That file is too large.", errors: { file: [`Files are at most 256 KiB; this one is ${Math.ceil(file.size / 1024)} KiB.`] } };
+  if (file.size > MAX_BLOCK_FILE_BYTES) return { ok: false, message: "That file is too large.", errors: { file: [`Files are at most 256 KiB; this one is ${Math.ceil(file.size / 1024)} KiB.`] } };
   const text = (await file.text()).replace(/\r\n?/g, "\n");
   if (/\.md$/i.test(file.name)) return { ok: true, data: { blockText: text, dropped: [], fileName: file.name } };
   if (!NETLIST.test(file.name)) return { ok: false, message: "Unsupported file type.", errors: { file: [`"${file.name}" is neither a block file (.md) nor a SPICE netlist (.cir, .sp, .net).`] } };

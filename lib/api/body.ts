@@ -1,7 +1,8 @@
 import "server-only";
 import { AppError } from "@/lib/errors";
+import { MAX_BLOCK_FILE_BYTES } from "@/lib/validation/blocks";
 
-export const MAX_BLOCK_FILE_BYTES = 256 * 1024;
+export { MAX_BLOCK_FILE_BYTES };
 export const MAX_JSON_BYTES = 64 * 1024;
 
 const MARKDOWN_TYPES = new Set(["text/markdown", "text/x-markdown"]);

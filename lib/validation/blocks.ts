@@ -9,7 +9,7 @@ export const badgeSchema = z.enum(BADGES).meta({ description: "State of one vers
 export const categorySchema = z.enum(CATEGORIES);
 export const visibilitySchema = z.enum(VISIBILITIES);
 /** A block file is at most 256 KiB (the API counts bytes; a form, characters). */
-export const MAX_BLOCK_FILE = 256 * 1024;
+export const MAX_BLOCK_FILE_BYTES = 256 * 1024;
 export const E_SERIES = ["E3", "E6", "E12", "E24", "E48", "E96", "E192"] as const;
 
 const identifier = z
@@ -128,7 +128,7 @@ export const visibilityInputSchema = blockInputSchema.extend({ visibility: visib
 const formBlockFile = z
   .string()
   .transform((t) => t.replace(/\r\n?/g, "\n"))
-  .pipe(z.string().min(1, "the block file is empty").max(MAX_BLOCK_FILE, "the block file is larger than 256 KiB"));
+  .pipe(z.string().min(1, "the block file is empty").max(MAX_BLOCK_FILE_BYTES, "the block file is larger than 256 KiB"));
 
 /** The import page's last step: create the block from the (possibly edited) file. */
 export const importFormSchema = newBlockSchema.extend({
