@@ -5,13 +5,16 @@ import type { useEvaluateBlock } from "@/lib/queries/evaluate-block";
 import { DraftSimulation } from "./draft-simulation";
 
 /**
- * What the draft values give, recomputed as you type: quantities, then every check (simulated ones wait), and
- * beneath, the simulations of these values on request.
+ * What the draft values give, recomputed as you type: quantities, then the checks that need no simulation, and
+ * beneath, the simulated checks, run on request. Those are named once above the button rather than listed as
+ * waiting cards, so the button is the next thing below the plain checks.
  */
 export function LivePreview({ query, slug, values }: { query: ReturnType<typeof useEvaluateBlock>; slug: string; values: Record<string, string> }) {
   const report = query.data;
   const failing = report?.checks.filter((c) => c.status === "fail").length ?? 0;
   const errors = report?.errors ?? [];
+  const plain = report?.checks.filter((c) => c.status !== "skipped") ?? [];
+  const waiting = report?.checks.filter((c) => c.status === "skipped") ?? [];
   return (
     <section id="live-preview" aria-label="Live preview" className="scroll-mt-4 space-y-3 rounded border border-rule bg-panel p-3" data-testid="live-preview">
       <header className="flex items-baseline justify-between gap-2">
@@ -30,7 +33,13 @@ export function LivePreview({ query, slug, values }: { query: ReturnType<typeof 
           <h3 className="mb-1 text-sm font-semibold">Quantities</h3>
           <QuantityList quantities={report.quantities} />
           <h3 className="mb-1 mt-3 text-sm font-semibold">Checks</h3>
-          <CheckList checks={report.checks} />
+          {plain.length || !waiting.length ? <CheckList checks={plain} /> : null}
+          {waiting.length ? (
+            <p className="mt-2 text-xs text-graphite" data-testid="preview-waiting">
+              {waiting.length} simulated check{waiting.length === 1 ? "" : "s"} run when you press “Simulate these values”:{" "}
+              {waiting.map((c) => c.label).join("; ")}.
+            </p>
+          ) : null}
         </div>
       ) : null}
       <DraftSimulation slug={slug} draft={{ params: values }} disabled={errors.length ? "Fix the errors above first." : undefined} />

@@ -10,10 +10,10 @@ import { forkBlock } from "@/lib/blocks/fork";
 import { contextFor } from "@/lib/context";
 import { addVersion } from "@/lib/blocks/versions";
 import { uploadModel } from "@/lib/models/upload";
-import { decide } from "@/lib/reviews/reviews";
+import { decide, requestReview } from "@/lib/reviews/reviews";
 
 // Fenwick's library as the demo shows it: every content block, a few published, one fork, one retuned block,
-// one approved version. Each step checks first, so a second run creates nothing.
+// two approved versions and one waiting for sign-off. Each step checks first, so a second run creates nothing.
 const AUTHOR = "nadia.okafor@fenwick.test";
 const MAINTAINER = "tomas.reyes@fenwick.test";
 const PUBLIC = ["wien-bridge-sine-1k", "rc-lowpass-antialias", "opamp-soft-limiter", "sallen-key-lowpass-unity"];
@@ -27,6 +27,9 @@ const RETUNE = {
   message: "11 nF C0G is the stocked value; R to 4.3 kohm keeps the corner at 3.4 kHz",
 };
 const APPROVE = { slug: "wien-bridge-sine-1k", version: 1, comment: "Start-up margin and amplitude agree with my bench notes." };
+// The retuned low-pass waits for sign-off against its approved first version, so the review queue has an entry
+// with its checks and what changed.
+const SIGN_OFF = { slug: RETUNE.slug, approved: 1, waiting: 2, comment: "3.4 kHz corner sits inside the ADC front end's alias budget." };
 
 const blocksDir = () => path.join(process.env.ASSAY_ROOT || process.cwd(), "content/blocks");
 // Fenwick's own model files and the blocks that include them (content/team/fenwick): models first, so the blocks resolve.
@@ -77,6 +80,11 @@ export async function seedLibrary(em: EntityManager): Promise<{ created: number 
   if (approved) {
     const done = await em.fork().count(ReviewSchema, { version: { block: approved.id, number: APPROVE.version }, decision: "approved" });
     if (!done) await decide(await contextFor(maintainer), { slug: APPROVE.slug, version: APPROVE.version, decision: "approved", comment: APPROVE.comment });
+  }
+  const lowpass = await em.fork().findOne(BlockSchema, { slug: SIGN_OFF.slug }, { populate: ["head"] });
+  if (lowpass?.head?.number === SIGN_OFF.waiting && !(await em.fork().count(ReviewSchema, { version: { block: lowpass.id } }))) {
+    await decide(await contextFor(maintainer), { slug: SIGN_OFF.slug, version: SIGN_OFF.approved, decision: "approved", comment: SIGN_OFF.comment });
+    await requestReview(await contextFor(author), { slug: SIGN_OFF.slug, version: SIGN_OFF.waiting });
   }
   return { created };
 }

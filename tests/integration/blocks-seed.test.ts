@@ -46,6 +46,9 @@ describe("demo library seed", () => {
     expect((await getLineage(await contextFor(fenwickCaller), { slug: "rc-lowpass-antialias-5k1" })).parentNewerVersions).toBe(1);
     expect((await compareVersions(await contextFor(anonymous), { slug: "rc-lowpass-antialias", a: 1, b: 2 })).params.map((p) => p.name)).toEqual(["R", "C"]);
     expect(await em.count(ReviewSchema, { decision: "approved", version: { block: { slug: "wien-bridge-sine-1k" } } } as never)).toBe(1);
+    // The retuned low-pass: v1 approved, v2 waiting for sign-off.
+    const lowpassReviews = await em.find(ReviewSchema, { version: { block: { slug: "rc-lowpass-antialias" } } } as never, { populate: ["version"], orderBy: { id: "asc" } });
+    expect(lowpassReviews.map((r) => [r.version.number, r.decision])).toEqual([[1, "approved"], [2, "requested"]]);
     const runs = await em.count(CheckRunSchema, { version: { block: { slug: { $in: slugs } } } } as never);
     expect(runs).toBe(files.length + 2);
 
@@ -58,6 +61,6 @@ describe("demo library seed", () => {
     const em2 = await getEm();
     expect(await em2.count(BlockSchema, { team: fenwick, slug: { $in: slugs } })).toBe(files.length + 1);
     expect(await em2.count(CheckRunSchema, { version: { block: { slug: { $in: slugs } } } } as never)).toBe(runs);
-    expect(await em2.count(ReviewSchema, { version: { block: { slug: { $in: slugs } } } } as never)).toBe(1);
+    expect(await em2.count(ReviewSchema, { version: { block: { slug: { $in: slugs } } } } as never)).toBe(3);
   });
 });
