@@ -92,7 +92,7 @@ function ParamChanges({ entry: r }: { entry: QueueEntry }) {
         {ps.map((p) => (
           <tr key={p.name} className="border-t border-rule/70" data-param={p.name}>
             <th scope="row" className="pr-4 text-left font-mono font-medium">{p.name}</th>
-            <td className="pr-4 text-brick">{p.from === null ? <span className="text-graphite">—</span> : <del className="decoration-1"><Decimal text={p.from} /></del>}</td>
+            <td className="pr-4 text-brick">{p.from === null ? <span className="text-graphite">—</span> : <del className="no-underline"><Decimal text={p.from} mark="line-through decoration-1" /></del>}</td>
             <td className="text-verdigris">{p.to === null ? <span className="text-graphite">removed</span> : <Decimal text={p.to} />}</td>
           </tr>
         ))}
