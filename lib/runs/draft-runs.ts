@@ -76,17 +76,12 @@ function end(r: DraftRun, status: DraftStatus, fields: { report?: Report | null;
 /** The file a draft stands for, and the model files its circuit includes for the block's team. */
 async function draftFile(ctx: Ctx, { slug, ...input }: DraftRunInput) {
   const block = await loadBlock(ctx.em, ctx.caller, slug);
-  let text: string;
-  if (input.text !== undefined) {
-    const fileSlug = /^slug:\s*["']?([^"'\s]+)/m.exec(input.text)?.[1];
-    if (fileSlug && fileSlug !== block.slug) {
-      throw new AppError("validation", `slug: the file is ${fileSlug}, not ${block.slug}`, { errors: [{ path: "slug", message: `expected ${block.slug}` }] });
-    }
-    text = input.text;
-  } else {
-    text = (await loadVersion(ctx.em, block, input.version)).text;
+  const text = input.text ?? (await loadVersion(ctx.em, block, input.version)).text;
+  const parsed = parseBlock(text).block; // a file the engine cannot read is verified anyway, for its errors
+  if (input.text !== undefined && parsed?.slug && parsed.slug !== block.slug) {
+    throw new AppError("validation", `slug: the file is ${parsed.slug}, not ${block.slug}`, { errors: [{ path: "slug", message: `expected ${block.slug}` }] });
   }
-  const models = await resolveModels(ctx.em, block.team.id, parseBlock(text).block?.netlist ?? "");
+  const models = await resolveModels(ctx.em, block.team.id, parsed?.netlist ?? "");
   return { slug: block.slug, text, models: models.texts };
 }
 

@@ -121,4 +121,11 @@ describe("draft runs", () => {
     expect(await code(startDraftRun(await contextFor(anonymous), { slug: wien() }))).toBe("unauthenticated");
     expect((await cancelDraftRun(await ctxOf("viewer"), { id: mine.id })).status).toBe("cancelled");
   }, 60_000);
+
+  it("refuses an edited file that names another block", async () => {
+    const other = contentBlock("wien-bridge-sine-1k.md", `${wien()}-other`);
+    const refused = await startDraftRun(await ctxOf("author"), { slug: wien(), text: other }).then(() => null, (e: AppError) => e);
+    expect(refused?.code).toBe("validation");
+    expect(refused?.message).toContain(`not ${wien()}`);
+  }, 60_000);
 });
