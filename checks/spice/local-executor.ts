@@ -26,7 +26,15 @@ const BATCHED = new Set(["ac", "op", "dc", "tf"]);
  */
 export const TRAN_BATCH_POINTS = 50_000;
 
-const batchable = (r: SimRequest) => BATCHED.has(r.analysis.kind) || (r.analysis.kind === "tran" && r.analysis.stop / r.analysis.step <= TRAN_BATCH_POINTS);
+/**
+ * Two of the options a circuit may set outlive its `remcirc` in ngspice 39: `interp` (output at the step points only)
+ * and `cshunt` (a capacitor from every node to ground) stay in force for every later circuit of the process, and
+ * `unset` does not reach them. A circuit setting either never shares a process, so it cannot change another's plot.
+ */
+const LEAKING_OPTION = /^[ \t]*\.opt(?:ion|ions)?\b[^\n]*\b(?:interp|cshunt)\b/im;
+
+const batchable = (r: SimRequest) => !LEAKING_OPTION.test(r.circuit)
+  && (BATCHED.has(r.analysis.kind) || (r.analysis.kind === "tran" && r.analysis.stop / r.analysis.step <= TRAN_BATCH_POINTS));
 
 /** How many ngspice processes run at once by default: one per core. */
 export const defaultConcurrency = () => Math.max(1, os.availableParallelism?.() ?? os.cpus().length);

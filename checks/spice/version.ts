@@ -1,7 +1,9 @@
 import { spawnSync } from "node:child_process";
 
 // Bump when the deck text or how ngspice is run changes what a raw file holds.
-export const SPICE_RUNNER_VERSION = "2";
+// 3: a circuit setting .options interp or cshunt no longer shares an ngspice process (both outlive the circuit there),
+// so a raw file that a batch neighbour's option changed must not be a cache hit.
+export const SPICE_RUNNER_VERSION = "3";
 
 let cached: string | undefined;
 

@@ -52,3 +52,21 @@ describe("transients several to one ngspice process", () => {
     expect(vectors((outcomes[0] as SimOutcome & { ok: true }).raw)).toEqual(vectors(runNgspice(reqs[0].deck).raw));
   });
 });
+
+describe("options that outlive their circuit in one ngspice process", () => {
+  // ngspice 39 keeps `.options interp` and `.options cshunt` in force for every later circuit of the same process
+  // (seen with Debian's ngspice: `remcirc` and `unset` leave them). A neighbour in a batch must not change a plot.
+  for (const option of ["interp", "cshunt=1e-12"]) {
+    it(`a circuit with .options ${option} leaves the next member's plot as its own run gives it`, async () => {
+      const withOption = simRequest({
+        title: "with option", params: { R: 15.8e3, C: 10e-9 }, analysis: { kind: "tran", stop: 20e-3, step: 5e-6, uic: true },
+        circuit: `${wien(15.8e3).circuit}\n.options ${option}`,
+      });
+      const plain = wien(16e3);
+      const outcomes = await localExecutor({ cacheDir, noCache: true, concurrency: 1 }).runMany([withOption, plain]);
+      expect(outcomes.every((o) => o.ok)).toBe(true);
+      // ngspice alone is the reference for the plain member: same points, same values.
+      expect(vectors((outcomes[1] as SimOutcome & { ok: true }).raw)).toEqual(vectors(runNgspice(plain.deck).raw));
+    });
+  }
+});
