@@ -23,5 +23,7 @@ export type { CheckReport, Method, Quantity, Report, Waveform } from "./engine/t
 export type { RunProgress, SimExecutor, SimOutcome, SimRequest } from "./engine/executor";
 export { DEFAULT_RUN_CAP, runCapFromEnv, type RunCap } from "./engine/plan";
 export { localExecutor, defaultConcurrency, type LocalExecutorOptions } from "./spice/local-executor";
+export { cacheIdentity, holdsCached, readCached, seesCache, writeCached, type CacheIdentity } from "./spice/cache";
+export { defaultCacheDir } from "./spice/paths";
 export { previewBlock, retune, verifyBlock, warmEngine, type VerifyOptions } from "./sandbox/api";
 export { draftLane } from "./sandbox/client";

@@ -4,12 +4,14 @@ import type { CheckRun } from "./check-run.entity";
 /**
  * The outcome of one simulation of a run, written by whichever worker ran its `simulate` job and read by the
  * worker coordinating the run. Keyed by the request's content hash; the raw file ngspice wrote, or why there is none.
+ * A worker that sees the coordinator's simulation cache leaves the raw file there instead (`rawInCache`).
  */
 export interface SimResult {
   run: CheckRun;
   key: string;
   ok: boolean;
   raw: Buffer | null;
+  rawInCache: Opt<boolean>;
   error: string | null;
   line: number | null;
   ms: number;
@@ -26,6 +28,7 @@ export const SimResultSchema = new EntitySchema<SimResult>({
     key: { type: "string", length: 64, primary: true },
     ok: { type: "boolean" },
     raw: { type: "blob", nullable: true, lazy: true },
+    rawInCache: { type: "boolean", default: false },
     error: { type: "text", nullable: true },
     line: { type: "integer", nullable: true },
     ms: { type: "double" },

@@ -6,6 +6,7 @@ import { Migration20261202090500 } from "./Migration20261202090500";
 import { Migration20261202092600 } from "./Migration20261202092600";
 import { Migration20261202093000 } from "./Migration20261202093000";
 import { Migration20261202093500 } from "./Migration20261202093500";
+import { Migration20261202170000 } from "./Migration20261202170000";
 
 // Every migration, in order. Add new ones at the end; never edit a landed one.
 export const migrationsList: MigrationObject[] = [
@@ -16,4 +17,5 @@ export const migrationsList: MigrationObject[] = [
   { name: "Migration20261202092600", class: Migration20261202092600 },
   { name: "Migration20261202093000", class: Migration20261202093000 },
   { name: "Migration20261202093500", class: Migration20261202093500 },
+  { name: "Migration20261202170000", class: Migration20261202170000 },
 ];

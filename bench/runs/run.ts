@@ -1,7 +1,7 @@
 // npm run bench:runs — how long from storing a version to its badge, and how many runs a second one or two
 // workers verify. Uses a throwaway PostgreSQL cluster and real worker processes; prints figures and ratios.
 import { spawn, type ChildProcess } from "node:child_process";
-import { mkdtempSync, rmSync } from "node:fs";
+import { mkdtempSync, readFileSync, rmSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { startCluster } from "../../tests/support/pg-cluster";
@@ -50,10 +50,12 @@ async function main() {
     };
     const runStatus = async (id: string) =>
       ((await (await getEm()).getConnection().execute(`select status from check_runs where id = ?`, [id]))[0] as { status: string }).status;
-    const waitDone = async (id: string) => {
+    // Latency samples look every 5 ms. The fan-out looks every 50 ms: over its seconds, looking every 5 ms took a
+    // quarter of a core (this process and its PostgreSQL backend) from the workers it measures.
+    const waitDone = async (id: string, everyMs = 5) => {
       for (;;) {
         if (["done", "error"].includes(await runStatus(id))) return;
-        await new Promise((r) => setTimeout(r, 5));
+        await new Promise((r) => setTimeout(r, everyMs));
       }
     };
     const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
@@ -123,9 +125,11 @@ async function main() {
         createBlock(await contextFor(caller), { team: "bench", text: wienBlock(`fan-warm-${n}-${k}`, `${(21 + n * 0.01 + k * 0.001).toFixed(3)} kohm`) })));
       for (const w of warm) await waitDone(w.run.id);
       const t0 = performance.now();
+      const cpu0 = cpuBusy();
       const r = await createBlock(await contextFor(caller), { team: "bench", text: wienMonteCarloBlock(`fan-${n}`, `${(22 + n * 0.01).toFixed(2)} kohm`, 64) });
-      await waitDone(r.run.id);
+      await waitDone(r.run.id, 50);
       const s = (performance.now() - t0) / 1000;
+      const busyCores = (cpuBusy() - cpu0) / s;
       const conn = (await getEm()).getConnection();
       const [run] = await conn.execute(`select progress_total as total, report->>'status' as status,
         (select avg((e->>'ms')::float) from jsonb_array_elements(report->'simulations') e) as ms from check_runs where id = ?`, [r.run.id]) as { total: number; status: string; ms: number }[];
@@ -133,7 +137,8 @@ async function main() {
       const [span] = await conn.execute(`select extract(epoch from min(s.created_at) - r.started_at) as first, extract(epoch from max(s.created_at) - r.started_at) as last,
         extract(epoch from r.finished_at - r.started_at) as done, sum(s.ms) / 1000 as busy
         from sim_results s join check_runs r on r.id = s.run_id where r.id = ? group by r.started_at, r.finished_at`, [r.run.id]) as Record<string, number>[];
-      console.log(`  timeline from the run's start: first result ${(+span.first).toFixed(1)} s, last ${(+span.last).toFixed(1)} s, run done ${(+span.done).toFixed(1)} s; ngspice busy ${(+span.busy).toFixed(1)} s in all`);
+      console.log(`  timeline from the run's start: first result ${(+span.first).toFixed(1)} s, last ${(+span.last).toFixed(1)} s, run done ${(+span.done).toFixed(1)} s; ngspice busy ${(+span.busy).toFixed(1)} s in all; `
+        + `the machine's CPUs busy ${busyCores.toFixed(2)} of ${os.cpus().length} on average (every process, this bench's own polling included)`);
       fanRates.push(run.total / s);
       console.log(`one verification fanned out, ${n} worker${n > 1 ? "s" : ""}: ${run.total} simulations in ${s.toFixed(1)} s = ${(run.total / s).toFixed(1)} simulations/s `
         + `(report ${run.status}; ngspice ${Number(run.ms).toFixed(0)} ms per simulation on average; by worker: ${by.map((b) => `${b.worker_id} ${b.n}`).join(", ")})`);
@@ -146,6 +151,12 @@ async function main() {
     cluster.stop();
     rmSync(cache, { recursive: true, force: true });
   }
+}
+
+/** CPU seconds every process of the machine has used since boot, from /proc/stat (user, nice, system, irq, softirq). */
+function cpuBusy(): number {
+  const [user, nice, system, , , irq, softirq] = readFileSync("/proc/stat", "utf8").split("\n")[0].trim().split(/\s+/).slice(1).map(Number);
+  return (user + nice + system + irq + softirq) / 100; // USER_HZ is 100 on Linux
 }
 
 main().catch((err: Error) => {

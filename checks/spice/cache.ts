@@ -1,4 +1,4 @@
-import { createHash } from "node:crypto";
+import { createHash, randomUUID } from "node:crypto";
 import fs from "node:fs";
 import path from "node:path";
 
@@ -35,8 +35,11 @@ export function readCached(dir: string, key: string): Buffer | null {
   }
 }
 
-/** Write through a temp name and rename, so a concurrent reader never sees half a file; then keep the size bound. */
-export function writeCached(dir: string, key: string, raw: Buffer, maxBytes = cacheLimitBytes()): void {
+/**
+ * Write through a temp name and rename, so a concurrent reader never sees half a file; then keep the size bound.
+ * False when the file could not be written (a cache that cannot be written only costs a rerun later).
+ */
+export function writeCached(dir: string, key: string, raw: Uint8Array, maxBytes = cacheLimitBytes()): boolean {
   const file = fileFor(dir, key);
   try {
     fs.mkdirSync(path.dirname(file), { recursive: true });
@@ -44,9 +47,47 @@ export function writeCached(dir: string, key: string, raw: Buffer, maxBytes = ca
     fs.writeFileSync(tmp, raw);
     fs.renameSync(tmp, file);
   } catch {
-    return; // A cache that cannot be written only costs a rerun later.
+    return false;
   }
   noteWrite(dir, raw.length, maxBytes);
+  return true;
+}
+
+/** The raw file is in the cache now. */
+export const holdsCached = (dir: string, key: string): boolean => fs.existsSync(fileFor(dir, key));
+
+/**
+ * Which cache a process uses, as another process can recognise it: the folder and a random id kept in it, made on
+ * first use. A process that reads the same id in that folder sees the same files (the same machine, or a shared
+ * volume), so a raw file can pass from one to the other through the cache instead of through the database.
+ * Null when the folder cannot be written.
+ */
+export type CacheIdentity = { dir: string; id: string };
+const identities = new Map<string, CacheIdentity | null>();
+export function cacheIdentity(dir: string): CacheIdentity | null {
+  if (identities.has(dir)) return identities.get(dir)!;
+  const file = path.join(dir, ".id");
+  let id: string | null = null;
+  try {
+    fs.mkdirSync(dir, { recursive: true });
+    // wx: the first process to make the id wins; the others read it.
+    try { fs.writeFileSync(file, randomUUID(), { flag: "wx" }); } catch { /* already made */ }
+    id = fs.readFileSync(file, "utf8").trim();
+  } catch {
+    id = null;
+  }
+  const identity = id ? { dir, id } : null;
+  identities.set(dir, identity);
+  return identity;
+}
+
+/** This process sees the cache `identity` names (its id is in its folder here). */
+export function seesCache(identity: CacheIdentity): boolean {
+  try {
+    return fs.readFileSync(path.join(identity.dir, ".id"), "utf8").trim() === identity.id;
+  } catch {
+    return false;
+  }
 }
 
 // Each process keeps a running estimate of the cache's size and rescans the folder when the

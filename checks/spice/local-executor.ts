@@ -4,6 +4,7 @@ import { BATCH_SIZE, runBatchAsync } from "./batch";
 import { readCached, writeCached } from "./cache";
 import { defaultCacheDir } from "./paths";
 import { runNgspiceAsync } from "./run-ngspice";
+import { NgspiceSession } from "./session";
 import { SpiceError } from "./types";
 
 export type LocalExecutorOptions = {
@@ -15,6 +16,11 @@ export type LocalExecutorOptions = {
   signal?: AbortSignal;
   /** false: every simulation in a process of its own (bench/tolerance compares the two). */
   batch?: boolean;
+  /**
+   * Keep ngspice processes between calls (one per concurrency slot) for short analyses, instead of starting one per
+   * batch: for a long-lived caller such as a worker's simulation slot, which must call close() when it stops.
+   */
+  keep?: boolean;
 };
 
 // One plot each, so the control block's `write` holds what `ngspice -b -r` would (noise writes two plots).
@@ -43,10 +49,20 @@ export const defaultConcurrency = () => Math.max(1, os.availableParallelism?.() 
  * The executor of one machine: the content-addressed cache first, then ngspice processes,
  * up to one per core at a time. Identical requests in one batch run once.
  */
-export function localExecutor(opts: LocalExecutorOptions = {}): SimExecutor {
+export function localExecutor(opts: LocalExecutorOptions = {}): SimExecutor & { close(): void } {
   const dir = opts.cacheDir ?? defaultCacheDir();
   const limit = Math.max(1, opts.concurrency ?? defaultConcurrency());
+  const idle: NgspiceSession[] = []; // kept processes not running a batch now
+  const batch = async (job: SimRequest[]) => {
+    if (!opts.keep) return runBatchAsync(job.map((r) => r.deck), opts.timeoutMs, opts.signal);
+    const session = idle.pop() ?? new NgspiceSession();
+    const raws = await session.run(job.map((r) => r.deck), opts.timeoutMs, opts.signal);
+    if (session.usable) idle.push(session);
+    else session.close();
+    return raws;
+  };
   return {
+    close: () => idle.splice(0).forEach((s) => s.close()),
     async runMany(reqs, progress) {
       const unique = new Map<string, SimRequest>();
       for (const r of reqs) if (!unique.has(r.key)) unique.set(r.key, r);
@@ -71,8 +87,9 @@ export function localExecutor(opts: LocalExecutorOptions = {}): SimExecutor {
       for (let i = 0; i < short.length; i += size) jobs.push(short.slice(i, i + size));
       const worker = async () => {
         for (let job = jobs.shift(); job && !opts.signal?.aborted; job = jobs.shift())
-          if (job.length === 1) finish(await runOne(job[0], dir, opts));
-          else for (const o of await runBatch(job, dir, opts)) finish(o);
+          // A kept process runs a lone short analysis too: it costs no start-up there.
+          if (job.length === 1 && !(opts.keep && joins(job[0]))) finish(await runOne(job[0], dir, opts));
+          else for (const o of await runBatch(job, dir, opts, batch)) finish(o);
       };
       await Promise.all(Array.from({ length: Math.min(limit, jobs.length) }, worker));
       // Cancelled outcomes say nothing about the circuit: the executor cannot go on, which ends the run.
@@ -94,9 +111,9 @@ async function runOne(r: SimRequest, dir: string, opts: LocalExecutorOptions): P
   }
 }
 
-async function runBatch(reqs: SimRequest[], dir: string, opts: LocalExecutorOptions): Promise<SimOutcome[]> {
+async function runBatch(reqs: SimRequest[], dir: string, opts: LocalExecutorOptions, batch: (job: SimRequest[]) => Promise<(Buffer | null)[]>): Promise<SimOutcome[]> {
   const t0 = performance.now();
-  const raws = await runBatchAsync(reqs.map((r) => r.deck), opts.timeoutMs, opts.signal);
+  const raws = await batch(reqs);
   const each = round((performance.now() - t0) / reqs.length);
   const out: SimOutcome[] = [];
   for (const [i, r] of reqs.entries()) {

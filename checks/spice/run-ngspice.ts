@@ -98,19 +98,33 @@ export type Exit = { status: number | null; signal: NodeJS.Signals | null; stdou
 export function prepareRun(deck: string, opts: RunOptions, rawFile = true): Job {
   const timeoutMs = opts.timeoutMs ?? DEFAULT_TIMEOUT_MS;
   const maxRaw = opts.maxRawBytes ?? MAX_RAW_BYTES;
-  const dir = fs.mkdtempSync(path.join(os.tmpdir(), "assay-spice-"));
-  fs.mkdirSync(path.join(dir, "scripts"));
-  fs.writeFileSync(path.join(dir, "scripts", "spinit"), opts.spinit ?? engineSpinit());
+  const dir = sandboxDir(opts.spinit);
   fs.writeFileSync(path.join(dir, "deck.cir"), deck);
   const cpu = Math.ceil(timeoutMs / 1000) + 1;
   return {
     dir, timeoutMs, cpu, maxRaw,
     command: "prlimit",
-    args: [`--as=${MAX_MEMORY_BYTES}`, `--cpu=${cpu}`, `--fsize=${maxRaw}`, "--", "ngspice", "-b", ...(rawFile ? ["-r", "out.raw"] : []), "deck.cir"],
-    // A minimal environment: nothing of the app (secrets, URLs) reaches the simulator.
-    spawn: { cwd: dir, env: { PATH: process.env.PATH ?? "/usr/bin:/bin", HOME: dir, TMPDIR: dir, LANG: "C", SPICE_SCRIPTS: path.join(dir, "scripts"), NODE_ENV: process.env.NODE_ENV } },
+    args: [...limits(cpu, maxRaw), "--", "ngspice", "-b", ...(rawFile ? ["-r", "out.raw"] : []), "deck.cir"],
+    spawn: sandboxSpawn(dir),
   };
 }
+
+/** A private temp dir holding the engine's spinit: ngspice's working directory, HOME and TMPDIR. */
+export function sandboxDir(spinit = engineSpinit()): string {
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), "assay-spice-"));
+  fs.mkdirSync(path.join(dir, "scripts"));
+  fs.writeFileSync(path.join(dir, "scripts", "spinit"), spinit);
+  return dir;
+}
+
+/** prlimit's caps: address space, CPU seconds, and the size of any file ngspice writes. */
+export const limits = (cpuSeconds: number, maxRawBytes = MAX_RAW_BYTES) => [`--as=${MAX_MEMORY_BYTES}`, `--cpu=${cpuSeconds}`, `--fsize=${maxRawBytes}`];
+
+// A minimal environment: nothing of the app (secrets, URLs) reaches the simulator.
+export const sandboxSpawn = (dir: string) => ({
+  cwd: dir,
+  env: { PATH: process.env.PATH ?? "/usr/bin:/bin", HOME: dir, TMPDIR: dir, LANG: "C", SPICE_SCRIPTS: path.join(dir, "scripts"), NODE_ENV: process.env.NODE_ENV },
+});
 
 function finishRun(job: Job, r: Exit, ms: number, opts: RunOptions): NgspiceRun {
   const { cpu, maxRaw, timeoutMs } = job;

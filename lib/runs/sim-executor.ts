@@ -1,10 +1,10 @@
 import type { EntityManager } from "@mikro-orm/postgresql";
-import type { SimExecutor, SimOutcome, SimRequest } from "@/checks";
+import { cacheIdentity, defaultCacheDir, localExecutor, readCached, type SimExecutor, type SimOutcome, type SimRequest } from "@/checks";
 import { getEm } from "@/lib/db/orm";
 import { SIMULATE_QUEUE, startedBoss } from "@/lib/queue/boss";
 import { SIM_CHANNEL, SIM_EXPIRE_SECONDS, SIM_MAX_ATTEMPTS, simJobId, type SimJobData } from "./sim-jobs";
 
-type Row = { key: string; ok: boolean; raw: Buffer | null; error: string | null; line: number | null; ms: number; cached: boolean };
+type Row = { key: string; ok: boolean; raw: Buffer | null; raw_in_cache: boolean; error: string | null; line: number | null; ms: number; cached: boolean };
 const POLL_MS = 250; // a fallback: a worker's NOTIFY listener wakes the waiting coordinator as each result lands
 
 const waiters = new Map<string, () => void>();
@@ -56,23 +56,31 @@ export function queueExecutor(
     for (const k of unique.keys()) keys.add(k);
     const outcomes = new Map<string, SimOutcome>();
     let done = 0;
-    const take = (r: Row) => {
-      if (outcomes.has(r.key)) return;
-      outcomes.set(r.key, r.ok
-        ? { key: r.key, ok: true, raw: new Uint8Array(r.raw!), ms: r.ms, cached: r.cached }
-        : { key: r.key, ok: false, error: r.error ?? "the simulation failed", ...(r.line != null ? { line: r.line } : {}), ms: r.ms });
-      open.delete(simJobId(run.id, run.attempt, r.key));
-      done += reqs.filter((q) => q.key === r.key).length;
+    const take = (o: SimOutcome) => {
+      if (outcomes.has(o.key)) return;
+      outcomes.set(o.key, o);
+      open.delete(simJobId(run.id, run.attempt, o.key));
+      done += reqs.filter((q) => q.key === o.key).length;
       progress?.(done, reqs.length);
       onProgress?.(base + done, base + reqs.length);
     };
-    (await results(run.id, [...unique.keys()])).forEach(take);
+    const takeRows = async (rows: Row[]) => {
+      const pruned: SimRequest[] = [];
+      for (const r of rows) {
+        const o = outcome(r);
+        if (o) take(o);
+        else pruned.push(unique.get(r.key)!);
+      }
+      // A raw file left in the cache was pruned before it was read (a cache far smaller than one run): simulate again here.
+      if (pruned.length) (await localExecutor({ concurrency: 1 }).runMany(pruned)).forEach(take);
+    };
+    await takeRows(await results(run.id, [...unique.keys()]));
     const waiting = [...unique.values()].filter((r) => !outcomes.has(r.key));
     await send(run, waiting, open);
     for (let round = 0; outcomes.size < unique.size; round++) {
       if (closed) throw new Error("the run's simulations were abandoned");
       await nap(run.id, POLL_MS);
-      (await results(run.id, waiting.filter((r) => !outcomes.has(r.key)).map((r) => r.key))).forEach(take);
+      await takeRows(await results(run.id, waiting.filter((r) => !outcomes.has(r.key)).map((r) => r.key)));
       if (round % 10 === 9 && outcomes.size < unique.size) await assertNoneLost(run, waiting.filter((r) => !outcomes.has(r.key)));
     }
     base += reqs.length;
@@ -80,12 +88,20 @@ export function queueExecutor(
   }
 }
 
+/** A stored outcome as the engine takes it; null when its raw file was left in our cache and is no longer there. */
+function outcome(r: Row): SimOutcome | null {
+  if (!r.ok) return { key: r.key, ok: false, error: r.error ?? "the simulation failed", ...(r.line != null ? { line: r.line } : {}), ms: r.ms };
+  const raw = r.raw_in_cache ? readCached(defaultCacheDir(), r.key) : r.raw;
+  return raw ? { key: r.key, ok: true, raw, ms: r.ms, cached: r.cached } : null;
+}
+
 async function send(run: { id: string; attempt: number }, reqs: SimRequest[], open: Set<string>): Promise<void> {
   if (reqs.length === 0) return;
+  const cache = cacheIdentity(defaultCacheDir());
   const jobs = reqs.map((request) => {
     const id = simJobId(run.id, run.attempt, request.key);
     open.add(id);
-    return { id, name: SIMULATE_QUEUE, data: { runId: run.id, request } satisfies SimJobData, retryLimit: SIM_MAX_ATTEMPTS - 1, expireInSeconds: SIM_EXPIRE_SECONDS };
+    return { id, name: SIMULATE_QUEUE, data: { runId: run.id, request, cache } satisfies SimJobData, retryLimit: SIM_MAX_ATTEMPTS - 1, expireInSeconds: SIM_EXPIRE_SECONDS };
   });
   await (await startedBoss()).insert(jobs);
   await (await getEm()).getConnection().execute(`select pg_notify('${SIM_CHANNEL}', '')`);
@@ -95,7 +111,7 @@ async function results(runId: string, keys: string[]): Promise<Row[]> {
   if (keys.length === 0) return [];
   const em: EntityManager = await getEm();
   return em.getConnection().execute<Row[]>(
-    `select key, ok, raw, error, line, ms, cached from sim_results where run_id = ? and key in (${keys.map(() => "?").join(",")})`,
+    `select key, ok, raw, raw_in_cache, error, line, ms, cached from sim_results where run_id = ? and key in (${keys.map(() => "?").join(",")})`,
     [runId, ...keys]);
 }
 

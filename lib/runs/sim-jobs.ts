@@ -1,5 +1,5 @@
 import { createHash } from "node:crypto";
-import type { SimRequest } from "@/checks";
+import type { CacheIdentity, SimRequest } from "@/checks";
 
 /** Woken by NOTIFY: `simulate` jobs were sent (payload empty), or a result of a run came back (payload the run id). */
 export const SIM_CHANNEL = "assay_sims";
@@ -15,6 +15,8 @@ export const SIM_MAX_ATTEMPTS = Number(process.env.ASSAY_SIM_MAX_ATTEMPTS ?? 3);
 export interface SimJobData {
   runId: string;
   request: SimRequest;
+  /** The coordinator's simulation cache: a worker that sees it leaves the raw file there, not in sim_results. */
+  cache?: CacheIdentity | null;
 }
 
 /** The same request of the same attempt of a run is one job, however often the engine asks for it. */

@@ -1,5 +1,5 @@
 import type PgBoss from "pg-boss";
-import { defaultConcurrency, localExecutor, type SimExecutor } from "@/checks";
+import { defaultCacheDir, defaultConcurrency, holdsCached, localExecutor, seesCache, writeCached, type SimExecutor, type SimOutcome } from "@/checks";
 import { getEm } from "@/lib/db/orm";
 import { beforeBossStops, inTransaction, SIMULATE_QUEUE, startedBoss } from "@/lib/queue/boss";
 import { SIM_CHANNEL, type SimJobData } from "./sim-jobs";
@@ -35,7 +35,8 @@ export function simulating(workerId: string, log: (line: string) => void = (l) =
  * so a hit stays a hit whichever worker asks), and stores the outcome with the job's completion in one commit.
  */
 function startSimulating(workerId: string, log: (line: string) => void): Loop {
-  const executor = localExecutor({ concurrency: 1 });
+  // Each slot keeps its ngspice process between groups: no process start per group (see checks/spice/session.ts).
+  const executor = localExecutor({ concurrency: 1, keep: true });
   let stopping = false;
   let busy = 0;
   const running = new Set<Promise<void>>();
@@ -75,6 +76,7 @@ function startSimulating(workerId: string, log: (line: string) => void): Loop {
       wake?.();
       await loop.catch(() => undefined);
       await Promise.all(running);
+      executor.close();
     },
   };
 }
@@ -92,17 +94,31 @@ async function simulateGroup(queue: PgBoss, executor: SimExecutor, jobs: PgBoss.
     for (const [i, job] of jobs.entries()) {
       const { runId, request } = job.data;
       const o = outcomes[i];
+      const inCache = o.ok && leftInCache(job.data, o);
       await db.executeSql(
-        `insert into sim_results (run_id, key, ok, raw, error, line, ms, cached, worker_id, created_at)
-         select $1, $2, $3, $4, $5, $6, $7, $8, $9, now() where exists (select 1 from check_runs where id = $1)
+        `insert into sim_results (run_id, key, ok, raw, raw_in_cache, error, line, ms, cached, worker_id, created_at)
+         select $1, $2, $3, $4, $5, $6, $7, $8, $9, $10, now() where exists (select 1 from check_runs where id = $1)
          on conflict do nothing`,
-        [runId, request.key, o.ok, o.ok ? Buffer.from(o.raw) : null, o.ok ? null : o.error.slice(0, 2000), o.ok ? null : (o.line ?? null),
+        [runId, request.key, o.ok, o.ok && !inCache ? Buffer.from(o.raw) : null, inCache, o.ok ? null : o.error.slice(0, 2000), o.ok ? null : (o.line ?? null),
           o.ms, o.ok ? o.cached : false, workerId]);
       await queue.complete(SIMULATE_QUEUE, job.id, { worker: workerId, cached: o.ok && o.cached }, { db });
     }
     for (const runId of new Set(jobs.map((j) => j.data.runId))) await db.executeSql(`select pg_notify($1, $2)`, [SIM_CHANNEL, runId]);
   });
 }
+
+/**
+ * When this worker sees the coordinator's cache (one machine, or a shared volume), the raw file goes there and the
+ * table row only says so: a raw file is hundreds of kilobytes, and through the database it cost both workers and
+ * PostgreSQL more CPU than the short simulation itself. Our own executor has already put it there when the two
+ * caches are one folder; otherwise it is written there now. False: it goes through the table.
+ */
+function leftInCache(job: SimJobData, o: SimOutcome & { ok: true }): boolean {
+  if (!job.cache || !seesCache(job.cache)) return false;
+  if (job.cache.dir === OWN_CACHE && holdsCached(OWN_CACHE, job.request.key)) return true;
+  return writeCached(job.cache.dir, job.request.key, o.raw);
+}
+const OWN_CACHE = defaultCacheDir();
 
 /** Outcomes are needed only while their run is open: kept ten minutes after it ends (for a look), a day at most. */
 export async function pruneSimResults(): Promise<number> {

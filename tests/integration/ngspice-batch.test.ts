@@ -7,6 +7,7 @@ import { runBatchAsync } from "@/checks/spice/batch";
 import { parseRawFile } from "@/checks/spice/raw-file";
 import { simRequest } from "@/checks/spice/request";
 import { runNgspice } from "@/checks/spice/run-ngspice";
+import { NgspiceSession } from "@/checks/spice/session";
 
 const cacheDir = fs.mkdtempSync(path.join(os.tmpdir(), "assay-batch-"));
 afterAll(() => fs.rmSync(cacheDir, { recursive: true, force: true }));
@@ -46,10 +47,15 @@ describe("transients several to one ngspice process", () => {
     });
     const reqs = [wien(15.8e3), runaway, wien(16e3)];
     expect(await runBatchAsync(reqs.map((r) => r.deck))).toEqual([null, null, null]);
-    const outcomes: SimOutcome[] = await localExecutor({ cacheDir, concurrency: 1 }).runMany(reqs);
-    expect(outcomes.map((o) => o.ok)).toEqual([true, false, true]);
-    expect(outcomes[1].ok === false && outcomes[1].error).toMatch(/timestep too small/i);
-    expect(vectors((outcomes[0] as SimOutcome & { ok: true }).raw)).toEqual(vectors(runNgspice(reqs[0].deck).raw));
+    // The same with a worker slot's kept process: the abort ends it, and the members run alone.
+    for (const keep of [false, true]) {
+      const executor = localExecutor({ cacheDir, noCache: true, concurrency: 1, keep });
+      const outcomes: SimOutcome[] = await executor.runMany(reqs);
+      executor.close();
+      expect(outcomes.map((o) => o.ok)).toEqual([true, false, true]);
+      expect(outcomes[1].ok === false && outcomes[1].error).toMatch(/timestep too small/i);
+      expect(vectors((outcomes[0] as SimOutcome & { ok: true }).raw)).toEqual(vectors(runNgspice(reqs[0].deck).raw));
+    }
   });
 });
 
@@ -69,4 +75,56 @@ describe("options that outlive their circuit in one ngspice process", () => {
       expect(vectors((outcomes[1] as SimOutcome & { ok: true }).raw)).toEqual(vectors(runNgspice(plain.deck).raw));
     });
   }
+});
+
+describe("a kept ngspice process (a worker slot's session)", () => {
+  it("answers batch after batch with the vectors each member's own `ngspice -b -r` run writes", async () => {
+    const session = new NgspiceSession();
+    try {
+      for (const Rs of [[15.8e3, 16e3], [15.6e3], [16.2e3, 15.9e3, 15.7e3]]) {
+        const reqs = Rs.map(wien);
+        const raws = await session.run(reqs.map((r) => r.deck));
+        for (const [i, r] of reqs.entries()) expect(vectors(raws[i]!)).toEqual(vectors(runNgspice(r.deck).raw));
+      }
+      expect(session.usable).toBe(true);
+    } finally {
+      session.close();
+    }
+  });
+
+  it("ends itself after a member without its plot, and the executor runs that member alone for its error", async () => {
+    const session = new NgspiceSession();
+    const broken = simRequest({ title: "broken", params: {}, analysis: { kind: "op" }, circuit: "V1 a 0 1\nX1 a 0 nosuch" }); // no such subcircuit
+    const raws = await session.run([wien(15.8e3).deck, broken.deck]);
+    expect(raws[0]).not.toBeNull();
+    expect(raws[1]).toBeNull();
+    expect(session.usable).toBe(false);
+    const executor = localExecutor({ cacheDir, noCache: true, concurrency: 1, keep: true });
+    try {
+      const outcomes = await executor.runMany([wien(15.8e3), broken, wien(16e3)]);
+      expect(outcomes.map((o) => o.ok)).toEqual([true, false, true]);
+      // The error is the one ngspice gives for the deck alone.
+      let alone = "";
+      try { runNgspice(broken.deck); } catch (e) { alone = (e as Error).message; }
+      expect(alone).not.toBe("");
+      expect(outcomes[1].ok === false && outcomes[1].error).toBe(alone);
+      const after = await executor.runMany([wien(16e3)]);
+      expect(vectors((after[0] as SimOutcome & { ok: true }).raw)).toEqual(vectors(runNgspice(wien(16e3).deck).raw));
+    } finally {
+      executor.close();
+    }
+  });
+
+  it("is killed by the caller's abort, and a later batch gets a fresh process", async () => {
+    const session = new NgspiceSession();
+    const controller = new AbortController();
+    // A transient long enough to be running when the abort comes.
+    const slow = simRequest({ title: "slow", params: { R: 15.8e3, C: 10e-9 }, analysis: { kind: "tran", stop: 2, step: 1e-6, uic: true }, circuit: wien(15.8e3).circuit });
+    const pending = session.run([slow.deck], 20_000, controller.signal);
+    setTimeout(() => controller.abort(), 200);
+    const t0 = performance.now();
+    expect(await pending).toEqual([null]);
+    expect(performance.now() - t0).toBeLessThan(5_000);
+    expect(session.usable).toBe(false);
+  });
 });

@@ -1,5 +1,5 @@
 import { spawn, type ChildProcess } from "node:child_process";
-import { mkdtempSync, rmSync } from "node:fs";
+import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from "vitest";
@@ -9,7 +9,11 @@ import { CheckRunSchema, OutboxEventSchema } from "@/entities";
 import { createBlock } from "@/lib/blocks/create";
 import { contextFor } from "@/lib/context";
 import { closeOrm, getEm } from "@/lib/db/orm";
+import { SIMULATE_QUEUE, startedBoss } from "@/lib/queue/boss";
 import { getRun } from "@/lib/runs/runs";
+import { localExecutor, verifyBlock } from "@/checks";
+import { parseRawFile } from "@/checks/spice/raw-file";
+import { simRequest } from "@/checks/spice/request";
 import { makeTeam, wienFixture, type TestTeam } from "./blocks-helpers";
 
 // Real worker processes sharing one verification's simulations through the `simulate` queue. A 3 s run lease and
@@ -65,8 +69,8 @@ async function until<T>(what: string, fn: () => Promise<T | null | undefined | f
 }
 
 const sql = async <T>(text: string, params: unknown[] = []) => (await getEm()).getConnection().execute<T[]>(text, params);
-const results = (runId: string) => sql<{ key: string; worker_id: string; ok: boolean; cached: boolean }>(
-  `select key, worker_id, ok, cached from sim_results where run_id = ?`, [runId]);
+const results = (runId: string) => sql<{ key: string; worker_id: string; ok: boolean; cached: boolean; raw_in_cache: boolean; in_table: boolean }>(
+  `select key, worker_id, ok, cached, raw_in_cache, raw is not null as in_table from sim_results where run_id = ?`, [runId]);
 /** simulate jobs of the run that pg-boss still holds as waiting or active */
 const openJobs = async (runId: string) => Number((await sql<{ n: string }>(
   `select count(*) as n from pgboss.job where name = 'simulate' and data->>'runId' = ? and state in ('created', 'retry', 'active')`, [runId]))[0].n);
@@ -98,6 +102,8 @@ describe("one verification spread over two workers", () => {
     expect(rows.length).toBeGreaterThan(4);
     expect(rows.every((r) => r.ok && !r.cached)).toBe(true);
     expect(new Set(rows.map((r) => r.worker_id))).toEqual(new Set([`share-c-${team.tag}`, `share-d-${team.tag}`]));
+    // Both workers see the coordinator's cache (one machine): the raw files passed through it, not the table.
+    expect(rows.every((r) => r.raw_in_cache && !r.in_table)).toBe(true);
     // Progress: never goes back, was seen part-way, and ends at its total, which covers every simulation reported.
     const final = (await getRun(await contextFor(team.viewer), { id: run.id })).progress;
     expect(final.done).toBe(final.total);
@@ -152,6 +158,56 @@ describe("one verification spread over two workers", () => {
     expect(b.lines.filter((l) => l.includes(`run ${run.id}: done`))).toHaveLength(1);
     await until("no simulation of the run left waiting or active", async () => (await openJobs(run.id)) === 0, 30_000);
     await b.stop();
+  });
+
+  it("a worker that does not see the coordinator's cache stores the raw file in the table; one that does leaves it there", { timeout: 120_000 }, async () => {
+    const w = startWorker(`spool-${team.tag}`);
+    await w.ready;
+    // A run row for the results to belong to (its own verification is not what this looks at).
+    const { run } = await createBlock(await contextFor(team.author), { team: team.slug, text: wienFixture(`spool-${team.tag}`) });
+    await until("the run to finish", () => finished(run.id));
+    const elsewhere = mkdtempSync(path.join(os.tmpdir(), "assay-other-cache-"));
+    try {
+      writeFileSync(path.join(elsewhere, ".id"), "a cache on another machine");
+      const request = (R: number) => simRequest({ title: "rc", params: { R }, analysis: { kind: "tran", stop: 1e-3, step: 1e-6 }, circuit: "V1 in 0 PULSE(0 1 0 1u 1u 1 2)\nR1 in out {R}\nC1 out 0 100n" });
+      const unseen = request(1.1e3); // the id in the job is not the one in that folder: as from another machine
+      const seen = request(1.2e3); // the worker's own cache, named as the coordinator names it
+      await (await startedBoss()).insert([
+        { name: SIMULATE_QUEUE, data: { runId: run.id, request: unseen, cache: { dir: elsewhere, id: "another id" } } },
+        { name: SIMULATE_QUEUE, data: { runId: run.id, request: seen, cache: { dir: cache, id: readFileSync(path.join(cache, ".id"), "utf8") } } },
+      ]);
+      const row = (key: string) => until(`the result of ${key}`, async () =>
+        (await sql<{ ok: boolean; raw: Buffer | null; raw_in_cache: boolean }>(`select ok, raw, raw_in_cache from sim_results where run_id = ? and key = ?`, [run.id, key]))[0]);
+      const a = await row(unseen.key);
+      expect(a.ok && !a.raw_in_cache).toBe(true);
+      // The table's copy is ngspice's own raw file for that deck: the capacitor charges towards 1 V.
+      const [plot] = parseRawFile(a.raw!);
+      expect(plot.real[plot.variables.find((v) => v.name === "v(out)")!.index].at(-1)).toBeCloseTo(1 - Math.exp(-1e-3 / (1.1e3 * 100e-9)), 3);
+      const b = await row(seen.key);
+      expect(b.ok && b.raw_in_cache && b.raw === null).toBe(true);
+      expect(existsSync(path.join(cache, seen.key.slice(0, 2), `${seen.key}.raw`))).toBe(true);
+    } finally {
+      rmSync(elsewhere, { recursive: true, force: true });
+    }
+    await w.stop();
+  });
+
+  it("a cache too small to keep a raw file until the coordinator reads it: the run simulates it again and ends as usual", { timeout: 120_000 }, async () => {
+    // 0.05 MB: each write prunes the cache below one raw file, so every file is gone before the coordinator looks.
+    const w = startWorker(`tiny-${team.tag}`, { ASSAY_SIM_CACHE_MB: "0.05" });
+    await w.ready;
+    const { run } = await createBlock(await contextFor(team.author), { team: team.slug, text: wienFixture(`tiny-${team.tag}`) });
+    const done = await until("the run to finish", () => finished(run.id));
+    expect(done.status).toBe("done");
+    const rows = await results(run.id);
+    expect(rows.length).toBeGreaterThan(0);
+    expect(rows.every((r) => r.ok && r.raw_in_cache)).toBe(true);
+    // The same verdicts and values as the engine gives in this process with ngspice run here and nothing cached.
+    const checks = (r: unknown) => (r as { checks: { name: string; status: string; value?: unknown }[] }).checks.map((c) => [c.name, c.status, c.value]);
+    const { report } = await verifyBlock(wienFixture(`tiny-${team.tag}`), { executor: localExecutor({ noCache: true }) });
+    expect(report.status).toBe("verified");
+    expect(checks(done.report)).toEqual(checks(report));
+    await w.stop();
   });
 
   it("a run over the instance's cap ends with the error naming the cap, before anything is simulated", { timeout: 120_000 }, async () => {
