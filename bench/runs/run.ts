@@ -145,12 +145,45 @@ async function main() {
       await stopWorkers();
     }
     console.log(`fan-out, two workers / one worker: ${(fanRates[1] / fanRates[0]).toFixed(2)}x on ${os.cpus().length} CPU cores`);
+    await ngspiceCeiling();
   } finally {
     for (const w of workers) try { process.kill(-w.pid!, "SIGKILL"); } catch { /* gone */ }
     await closeOrm();
     cluster.stop();
     rmSync(cache, { recursive: true, force: true });
   }
+}
+
+/**
+ * What two cores give ngspice itself, with nothing of ours around it: the fan-out's samples (the same deck, 64 values
+ * of Rf) in ngspice processes kept as the workers keep theirs, in groups of four, one process and then two at once.
+ * The workers' two/one ratio cannot beat this one.
+ */
+async function ngspiceCeiling() {
+  const { spiceDeck } = await import("../../checks");
+  const { NgspiceSession } = await import("../../checks/spice/session");
+  const decks = Array.from({ length: 64 }, (_, i) => spiceDeck(wienBlock("ceiling", `${(22 + i * 0.01).toFixed(2)} kohm`))
+    .replace(/^\.include\s+(\S+\.lib)\s*$/gm, (_, name) => `.include "${path.join(process.cwd(), "content/models", name)}"`)
+    .replace(/^\.end\s*$/m, ".tran 1e-05 0.02\n.end")); // the script's tran(20 ms, 10 us)
+  const drain = async (mine: string[]) => {
+    const session = new NgspiceSession();
+    try {
+      for (let i = 0; i < mine.length; i += 4) {
+        if ((await session.run(mine.slice(i, i + 4))).some((raw) => !raw)) throw new Error("a bare ngspice run failed");
+      }
+    } finally {
+      session.close();
+    }
+  };
+  await drain(decks.slice(0, 8)); // page cache and ngspice's own files warm
+  let t0 = performance.now();
+  await drain(decks);
+  const one = (performance.now() - t0) / 1000;
+  t0 = performance.now();
+  await Promise.all([drain(decks.filter((_, i) => i % 2 === 0)), drain(decks.filter((_, i) => i % 2 === 1))]);
+  const two = (performance.now() - t0) / 1000;
+  console.log(`bare ngspice, the same 64 samples in kept processes: one process ${one.toFixed(2)} s (${(one / 64 * 1000).toFixed(0)} ms each), `
+    + `two at once ${two.toFixed(2)} s; two/one ${(one / two).toFixed(2)}x, the ceiling for the workers' ratio on this machine`);
 }
 
 /** CPU seconds every process of the machine has used since boot, from /proc/stat (user, nice, system, irq, softirq). */
