@@ -18,7 +18,7 @@ export interface AttachmentInfo { name: string; contentType: string; size: numbe
 export async function addAttachment({ em, caller }: Ctx, input: NewAttachment): Promise<AttachmentInfo> {
   const user = requireUser(caller);
   const block = await loadBlock(em, caller, input.slug, "block.edit");
-  const name = String(input.name ?? "").toLowerCase();
+  const name = input.name.toLowerCase();
   if (!NAME.test(name)) throw new AppError("validation", "name the file like schematic.png or schematic.svg (a-z, 0-9, . _ -)");
   let bytes = Buffer.from(input.bytes);
   if (bytes.length > MAX_ATTACHMENT_BYTES) throw new AppError("payload_too_large", "attachments are at most 1 MiB");

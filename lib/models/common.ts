@@ -14,7 +14,7 @@ export const MAX_MODEL_FILE_BYTES = 512 * 1024;
  * models do not leak (DESIGN.md: other teams see nothing of a team's models).
  */
 export async function loadTeam(ctx: Ctx, slug: string, action: Action): Promise<Team> {
-  const team = await ctx.em.findOne(TeamSchema, { slug: String(slug) });
+  const team = await ctx.em.findOne(TeamSchema, { slug });
   const resource = { kind: "team" as const, teamId: team?.id ?? -1 };
   if (!team || !can(ctx.caller, "model.read", resource)) throw new AppError("not_found", `no model library "${slug}"`);
   assertCan(ctx.caller, action, resource);

@@ -62,16 +62,16 @@ export async function listModels(ctx: Ctx, input: { team?: string } = {}): Promi
 /** One file: a version's text (the head by default), its versions, and the blocks that use it. */
 export async function getModel(ctx: Ctx, input: { team: string; name: string; version?: number }): Promise<ModelFile> {
   if (input.team === SHARED) {
-    const s = sharedSummary(String(input.name));
+    const s = sharedSummary(input.name);
     if (input.version !== undefined && input.version !== 1) throw new AppError("not_found", `the shared ${s.name} has one version`);
     const versions = [{ number: 1, sha256: s.sha256, author: "shared library", message: "versioned with the code", createdAt: "" }];
     return { ...s, versions, head: 1, usedBy: await usersOf(ctx, s.name, null) };
   }
   const team = await loadTeam(ctx, input.team, "model.read");
-  const model = await ctx.em.findOne(ModelSchema, { team, name: String(input.name) }, { populate: ["head"] });
+  const model = await ctx.em.findOne(ModelSchema, { team, name: input.name }, { populate: ["head"] });
   if (!model?.head) throw new AppError("not_found", `no model file "${input.name}" in ${team.slug}`);
   const all = await ctx.em.find(ModelVersionSchema, { model }, { populate: ["author"], orderBy: { number: "desc" } });
-  const version = input.version === undefined ? model.head : all.find((v) => v.number === Number(input.version));
+  const version = input.version === undefined ? model.head : all.find((v) => v.number === input.version);
   if (!version) throw new AppError("not_found", `no version ${input.version} of ${model.name}`);
   return {
     team: team.slug, name: model.name, version: version.number, sha256: version.sha256, defines: version.defines, text: version.text,

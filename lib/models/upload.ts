@@ -32,8 +32,8 @@ export interface UploadResult {
  */
 export async function uploadModel(ctx: Ctx, input: UploadInput): Promise<UploadResult> {
   const team = await mayUpload(ctx, input.team);
-  const name = String(input.name ?? "");
-  const text = String(input.text ?? "").replace(/\r\n?/g, "\n");
+  const name = input.name;
+  const text = input.text.replace(/\r\n?/g, "\n"); // the API's text/plain body; the form's schema has done this already
   await checkModelFile(ctx, team, name, text);
   const sha256 = createHash("sha256").update(text, "utf8").digest("hex");
   try {
@@ -44,7 +44,7 @@ export async function uploadModel(ctx: Ctx, input: UploadInput): Promise<UploadR
         throw new AppError("conflict", `${name} version ${model.head.number} already has this text`, { version: model.head.number });
       const version = tx.create(ModelVersionSchema, {
         model, number: (model.head?.number ?? 0) + 1, text, sha256, defines: modelDefinitions(text),
-        author: tx.getReference(UserSchema, ctx.caller.user!.id), message: String(input.message ?? "").slice(0, 2000), createdAt: new Date(),
+        author: tx.getReference(UserSchema, ctx.caller.user!.id), message: (input.message ?? "").slice(0, 2000), createdAt: new Date(),
       });
       model.head = version;
       await tx.flush();

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import "@/lib/validation/api";
-import { badgeSchema, categorySchema } from "@/lib/validation/blocks";
+import { badgeSchema, categorySchema, visibilitySchema } from "@/lib/validation/blocks";
 
 // The JSON the API answers with, as zod schemas: the OpenAPI document is generated from them,
 // and the integration tests parse live responses with them so the document cannot drift from the code.
@@ -74,7 +74,7 @@ export const blockSchema = z.object({
   summary: z.string(),
   hazard: z.array(z.string()).meta({ description: "mains, high-voltage, high-current, heat: the page shows cautions" }),
   team: z.string(),
-  visibility: z.enum(["team", "public"]),
+  visibility: visibilitySchema,
   version: z.number().int(),
   headVersion: z.number().int(),
   archived: z.boolean().meta({ description: "Archived blocks stay readable but take no new versions" }),
@@ -103,7 +103,7 @@ export const blockSummarySchema = z.object({
   category: z.string(),
   tags: z.array(z.string()),
   team: z.string(),
-  visibility: z.enum(["team", "public"]),
+  visibility: visibilitySchema,
   version: z.number().int(),
   badge: badgeSchema,
   approved: z.boolean(),
