@@ -21,6 +21,8 @@ export type LocalExecutorOptions = {
    * batch: for a long-lived caller such as a worker's simulation slot, which must call close() when it stops.
    */
   keep?: boolean;
+  /** With keep: how long a kept process may sit idle before it ends (KEEP_IDLE_MS). */
+  keepIdleMs?: number;
 };
 
 // One plot each, so the control block's `write` holds what `ngspice -b -r` would (noise writes two plots).
@@ -42,6 +44,9 @@ const LEAKING_OPTION = /^[ \t]*\.opt(?:ion|ions)?\b[^\n]*\b(?:interp|cshunt)\b/i
 const batchable = (r: SimRequest) => !LEAKING_OPTION.test(r.circuit)
   && (BATCHED.has(r.analysis.kind) || (r.analysis.kind === "tran" && r.analysis.stop / r.analysis.step <= TRAN_BATCH_POINTS));
 
+/** A kept ngspice process idle this long ends: a worker between bursts of simulations holds none. */
+export const KEEP_IDLE_MS = 30_000;
+
 /** How many ngspice processes run at once by default: one per core. */
 export const defaultConcurrency = () => Math.max(1, os.availableParallelism?.() ?? os.cpus().length);
 
@@ -52,17 +57,28 @@ export const defaultConcurrency = () => Math.max(1, os.availableParallelism?.() 
 export function localExecutor(opts: LocalExecutorOptions = {}): SimExecutor & { close(): void } {
   const dir = opts.cacheDir ?? defaultCacheDir();
   const limit = Math.max(1, opts.concurrency ?? defaultConcurrency());
-  const idle: NgspiceSession[] = []; // kept processes not running a batch now
+  const idle: { session: NgspiceSession; timer: NodeJS.Timeout }[] = []; // kept processes not running a batch now
   const batch = async (job: SimRequest[]) => {
     if (!opts.keep) return runBatchAsync(job.map((r) => r.deck), opts.timeoutMs, opts.signal);
-    const session = idle.pop() ?? new NgspiceSession();
+    const kept = idle.pop();
+    if (kept) clearTimeout(kept.timer);
+    const session = kept?.session ?? new NgspiceSession();
     const raws = await session.run(job.map((r) => r.deck), opts.timeoutMs, opts.signal);
-    if (session.usable) idle.push(session);
-    else session.close();
+    if (!session.usable) session.close();
+    else {
+      const timer = setTimeout(() => {
+        idle.splice(idle.findIndex((k) => k.session === session), 1);
+        session.close();
+      }, opts.keepIdleMs ?? KEEP_IDLE_MS).unref();
+      idle.push({ session, timer });
+    }
     return raws;
   };
   return {
-    close: () => idle.splice(0).forEach((s) => s.close()),
+    close: () => idle.splice(0).forEach((k) => {
+      clearTimeout(k.timer);
+      k.session.close();
+    }),
     async runMany(reqs, progress) {
       const unique = new Map<string, SimRequest>();
       for (const r of reqs) if (!unique.has(r.key)) unique.set(r.key, r);

@@ -49,6 +49,10 @@ export class NgspiceSession {
       this.onOutput?.();
     });
     this.child.stdin!.write("set filetype=binary\n");
+    // A kept process never holds its parent open: while a batch runs, the batch's timer does; when the parent
+    // exits, ngspice reads the end of its input and quits.
+    this.child.unref();
+    for (const pipe of [this.child.stdin, this.child.stdout]) (pipe as unknown as { unref?: () => void } | null)?.unref?.();
   }
 
   /** Still running, and young enough for another batch. */

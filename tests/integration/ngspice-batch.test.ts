@@ -1,3 +1,4 @@
+import { execFileSync } from "node:child_process";
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
@@ -113,6 +114,21 @@ describe("a kept ngspice process (a worker slot's session)", () => {
     } finally {
       executor.close();
     }
+  });
+
+  it("ends once idle for the executor's keepIdleMs, and close() ends the rest", async () => {
+    const kept = () => execFileSync("ps", ["-o", "args=", "--ppid", String(process.pid)], { encoding: "utf8" }).split("\n").filter((l) => /^ngspice -p\b/.test(l));
+    const executor = localExecutor({ cacheDir, noCache: true, concurrency: 1, keep: true, keepIdleMs: 300 });
+    await executor.runMany([wien(15.8e3), wien(16e3)]);
+    expect(kept()).toHaveLength(1);
+    await new Promise((r) => setTimeout(r, 1_000));
+    expect(kept()).toHaveLength(0);
+    const lasting = localExecutor({ cacheDir, noCache: true, concurrency: 1, keep: true });
+    await lasting.runMany([wien(15.9e3)]);
+    expect(kept()).toHaveLength(1);
+    lasting.close();
+    await new Promise((r) => setTimeout(r, 200)); // SIGKILL is sent; the kernel reaps it
+    expect(kept()).toHaveLength(0);
   });
 
   it("is killed by the caller's abort, and a later batch gets a fresh process", async () => {

@@ -42,8 +42,11 @@ async function until(id: string, ok: (v: DraftRunView) => boolean, ms = 300_000)
 }
 
 /** ngspice processes this test process started (prlimit execs ngspice, so each is a direct child). */
+// A draft's simulations run as `ngspice -b` (alone or a batch). The `ngspice -p` processes a worker slot keeps between
+// jobs belong to the simulate loop that verifying the demo block in this process started, not to any draft.
 const ngspiceChildren = () =>
-  execFileSync("ps", ["-o", "pid=,comm=", "--ppid", String(process.pid)], { encoding: "utf8" }).split("\n").filter((l) => /ngspice|prlimit/.test(l));
+  execFileSync("ps", ["-o", "pid=,args=", "--ppid", String(process.pid)], { encoding: "utf8" }).split("\n")
+    .filter((l) => /ngspice|prlimit/.test(l) && !/ngspice -p\b/.test(l));
 
 async function storedState() {
   const head = await getBlock(await ctxOf("viewer"), { slug: wien() });
