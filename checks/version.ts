@@ -4,7 +4,9 @@ import path from "node:path";
 import { defaultModelsDir } from "./spice/paths";
 
 // Bump whenever a change could alter a report for the same block file.
-export const ENGINE_VERSION = "1.8.0";
+// 1.8.1: a circuit setting .options interp or cshunt no longer shares an ngspice process, so a run simulated in a
+// worker's group beside one could have been changed by it: badges made before are stale and verified again.
+export const ENGINE_VERSION = "1.8.1";
 
 /** sha256 over the shared model library: each .lib file's name and bytes, in sorted name order. */
 export function modelLibraryHash(modelsDir?: string): string {
