@@ -77,9 +77,11 @@ export class NgspiceSession {
       const cancel = () => done(false);
       const timer = setTimeout(cancel, timeoutMs * decks.length);
       signal?.addEventListener("abort", cancel, { once: true });
+      let scanned = 0; // where the marker could start in what has come so far (output runs to megabytes)
       this.onOutput = () => {
-        if (this.output.includes(end)) done(true);
+        if (this.output.includes(end, scanned)) done(true);
         else if (this.ended || this.output.length > MAX_OUTPUT) done(false);
+        scanned = Math.max(0, this.output.length - end.length);
       };
       if (this.ended || signal?.aborted) return done(false);
       this.child.stdin!.write([...memberCommands(prefix, decks.length), `echo ${end}`, ""].join("\n"));

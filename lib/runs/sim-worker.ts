@@ -109,7 +109,7 @@ async function simulateGroup(queue: PgBoss, executor: SimExecutor, jobs: PgBoss.
 
 /**
  * When this worker sees the coordinator's cache (one machine, or a shared volume), the raw file goes there and the
- * table row only says so: a raw file is hundreds of kilobytes, and through the database it cost both workers and
+ * table row only says so: a raw file is 100 kB and more, and through the database it cost both workers and
  * PostgreSQL more CPU than the short simulation itself. Our own executor has already put it there when the two
  * caches are one folder; otherwise it is written there now. False: it goes through the table.
  */
