@@ -31,9 +31,11 @@ export class NgspiceSession {
   private ended = false;
 
   constructor() {
-    // stderr joins stdout in order, so an abort message is read before the end marker that follows it.
-    this.child = spawn("prlimit", [...limits(SESSION_CPU_SECONDS), "--", "sh", "-c", "exec ngspice -p 2>&1"], {
-      ...sandboxSpawn(this.dir), stdio: ["pipe", "pipe", "ignore"],
+    // stderr joins stdout in order, so an abort message is read before the end marker that follows it. When the
+    // parent dies without close() (a worker SIGKILLed), ngspice reads the end of its input and quits, and the shell
+    // then removes the directory. Its own process group, so close() ends shell and ngspice together.
+    this.child = spawn("prlimit", [...limits(SESSION_CPU_SECONDS), "--", "sh", "-c", 'ngspice -p 2>&1; cd / && rm -rf -- "$0"', this.dir], {
+      ...sandboxSpawn(this.dir), stdio: ["pipe", "pipe", "ignore"], detached: true,
     });
     this.child.stdout!.setEncoding("latin1").on("data", (d: string) => {
       this.output += d;
@@ -95,7 +97,7 @@ export class NgspiceSession {
 
   /** Ends the process (now: nothing of it is wanted any more) and removes its directory. */
   close(): void {
-    if (!this.ended) this.child.kill("SIGKILL");
+    if (!this.ended) try { process.kill(-this.child.pid!, "SIGKILL"); } catch { /* gone already */ }
     this.ended = true;
     fs.rmSync(this.dir, { recursive: true, force: true });
   }

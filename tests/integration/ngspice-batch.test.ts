@@ -1,4 +1,4 @@
-import { execFileSync } from "node:child_process";
+import { execFileSync, spawn } from "node:child_process";
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
@@ -117,7 +117,8 @@ describe("a kept ngspice process (a worker slot's session)", () => {
   });
 
   it("ends once idle for the executor's keepIdleMs, and close() ends the rest", async () => {
-    const kept = () => execFileSync("ps", ["-o", "args=", "--ppid", String(process.pid)], { encoding: "utf8" }).split("\n").filter((l) => /^ngspice -p\b/.test(l));
+    // A kept process is a shell (for its clean-up) running `ngspice -p`: count our children that are such shells.
+    const kept = () => execFileSync("ps", ["-o", "args=", "--ppid", String(process.pid)], { encoding: "utf8" }).split("\n").filter((l) => /^sh -c ngspice -p\b/.test(l));
     const executor = localExecutor({ cacheDir, noCache: true, concurrency: 1, keep: true, keepIdleMs: 300 });
     await executor.runMany([wien(15.8e3), wien(16e3)]);
     expect(kept()).toHaveLength(1);
@@ -129,6 +130,28 @@ describe("a kept ngspice process (a worker slot's session)", () => {
     lasting.close();
     await new Promise((r) => setTimeout(r, 200)); // SIGKILL is sent; the kernel reaps it
     expect(kept()).toHaveLength(0);
+  });
+
+  it("removes its directory when its parent dies without closing it (a worker SIGKILLed)", async () => {
+    const tmp = fs.mkdtempSync(path.join(os.tmpdir(), "assay-orphan-"));
+    try {
+      const deck = JSON.stringify(wien(15.8e3).deck);
+      const child = spawn(process.execPath, ["--import", "tsx", "-e",
+        `import("./checks/spice/session.ts").then(async ({ NgspiceSession }) => { const s = new NgspiceSession(); await s.run([${deck}]); console.log("ready"); setInterval(() => {}, 1000); });`],
+      { cwd: process.cwd(), env: { ...process.env, TMPDIR: tmp }, stdio: ["ignore", "pipe", "inherit"] });
+      await new Promise<void>((resolve, reject) => {
+        child.stdout!.on("data", (d: Buffer) => { if (d.toString().includes("ready")) resolve(); });
+        child.once("exit", (code) => reject(new Error(`exited ${code}`)));
+      });
+      const dirs = () => fs.readdirSync(tmp).filter((f) => f.startsWith("assay-spice-"));
+      expect(dirs()).toHaveLength(1);
+      child.kill("SIGKILL");
+      const end = Date.now() + 5_000;
+      while (dirs().length > 0 && Date.now() < end) await new Promise((r) => setTimeout(r, 50));
+      expect(dirs()).toEqual([]);
+    } finally {
+      fs.rmSync(tmp, { recursive: true, force: true });
+    }
   });
 
   it("is killed by the caller's abort, and a later batch gets a fresh process", async () => {
