@@ -11,7 +11,7 @@ import { contextFor } from "@/lib/context";
 import { closeOrm, getEm } from "@/lib/db/orm";
 import { SIMULATE_QUEUE, startedBoss } from "@/lib/queue/boss";
 import { getRun } from "@/lib/runs/runs";
-import { localExecutor, verifyBlock } from "@/checks";
+import { localExecutor, verifyBlock, type Report } from "@/checks";
 import { parseRawFile } from "@/checks/spice/raw-file";
 import { simRequest } from "@/checks/spice/request";
 import { makeTeam, wienFixture, type TestTeam } from "./blocks-helpers";
@@ -203,7 +203,7 @@ describe("one verification spread over two workers", () => {
     expect(rows.length).toBeGreaterThan(0);
     expect(rows.every((r) => r.ok && r.raw_in_cache)).toBe(true);
     // The same verdicts and values as the engine gives in this process with ngspice run here and nothing cached.
-    const checks = (r: unknown) => (r as { checks: { name: string; status: string; value?: unknown }[] }).checks.map((c) => [c.name, c.status, c.value]);
+    const checks = (r: unknown) => (r as Report).checks.map((c) => [c.label, c.status, c.detail, c.compared?.value]);
     const { report } = await verifyBlock(wienFixture(`tiny-${team.tag}`), { executor: localExecutor({ noCache: true }) });
     expect(report.status).toBe("verified");
     expect(checks(done.report)).toEqual(checks(report));
